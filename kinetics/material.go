@@ -1,0 +1,203 @@
+package kinetics
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"undercool/cnt"
+)
+
+// Prefactor names the kinetic prefactor model of the steady-state rate.
+type Prefactor int
+
+const (
+	// PrefactorAttachment is J = N·Z·β*·exp(−ΔG*/k_BT) with β* from D(T).
+	PrefactorAttachment Prefactor = iota
+	// PrefactorTurnbullFisher is J = N·(k_BT/h)·exp(−Q/RT)·exp(−ΔG*/k_BT).
+	PrefactorTurnbullFisher
+	// PrefactorFixed is J = J0·exp(−ΔG*/k_BT).
+	PrefactorFixed
+)
+
+var prefactorNames = [...]string{"attachment", "turnbull-fisher", "fixed"}
+
+func (p Prefactor) String() string { return prefactorNames[p] }
+
+// ParsePrefactor returns the prefactor model with the given short name.
+func ParsePrefactor(s string) (Prefactor, bool) {
+	for i, n := range prefactorNames {
+		if n == s {
+			return Prefactor(i), true
+		}
+	}
+	return 0, false
+}
+
+// PrefactorNames lists the accepted prefactor names.
+func PrefactorNames() []string { return prefactorNames[:] }
+
+// Material is the description of a transforming material: its driving
+// force, interface and mobility. Zero values mean "not given" where the
+// field says so. Build a Model from it to evaluate rates.
+type Material struct {
+	Name      string
+	Driving   cnt.DrivingForce
+	Te        float64   // equilibrium temperature, K (0: from a tabulated driving force)
+	Vm        float64   // molar volume of the new phase, m³/mol
+	Gamma     float64   // interfacial energy, J/m²
+	Theta     float64   // contact angle, degrees; 180 = homogeneous (0: homogeneous)
+	Sites     float64   // nucleation sites, m⁻³ (0: 1/v, every molecule)
+	Prefactor Prefactor // kinetic prefactor model
+	J0        float64   // prefactor for PrefactorFixed, m⁻³·s⁻¹
+	Mobility  Mobility  // nil: no mobility law (nucleus only, or fixed prefactor)
+	Jump      float64   // jump distance λ, m (0: v^(1/3))
+	Tg        float64   // glass transition, K (0: none), for ranges and flags
+}
+
+// MolecularVolume is v = V_m/N_A, m³.
+func (m *Material) MolecularVolume() float64 { return m.Vm / cnt.Avogadro }
+
+// JumpDistance is λ, the given one or v^(1/3).
+func (m *Material) JumpDistance() float64 {
+	if m.Jump > 0 {
+		return m.Jump
+	}
+	return math.Cbrt(m.MolecularVolume())
+}
+
+// Model is a validated Material, ready to answer for any temperature.
+// It is immutable and safe for concurrent use.
+type Model struct {
+	m      Material
+	v      float64 // molecular volume, m³
+	jump   float64 // λ, m
+	lnJump float64
+	f      float64 // shape factor
+	lnN    float64 // ln of site density
+	lnJ0   float64
+	q      float64 // Arrhenius Q for Turnbull–Fisher, J/mol
+}
+
+// ErrNoMobility is returned for a Turnbull–Fisher prefactor without an
+// Arrhenius mobility law.
+var ErrNoMobility = errors.New("the turnbull-fisher prefactor needs an arrhenius mobility law (d0 and q)")
+
+func positive(name string, x float64) error {
+	if !(x > 0) || math.IsInf(x, 1) {
+		return fmt.Errorf("%s must be positive and finite, got %g", name, x)
+	}
+	return nil
+}
+
+// NewModel checks a material and prepares it for evaluation. The errors
+// name the offending quantity by its short key (te, vm, gamma, …).
+func NewModel(m Material) (*Model, error) {
+	if m.Driving == nil {
+		return nil, errors.New("no driving-force model")
+	}
+	if tab, ok := m.Driving.(*cnt.Table); ok && m.Te == 0 {
+		te, found := tab.Equilibrium()
+		if !found {
+			return nil, errors.New("te: the driving-force table never changes sign; give te")
+		}
+		m.Te = te
+	}
+	checks := []struct {
+		name string
+		x    float64
+	}{{"te", m.Te}, {"vm", m.Vm}, {"gamma", m.Gamma}}
+	for _, c := range checks {
+		if err := positive(c.name, c.x); err != nil {
+			return nil, err
+		}
+	}
+	if m.Theta == 0 {
+		m.Theta = 180
+	}
+	if !(m.Theta > 0 && m.Theta <= 180) {
+		return nil, fmt.Errorf("theta must be in (0, 180] degrees, got %g", m.Theta)
+	}
+	for _, c := range []struct {
+		name string
+		x    float64
+	}{{"sites", m.Sites}, {"jump", m.Jump}, {"tg", m.Tg}, {"j0", m.J0}} {
+		if c.x != 0 {
+			if err := positive(c.name, c.x); err != nil {
+				return nil, err
+			}
+		}
+	}
+	md := &Model{m: m, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
+	md.lnJump = math.Log(md.jump)
+	if m.Sites > 0 {
+		md.lnN = math.Log(m.Sites)
+	} else {
+		md.lnN = -math.Log(md.v)
+	}
+	switch m.Prefactor {
+	case PrefactorFixed:
+		if !(m.J0 > 0) {
+			return nil, errors.New("the fixed prefactor needs j0 (m^-3 s^-1)")
+		}
+		md.lnJ0 = math.Log(m.J0)
+	case PrefactorTurnbullFisher:
+		a, ok := m.Mobility.(Arrhenius)
+		if !ok {
+			return nil, ErrNoMobility
+		}
+		md.q = a.Q
+	}
+	switch mob := m.Mobility.(type) {
+	case Arrhenius:
+		if err := positive("d0", mob.D0); err != nil {
+			return nil, err
+		}
+		if math.IsNaN(mob.Q) || math.IsInf(mob.Q, 0) {
+			return nil, errors.New("q must be finite")
+		}
+	case VFT:
+		if !(mob.T0 >= 0) || math.IsNaN(mob.A) || math.IsNaN(mob.B) || !(mob.B > 0) {
+			return nil, errors.New("vft needs finite vft-a, positive vft-b and vft-t0 >= 0")
+		}
+	case WLF:
+		if err := positive("tg", mob.Tg); err != nil {
+			return nil, err
+		}
+		if err := positive("wlf-c2", mob.C2); err != nil {
+			return nil, err
+		}
+		if err := positive("eta-g", mob.EtaG); err != nil {
+			return nil, err
+		}
+		if err := positive("wlf-c1", mob.C1); err != nil {
+			return nil, err
+		}
+	}
+	return md, nil
+}
+
+// Material returns a copy of the material the model was built from, with
+// defaults filled in (θ, T_e of a table).
+func (md *Model) Material() Material { return md.m }
+
+// MolecularVolume is v, m³.
+func (md *Model) MolecularVolume() float64 { return md.v }
+
+// JumpDistance is λ, m.
+func (md *Model) JumpDistance() float64 { return md.jump }
+
+// ShapeFactor is f(θ).
+func (md *Model) ShapeFactor() float64 { return md.f }
+
+// LnSites is ln N, N in m⁻³.
+func (md *Model) LnSites() float64 { return md.lnN }
+
+// HasRate reports whether the model can give a nucleation rate: it has a
+// mobility law or a fixed prefactor.
+func (md *Model) HasRate() bool {
+	return md.m.Mobility != nil || md.m.Prefactor == PrefactorFixed
+}
+
+// HasGrowth reports whether the model can give a growth rate (it has a mobility law).
+func (md *Model) HasGrowth() bool { return md.m.Mobility != nil }

@@ -1,0 +1,161 @@
+package kinetics
+
+import (
+	"math"
+
+	"undercool/cnt"
+)
+
+// Flag marks a result that lies outside the range where the model is sound.
+type Flag uint
+
+const (
+	// FlagNoDrivingForce: at or above T_e (or S ≤ 1) there is no driving
+	// force; no nucleus, zero rate.
+	FlagNoDrivingForce Flag = 1 << iota
+	// FlagSmallNucleus: n* below SmallNucleus molecules; CNT's continuum
+	// picture does not hold there.
+	FlagSmallNucleus
+	// FlagLowBarrier: ΔG* below LowBarrier·k_BT; the steady-state
+	// expansion behind Z is poor and the rate is of the order of its prefactor.
+	FlagLowBarrier
+	// FlagNoMobility: below the VFT T0 (or the WLF divergence) there is no mobility.
+	FlagNoMobility
+	// FlagWLFFarAboveTg: WLF used more than WLFRange above T_g, outside its fitted range.
+	FlagWLFFarAboveTg
+	// FlagOutsideTable: the temperature lies outside a tabulated driving force.
+	FlagOutsideTable
+)
+
+// Limits behind the validity flags (common practice).
+const (
+	SmallNucleus = 10.0  // molecules
+	LowBarrier   = 5.0   // k_BT
+	WLFRange     = 100.0 // K above T_g
+)
+
+var flagNames = []struct {
+	f          Flag
+	key, about string
+}{
+	{FlagNoDrivingForce, "no_driving_force", "no driving force at or above the equilibrium temperature"},
+	{FlagSmallNucleus, "small_nucleus", "critical nucleus below 10 molecules: outside the range of CNT"},
+	{FlagLowBarrier, "low_barrier", "barrier below 5 kT: steady-state CNT is unreliable"},
+	{FlagNoMobility, "no_mobility", "below the temperature where the viscosity law diverges: no mobility"},
+	{FlagWLFFarAboveTg, "wlf_far_above_tg", "WLF used more than 100 K above Tg"},
+	{FlagOutsideTable, "outside_table", "outside the tabulated driving force"},
+}
+
+// Keys returns the snake_case names of the set flags, in a fixed order.
+func (f Flag) Keys() []string {
+	var out []string
+	for _, n := range flagNames {
+		if f&n.f != 0 {
+			out = append(out, n.key)
+		}
+	}
+	return out
+}
+
+// Descriptions returns one sentence for each set flag, in a fixed order.
+func (f Flag) Descriptions() []string {
+	var out []string
+	for _, n := range flagNames {
+		if f&n.f != 0 {
+			out = append(out, n.about)
+		}
+	}
+	return out
+}
+
+// State is everything the model says at one temperature.
+type State struct {
+	T            float64     // K
+	Undercooling float64     // T_e − T, K
+	DrivingMole  float64     // Δg, J/mol (≤ 0: none)
+	Dmu          float64     // Δμ per molecule, J
+	Nucleus      cnt.Nucleus // critical nucleus (+Inf sizes when none)
+	LnD          float64     // ln D, D in m²/s (NaN: no mobility law)
+	LnBeta       float64     // ln β*, 1/s (NaN: not defined)
+	LnJ          float64     // ln J, J in m⁻³·s⁻¹ (−Inf: no nucleation; NaN: no rate model)
+	Growth       float64     // u, m/s (NaN: no mobility law)
+	Flags        Flag
+}
+
+// DrivingVolume is Δg per unit volume of the new phase, J/m³.
+func (s State) DrivingVolume(vm float64) float64 { return s.DrivingMole / vm }
+
+// Log10J is log10 of the rate.
+func (s State) Log10J() float64 { return s.LnJ / math.Ln10 }
+
+// TimeLag is the transient time τ = 1/(2π·Z²·β*), s; NaN without a mobility law.
+func (s State) TimeLag() float64 {
+	if math.IsNaN(s.LnBeta) {
+		return math.NaN()
+	}
+	return cnt.TimeLag(s.Nucleus.Zeldovich, s.LnBeta)
+}
+
+// At evaluates the model at temperature T (K, > 0).
+func (md *Model) At(T float64) State {
+	s := State{T: T, Undercooling: md.m.Te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
+	kT := cnt.Boltzmann * T
+	s.DrivingMole = md.m.Driving.PerMole(T)
+	if math.IsNaN(s.DrivingMole) {
+		s.Flags |= FlagOutsideTable
+		s.Nucleus = cnt.Critical(0, 0, 0, 0, T)
+		return s
+	}
+	s.Dmu = s.DrivingMole / cnt.Avogadro
+	s.Nucleus = cnt.Critical(s.Dmu, md.m.Gamma, md.v, md.f, T)
+	if !(s.Dmu > 0) {
+		s.Flags |= FlagNoDrivingForce
+	} else {
+		if s.Nucleus.Size < SmallNucleus {
+			s.Flags |= FlagSmallNucleus
+		}
+		if s.Nucleus.Barrier < LowBarrier*kT {
+			s.Flags |= FlagLowBarrier
+		}
+	}
+	if md.m.Mobility != nil {
+		s.LnD = md.m.Mobility.LnDiffusivity(T)
+		if math.IsInf(s.LnD, -1) {
+			s.Flags |= FlagNoMobility
+		}
+		if w, ok := md.m.Mobility.(WLF); ok && T > w.Tg+WLFRange {
+			s.Flags |= FlagWLFFarAboveTg
+		}
+		s.Growth = GrowthRate(s.LnD, md.jump, s.Dmu/kT)
+		if s.Dmu > 0 {
+			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
+		}
+	}
+	s.LnJ = md.lnRate(s, T)
+	return s
+}
+
+// lnRate applies the prefactor model to an evaluated state.
+func (md *Model) lnRate(s State, T float64) float64 {
+	if !md.HasRate() {
+		return math.NaN()
+	}
+	if !(s.Dmu > 0) {
+		return math.Inf(-1)
+	}
+	switch md.m.Prefactor {
+	case PrefactorFixed:
+		return cnt.LnRateFixed(md.lnJ0, s.Nucleus.Barrier, T)
+	case PrefactorTurnbullFisher:
+		return cnt.LnRateTurnbullFisher(md.lnN, md.q, s.Nucleus.Barrier, T)
+	default:
+		return cnt.LnRate(md.lnN, s.Nucleus.Zeldovich, s.LnBeta, s.Nucleus.Barrier, T)
+	}
+}
+
+// LnJ is ln J(T), J in m⁻³·s⁻¹: −Inf where nothing nucleates, NaN where
+// the model has no rate (no mobility law and no fixed prefactor).
+func (md *Model) LnJ(T float64) float64 { return md.At(T).LnJ }
+
+// GrowthRate is u(T), m/s: 0 without driving force or mobility, NaN without a mobility law.
+func (md *Model) GrowthRate(T float64) float64 { return md.At(T).Growth }

@@ -1,0 +1,243 @@
+package presets
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"sort"
+	"strconv"
+	"strings"
+
+	"github.com/BurntSushi/toml"
+
+	"undercool/presets/units"
+)
+
+// Value is one numeric value of a card.
+type Value struct {
+	SI     float64 // in the SI unit of its kind
+	Text   string  // as written, with its unit
+	Kind   units.Kind
+	Source string
+	Line   int // line in the card file, 0 when set on the command line
+}
+
+// Card is a material card: the model choices and the sourced values.
+type Card struct {
+	Name        string
+	Kind        string
+	Description string
+	Driving     string // one of DrivingChoices
+	DrivingFile string // CSV of Δg(T) for driving "table", relative to the card
+	Mobility    string // one of MobilityChoices
+	Prefactor   string // one of PrefactorChoices
+	Values      map[string]Value
+	File        string // where it came from: a path, or "preset NAME"
+}
+
+type rawValue struct {
+	Value  any    `toml:"value"`
+	Source string `toml:"source"`
+}
+
+type rawCard struct {
+	Name         string              `toml:"name"`
+	Kind         string              `toml:"kind"`
+	Description  string              `toml:"description"`
+	Driving      string              `toml:"driving"`
+	DrivingTable string              `toml:"driving_table"`
+	Mobility     string              `toml:"mobility"`
+	Prefactor    string              `toml:"prefactor"`
+	Values       map[string]rawValue `toml:"values"`
+}
+
+// lineOf finds the line on which a key is defined (as "key =" or as a
+// table header "[values.key]"), 0 if it cannot be found.
+func lineOf(data []byte, key string) int {
+	for i, l := range bytes.Split(data, []byte("\n")) {
+		s := strings.TrimSpace(string(l))
+		if s == "[values."+key+"]" {
+			return i + 1
+		}
+		if rest, ok := strings.CutPrefix(s, key); ok {
+			if r := strings.TrimSpace(rest); strings.HasPrefix(r, "=") {
+				return i + 1
+			}
+		}
+	}
+	return 0
+}
+
+func oneOf(s string, choices []string) bool {
+	for _, c := range choices {
+		if s == c {
+			return true
+		}
+	}
+	return false
+}
+
+// Parse reads a card from TOML. file names it in errors ("cards/x.toml" or
+// "preset x"); dir is where a driving table is looked for.
+func Parse(data []byte, file string) (*Card, error) {
+	var raw rawCard
+	md, err := toml.Decode(string(data), &raw)
+	if err != nil {
+		var pe toml.ParseError
+		if errors.As(err, &pe) {
+			return nil, fmt.Errorf("%s:%d: %s", file, pe.Position.Line, pe.Message)
+		}
+		return nil, fmt.Errorf("%s: %v", file, err)
+	}
+	if und := md.Undecoded(); len(und) > 0 {
+		k := und[0]
+		last := k[len(k)-1]
+		return nil, fmt.Errorf("%s:%d: unknown key %q (allowed: %s)", file, lineOf(data, last), k.String(), allowedKeys(k))
+	}
+	c := &Card{
+		Name: raw.Name, Kind: raw.Kind, Description: raw.Description,
+		Driving: raw.Driving, DrivingFile: raw.DrivingTable, Mobility: raw.Mobility, Prefactor: raw.Prefactor,
+		Values: map[string]Value{}, File: file,
+	}
+	topChecks := []struct {
+		key, val string
+		choices  []string
+	}{
+		{"kind", c.Kind, KindChoices},
+		{"driving", c.Driving, DrivingChoices},
+		{"mobility", c.Mobility, MobilityChoices},
+		{"prefactor", c.Prefactor, PrefactorChoices},
+	}
+	if c.Name == "" {
+		return nil, fmt.Errorf("%s: missing value for key \"name\"", file)
+	}
+	for _, t := range topChecks {
+		if t.val == "" && (t.key == "kind" || t.key == "driving") {
+			return nil, fmt.Errorf("%s: missing value for key %q (one of %s)", file, t.key, strings.Join(t.choices, ", "))
+		}
+		if t.val != "" && !oneOf(t.val, t.choices) {
+			return nil, fmt.Errorf("%s:%d: key %q: %q is not one of %s", file, lineOf(data, t.key), t.key, t.val, strings.Join(t.choices, ", "))
+		}
+	}
+	if c.Driving == "table" && c.DrivingFile == "" {
+		return nil, fmt.Errorf("%s: driving \"table\" needs driving_table = \"FILE.csv\"", file)
+	}
+	keys := make([]string, 0, len(raw.Values))
+	for k := range raw.Values {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	for _, key := range keys {
+		rv := raw.Values[key]
+		line := lineOf(data, key)
+		where := fmt.Sprintf("%s:%d: key %q", file, line, key)
+		p, ok := ParamByKey(key)
+		if !ok {
+			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(paramKeys(), ", "))
+		}
+		text, err := valueText(rv.Value)
+		if err != nil {
+			return nil, fmt.Errorf("%s: %v", where, err)
+		}
+		if strings.TrimSpace(rv.Source) == "" {
+			return nil, fmt.Errorf("%s: missing source (a publication, \"common practice\", \"from memory\" or \"invented for the demo\")", where)
+		}
+		v, err := ParseValue(p, text)
+		if err != nil {
+			return nil, fmt.Errorf("%s: %v", where, err)
+		}
+		v.Source, v.Line = rv.Source, line
+		c.Values[key] = v
+	}
+	return c, nil
+}
+
+// valueText turns a TOML value (string with unit, or bare number) into text.
+func valueText(v any) (string, error) {
+	switch x := v.(type) {
+	case nil:
+		return "", errors.New("missing value")
+	case string:
+		if strings.TrimSpace(x) == "" {
+			return "", errors.New("missing value")
+		}
+		return x, nil
+	case int64:
+		return strconv.FormatInt(x, 10), nil
+	case float64:
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return "", fmt.Errorf("value %v is not a finite number", x)
+		}
+		return strconv.FormatFloat(x, 'g', -1, 64), nil
+	default:
+		return "", fmt.Errorf("value must be a number with its unit, as a string such as \"1.2 kJ/mol\"")
+	}
+}
+
+// ParseValue reads the text of a parameter in any of its kinds.
+func ParseValue(p Param, text string) (Value, error) {
+	si, i, err := units.ParseAny(text, p.Kinds...)
+	if err != nil {
+		return Value{}, err
+	}
+	return Value{SI: si, Text: strings.TrimSpace(text), Kind: p.Kinds[i]}, nil
+}
+
+func paramKeys() []string {
+	out := make([]string, len(Params))
+	for i, p := range Params {
+		out[i] = p.Key
+	}
+	return out
+}
+
+func allowedKeys(k toml.Key) string {
+	if len(k) > 1 && k[0] == "values" {
+		if len(k) > 2 {
+			return "value, source"
+		}
+		return strings.Join(paramKeys(), ", ")
+	}
+	return "name, kind, description, driving, driving_table, mobility, prefactor, [values]"
+}
+
+// Load reads a card from a file.
+func Load(path string) (*Card, error) {
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read material card: %v", errors.Unwrap(err))
+	}
+	c, err := Parse(data, path)
+	if err != nil {
+		return nil, err
+	}
+	if c.DrivingFile != "" && !filepath.IsAbs(c.DrivingFile) {
+		c.DrivingFile = filepath.Join(filepath.Dir(path), c.DrivingFile)
+	}
+	return c, nil
+}
+
+// Set puts a value given as text (with its unit) on the card, as the
+// command line does to override a card; source says where it came from.
+func (c *Card) Set(key, text, source string) error {
+	p, ok := ParamByKey(key)
+	if !ok {
+		panic("presets: Set: unknown key " + key)
+	}
+	v, err := ParseValue(p, text)
+	if err != nil {
+		return err
+	}
+	v.Source = source
+	c.Values[key] = v
+	return nil
+}
+
+// Has reports whether the card has a value for key.
+func (c *Card) Has(key string) bool { _, ok := c.Values[key]; return ok }
+
+// SI returns the SI value of key, 0 when absent.
+func (c *Card) SI(key string) float64 { return c.Values[key].SI }

@@ -1,0 +1,175 @@
+package presets
+
+import (
+	"bufio"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"strings"
+
+	"undercool/presets/units"
+)
+
+// Column is a quantity a data file may carry: header names are the
+// quantity, an underscore and the unit written with underscores, such as
+// temperature_c, time_min, diffusivity_m2_per_s or rate_per_m3_s.
+// A Dimensionless column is named by the bare quantity ("fraction").
+type Column struct {
+	Quantity string
+	Kind     units.Kind
+	Required bool
+}
+
+// Data is a file of columns, converted to SI, with the file line of every row.
+type Data struct {
+	File    string
+	Columns map[string][]float64 // by quantity
+	Headers map[string]string    // the header as written, by quantity
+	Lines   []int                // file line of each row
+}
+
+// headerUnit turns the unit part of a header name into a unit spelling:
+// underscores before "per" multiply, those after divide
+// (m2_per_s → m2/s, per_m3_s → /m3/s, pa_s → pa*s).
+func headerUnit(s string) string {
+	parts := strings.Split(s, "_")
+	var num, den []string
+	after := false
+	for _, p := range parts {
+		if p == "per" {
+			after = true
+			continue
+		}
+		if after {
+			den = append(den, p)
+		} else {
+			num = append(num, p)
+		}
+	}
+	u := strings.Join(num, "*")
+	for _, d := range den {
+		u += "/" + d
+	}
+	return u
+}
+
+// matchHeader returns the column a header names and the header's unit, or false.
+func matchHeader(h string, cols []Column) (int, string, bool) {
+	h = strings.ToLower(strings.TrimSpace(h))
+	for i, c := range cols {
+		if h == c.Quantity && c.Kind.Bare {
+			return i, "", true
+		}
+		if rest, ok := strings.CutPrefix(h, c.Quantity+"_"); ok {
+			return i, headerUnit(rest), true
+		}
+	}
+	return 0, "", false
+}
+
+func acceptedHeaders(cols []Column) string {
+	var out []string
+	for _, c := range cols {
+		if len(c.Kind.Units()) == 0 {
+			out = append(out, c.Quantity)
+			continue
+		}
+		out = append(out, c.Quantity+"_UNIT (UNIT one of "+strings.Join(c.Kind.Units(), " ")+", with _ for * and _per_ for /)")
+	}
+	return strings.Join(out, "; ")
+}
+
+// ReadData reads a CSV whose first non-comment row is a header of unit-bearing
+// names; '#' starts a comment line and blank lines are skipped. Every value
+// must be a finite number. Errors name the file and line.
+func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
+	br := bufio.NewReader(r)
+	cr := csv.NewReader(br)
+	cr.Comment = '#'
+	cr.FieldsPerRecord = -1
+	cr.TrimLeadingSpace = true
+	d := &Data{File: file, Columns: map[string][]float64{}, Headers: map[string]string{}}
+	var index []int     // column position → cols index (−1: ignored)
+	var unitsOf []string // column position → unit text
+	for {
+		rec, err := cr.Read()
+		if err == io.EOF {
+			break
+		}
+		line, _ := cr.FieldPos(0)
+		if err != nil {
+			var pe *csv.ParseError
+			if errors.As(err, &pe) {
+				return nil, fmt.Errorf("%s:%d: not valid CSV: %v", file, pe.Line, pe.Err)
+			}
+			return nil, fmt.Errorf("%s: %v", file, err)
+		}
+		if index == nil {
+			index = make([]int, len(rec))
+			unitsOf = make([]string, len(rec))
+			seen := map[int]bool{}
+			for j, h := range rec {
+				i, u, ok := matchHeader(h, cols)
+				if !ok {
+					return nil, fmt.Errorf("%s:%d: unknown column %q; accepted: %s", file, line, strings.TrimSpace(h), acceptedHeaders(cols))
+				}
+				if seen[i] {
+					return nil, fmt.Errorf("%s:%d: two columns for %s", file, line, cols[i].Quantity)
+				}
+				seen[i] = true
+				if u != "" {
+					if _, err := units.Parse("1"+u, cols[i].Kind); err != nil {
+						return nil, fmt.Errorf("%s:%d: column %q: unit %q is not a unit of %s (use %s)", file, line, strings.TrimSpace(h), u, cols[i].Kind.Name, strings.Join(cols[i].Kind.Units(), ", "))
+					}
+				} else if !cols[i].Kind.Bare || len(cols[i].Kind.Units()) > 0 {
+					return nil, fmt.Errorf("%s:%d: column %q needs a unit, e.g. %s_%s", file, line, h, cols[i].Quantity, strings.ReplaceAll(cols[i].Kind.Units()[0], "/", "_per_"))
+				}
+				index[j], unitsOf[j] = i, u
+				d.Headers[cols[i].Quantity] = strings.TrimSpace(h)
+			}
+			for _, c := range cols {
+				if c.Required && !seenQuantity(d.Headers, c.Quantity) {
+					return nil, fmt.Errorf("%s:%d: missing column for %s; accepted: %s", file, line, c.Quantity, acceptedHeaders(cols))
+				}
+			}
+			continue
+		}
+		if len(rec) != len(index) {
+			return nil, fmt.Errorf("%s:%d: %d fields, header has %d", file, line, len(rec), len(index))
+		}
+		for j, f := range rec {
+			c := cols[index[j]]
+			v, err := units.Parse(strings.TrimSpace(f)+unitsOf[j], c.Kind)
+			if err != nil || math.IsNaN(v) {
+				return nil, fmt.Errorf("%s:%d: column %q: %q is not a finite number", file, line, d.Headers[c.Quantity], strings.TrimSpace(f))
+			}
+			d.Columns[c.Quantity] = append(d.Columns[c.Quantity], v)
+		}
+		d.Lines = append(d.Lines, line)
+	}
+	if index == nil {
+		return nil, fmt.Errorf("%s: empty file: no header row", file)
+	}
+	if len(d.Lines) == 0 {
+		return nil, fmt.Errorf("%s: no data rows after the header", file)
+	}
+	return d, nil
+}
+
+func seenQuantity(h map[string]string, q string) bool { _, ok := h[q]; return ok }
+
+// ReadDataFile reads a data file by path; "-" reads stdin.
+func ReadDataFile(path string, stdin io.Reader, cols []Column) (*Data, error) {
+	if path == "-" {
+		return ReadData(stdin, "stdin", cols)
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read %s: %v", path, errors.Unwrap(err))
+	}
+	defer f.Close()
+	return ReadData(f, path, cols)
+}

@@ -1,0 +1,190 @@
+// Package units reads quantities written with their unit, such as "833.85C",
+// "6.59 cm3/mol" or "132 mJ/m2", into SI values. The same parser serves the
+// command line and the material cards, so a value means the same thing
+// wherever it is written.
+package units
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+)
+
+// unit is one way of writing a quantity: SI = (x + offset)·factor.
+type unit struct {
+	factor, offset float64
+}
+
+// Kind is a physical quantity with the units it may be written in.
+type Kind struct {
+	Name  string          // what it is, for messages ("molar volume")
+	SI    string          // the SI unit, for messages and output
+	Bare  bool            // a number without a unit is taken in SI
+	units map[string]unit // accepted spellings, normalised
+}
+
+const (
+	eV      = 1.602176634e-19 // J, exact (SI 2019)
+	avog    = 6.02214076e23   // 1/mol, exact (SI 2019)
+	calorie = 4.184           // J, thermochemical calorie
+)
+
+func k(name, si string, bare bool, u map[string]unit) Kind {
+	return Kind{Name: name, SI: si, Bare: bare, units: u}
+}
+
+// The kinds of quantity undercool reads.
+var (
+	Temperature = k("temperature", "K", true, map[string]unit{
+		"k": {1, 0}, "c": {1, 273.15}, "°c": {1, 273.15}, "degc": {1, 273.15},
+		"f": {5.0 / 9, 459.67}, "°f": {5.0 / 9, 459.67}, "degf": {5.0 / 9, 459.67},
+	})
+	TemperatureDifference = k("temperature difference", "K", true, map[string]unit{
+		"k": {1, 0}, "c": {1, 0}, "°c": {1, 0}, "degc": {1, 0}, "f": {5.0 / 9, 0}, "°f": {5.0 / 9, 0}, "degf": {5.0 / 9, 0},
+	})
+	MolarEnergy = k("molar energy", "J/mol", false, map[string]unit{
+		"j/mol": {1, 0}, "kj/mol": {1e3, 0}, "ev": {eV * avog, 0},
+		"cal/mol": {calorie, 0}, "kcal/mol": {calorie * 1e3, 0},
+	})
+	EnergyDensity = k("energy per volume", "J/m3", false, map[string]unit{
+		"j/m3": {1, 0}, "kj/m3": {1e3, 0}, "mj/m3": {1e6, 0}, "gj/m3": {1e9, 0}, "j/cm3": {1e6, 0},
+	})
+	MolarHeatCapacity = k("molar heat capacity", "J/(mol K)", false, map[string]unit{
+		"j/mol/k": {1, 0}, "j/(mol*k)": {1, 0}, "j/(molk)": {1, 0}, "j/molk": {1, 0}, "j/k/mol": {1, 0},
+	})
+	InterfacialEnergy = k("interfacial energy", "J/m2", false, map[string]unit{
+		"j/m2": {1, 0}, "mj/m2": {1e-3, 0}, "erg/cm2": {1e-3, 0},
+	})
+	MolarVolume = k("molar volume", "m3/mol", false, map[string]unit{
+		"m3/mol": {1, 0}, "cm3/mol": {1e-6, 0}, "l/mol": {1e-3, 0},
+	})
+	Diffusivity = k("diffusivity", "m2/s", false, map[string]unit{
+		"m2/s": {1, 0}, "cm2/s": {1e-4, 0}, "mm2/s": {1e-6, 0}, "um2/s": {1e-12, 0},
+	})
+	Length = k("length", "m", false, map[string]unit{
+		"m": {1, 0}, "cm": {1e-2, 0}, "mm": {1e-3, 0}, "um": {1e-6, 0}, "nm": {1e-9, 0}, "a": {1e-10, 0}, "å": {1e-10, 0}, "pm": {1e-12, 0},
+	})
+	Viscosity = k("viscosity", "Pa s", false, map[string]unit{
+		"pa*s": {1, 0}, "pas": {1, 0}, "mpa*s": {1e-3, 0}, "mpas": {1e-3, 0}, "p": {0.1, 0}, "poise": {0.1, 0}, "cp": {1e-3, 0},
+	})
+	Angle = k("angle", "deg", true, map[string]unit{
+		"deg": {1, 0}, "°": {1, 0}, "rad": {180 / math.Pi, 0},
+	})
+	NumberDensity = k("number density", "m^-3", true, map[string]unit{
+		"m-3": {1, 0}, "/m3": {1, 0}, "1/m3": {1, 0}, "cm-3": {1e6, 0}, "/cm3": {1e6, 0}, "1/cm3": {1e6, 0},
+	})
+	RateDensity = k("rate per volume", "m^-3 s^-1", true, map[string]unit{
+		"m-3s-1": {1, 0}, "/m3/s": {1, 0}, "1/(m3*s)": {1, 0}, "cm-3s-1": {1e6, 0}, "/cm3/s": {1e6, 0}, "1/(cm3*s)": {1e6, 0},
+	})
+	Dimensionless = k("number", "", true, map[string]unit{})
+	CoolingRate   = k("cooling rate", "K/s", false, map[string]unit{
+		"k/s": {1, 0}, "c/s": {1, 0}, "°c/s": {1, 0}, "k/min": {1.0 / 60, 0}, "c/min": {1.0 / 60, 0}, "°c/min": {1.0 / 60, 0},
+		"k/h": {1.0 / 3600, 0}, "c/h": {1.0 / 3600, 0}, "°c/h": {1.0 / 3600, 0},
+	})
+	Volume = k("volume", "m3", false, map[string]unit{
+		"m3": {1, 0}, "l": {1e-3, 0}, "ml": {1e-6, 0}, "cm3": {1e-6, 0}, "ul": {1e-9, 0}, "mm3": {1e-9, 0}, "nl": {1e-12, 0}, "pl": {1e-15, 0}, "um3": {1e-18, 0},
+	})
+	Time = k("time", "s", true, map[string]unit{
+		"s": {1, 0}, "ms": {1e-3, 0}, "us": {1e-6, 0}, "min": {60, 0}, "h": {3600, 0}, "d": {86400, 0}, "day": {86400, 0}, "days": {86400, 0},
+		"y": {365.25 * 86400, 0}, "yr": {365.25 * 86400, 0}, "year": {365.25 * 86400, 0}, "years": {365.25 * 86400, 0},
+	})
+)
+
+// Units lists the accepted spellings of a kind, sorted, for messages.
+func (k Kind) Units() []string {
+	out := make([]string, 0, len(k.units))
+	for u := range k.units {
+		out = append(out, u)
+	}
+	sort.Strings(out)
+	return out
+}
+
+// allowed is the list of units for a message: the SI unit and a few others.
+func (k Kind) allowed() string {
+	if len(k.units) == 0 {
+		return "a plain number"
+	}
+	return strings.Join(k.Units(), ", ")
+}
+
+// normalise folds the ways people write a unit into one spelling.
+func normalise(u string) string {
+	r := strings.NewReplacer(" ", "", "·", "*", ".", "*", "^", "", "²", "2", "³", "3", "⁻", "-", "¹", "1", "µ", "u", "μ", "u", "−", "-")
+	return strings.ToLower(r.Replace(u))
+}
+
+// splitNumber returns the longest prefix of s that parses as a float and the rest.
+func splitNumber(s string) (string, string) {
+	end := 0
+	for i, c := range s {
+		switch {
+		case c >= '0' && c <= '9', c == '.', c == '+', c == '-':
+		case (c == 'e' || c == 'E') && i > 0 && i+1 < len(s) && strings.ContainsRune("0123456789+-", rune(s[i+1])):
+		default:
+			return s[:end], s[end:]
+		}
+		end = i + 1
+	}
+	return s[:end], s[end:]
+}
+
+// Parse reads a number with its unit and returns the SI value. A bare
+// number is taken in the SI unit where the kind allows it (temperatures in
+// kelvin, angles in degrees); otherwise a unit is required. NaN and ±Inf are
+// rejected.
+func Parse(s string, k Kind) (float64, error) {
+	s = strings.TrimSpace(s)
+	num, rest := splitNumber(s)
+	if num == "" {
+		return 0, fmt.Errorf("%q is not a number", s)
+	}
+	x, err := strconv.ParseFloat(num, 64)
+	if err != nil {
+		return 0, fmt.Errorf("%q is not a number", s)
+	}
+	if math.IsInf(x, 0) || math.IsNaN(x) {
+		return 0, fmt.Errorf("%q is not a finite number", s)
+	}
+	u := normalise(rest)
+	if u == "" {
+		if !k.Bare {
+			return 0, fmt.Errorf("%q needs a unit of %s (%s)", s, k.Name, k.allowed())
+		}
+		return x, nil
+	}
+	conv, ok := k.units[u]
+	if !ok {
+		return 0, fmt.Errorf("unit %q in %q is not a unit of %s (use %s)", strings.TrimSpace(rest), s, k.Name, k.allowed())
+	}
+	v := (x + conv.offset) * conv.factor
+	if math.IsInf(v, 0) {
+		return 0, fmt.Errorf("%q is out of range", s)
+	}
+	return v, nil
+}
+
+// ParseAny reads a quantity that may be of one of several kinds (an
+// enthalpy per mole or per volume) and returns the value and its kind's index.
+func ParseAny(s string, kinds ...Kind) (float64, int, error) {
+	var first error
+	for i, k := range kinds {
+		v, err := Parse(s, k)
+		if err == nil {
+			return v, i, nil
+		}
+		if first == nil {
+			first = err
+		}
+	}
+	names := make([]string, len(kinds))
+	for i, k := range kinds {
+		names[i] = k.Name + " (" + k.allowed() + ")"
+	}
+	if _, rest := splitNumber(strings.TrimSpace(s)); strings.TrimSpace(rest) == "" {
+		return 0, 0, first
+	}
+	return 0, 0, fmt.Errorf("%q is not a %s", s, strings.Join(names, " or "))
+}
