@@ -26,7 +26,7 @@ type Linear struct {
 }
 
 func (m Linear) PerMole(T float64) float64 { return m.DH * (m.Te - T) / m.Te }
-func (Linear) Name() string                 { return "linear" }
+func (Linear) Name() string                { return "linear" }
 
 // Hoffman is the approximation for polymers and molecular liquids,
 //
@@ -38,7 +38,7 @@ type Hoffman struct {
 }
 
 func (m Hoffman) PerMole(T float64) float64 { return m.DH * (m.Te - T) * T / (m.Te * m.Te) }
-func (Hoffman) Name() string                 { return "hoffman" }
+func (Hoffman) Name() string                { return "hoffman" }
 
 // ThompsonSpaepen is the approximation for metallic melts,
 //

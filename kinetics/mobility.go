@@ -27,7 +27,7 @@ type Arrhenius struct {
 }
 
 func (a Arrhenius) LnDiffusivity(T float64) float64 { return math.Log(a.D0) - a.Q/(cnt.Gas*T) }
-func (Arrhenius) Name() string                       { return "arrhenius" }
+func (Arrhenius) Name() string                      { return "arrhenius" }
 
 // lnStokesEinstein gives ln D from ln η (η in Pa·s) for a molecule of
 // diameter λ:

@@ -92,7 +92,7 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
 	d := &Data{File: file, Columns: map[string][]float64{}, Headers: map[string]string{}}
-	var index []int     // column position → cols index (−1: ignored)
+	var index []int      // column position → cols index (−1: ignored)
 	var unitsOf []string // column position → unit text
 	for {
 		rec, err := cr.Read()
