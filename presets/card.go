@@ -183,6 +183,14 @@ func ParseValue(p Param, text string) (Value, error) {
 	if err != nil {
 		return Value{}, err
 	}
+	switch {
+	case p.Check == positive && !(si > 0):
+		return Value{}, fmt.Errorf("%q must be positive", text)
+	case p.Check == nonNegative && !(si >= 0):
+		return Value{}, fmt.Errorf("%q must not be negative", text)
+	case p.Check == angle && !(si > 0 && si <= 180):
+		return Value{}, fmt.Errorf("%q must lie in (0, 180] degrees", text)
+	}
 	return Value{SI: si, Text: strings.TrimSpace(text), Kind: p.Kinds[i]}, nil
 }
 

@@ -170,6 +170,10 @@ func Parse(s string, k Kind) (float64, error) {
 // enthalpy per mole or per volume) and returns the value and its kind's index.
 func ParseAny(s string, kinds ...Kind) (float64, int, error) {
 	var first error
+	if len(kinds) == 1 {
+		v, err := Parse(s, kinds[0])
+		return v, 0, err
+	}
 	for i, k := range kinds {
 		v, err := Parse(s, k)
 		if err == nil {

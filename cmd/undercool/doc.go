@@ -1,0 +1,42 @@
+/*
+Undercool computes how fast a new phase nucleates and grows when a material
+is cooled, held or stored below its equilibrium temperature, from classical
+nucleation theory and an Arrhenius or viscosity mobility law.
+
+Usage:
+
+	undercool COMMAND [flags]
+
+Commands:
+
+	rate       nucleus and steady-state nucleation rate over temperatures
+	ttt        TTT curve for a transformed fraction, with its nose
+	hold       time to a fraction at one temperature (storage, anneal)
+	cool       cooling paths: fraction, critical cooling rate, onset, quench factor
+	fit        fit Arrhenius, interfacial-energy or Avrami models to measurements
+	materials  list the shipped material cards, or show one
+	report     a Markdown memo for a material and a question
+
+Run "undercool COMMAND --help" for the flags of a command, with an example.
+
+A material comes from --material NAME (a shipped card) or --material
+FILE.toml (your own card); any single value can be overridden with a flag
+(--te, --dh, --vm, --gamma, ...). Quantities take units: temperatures K, C
+or F (a bare number is kelvin), energies J/mol, kJ/mol or eV, interfacial
+energies J/m2, mJ/m2 or erg/cm2, molar volumes m3/mol or cm3/mol,
+diffusivities m2/s or cm2/s.
+
+Output is a table by default; --format csv, json or markdown give the
+same result for a spreadsheet, a program or a report. JSON values are SI
+and every key ends in its unit.
+
+Exit status is 0 on success, 1 when a computation fails and 2 for bad
+usage or bad input; errors are one line on standard error.
+
+The results are estimates: rates depend on the cube of the interfacial
+energy inside an exponential, so a 10 % error in it moves a rate by orders
+of magnitude. Heat treatment and quenching (hot metal, quench-oil fires,
+steam) and pharmaceutical or food process decisions must follow local
+codes, validated procedures and licensed practice.
+*/
+package main

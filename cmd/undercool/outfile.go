@@ -1,0 +1,44 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+)
+
+// writeFileAtomic writes a file whole or not at all: the content goes to a
+// temporary file beside the target, which is renamed over it only when
+// every byte has been written and synced.
+func writeFileAtomic(path string, write func(io.Writer) error) error {
+	dir := filepath.Dir(path)
+	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return usagef("cannot write %s: %v", path, unwrapPath(err))
+	}
+	name := tmp.Name()
+	defer os.Remove(name) // no-op after a successful rename
+	if err := write(tmp); err != nil {
+		tmp.Close()
+		return err
+	}
+	if err := tmp.Sync(); err != nil {
+		tmp.Close()
+		return fmt.Errorf("cannot write %s: %v", path, err)
+	}
+	if err := tmp.Close(); err != nil {
+		return fmt.Errorf("cannot write %s: %v", path, err)
+	}
+	if err := os.Rename(name, path); err != nil {
+		return usagef("cannot write %s: %v", path, unwrapPath(err))
+	}
+	return nil
+}
+
+// unwrapPath strips the operation and path from an *os.PathError.
+func unwrapPath(err error) error {
+	if pe, ok := err.(*os.PathError); ok {
+		return pe.Err
+	}
+	return err
+}

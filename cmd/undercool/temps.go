@@ -1,0 +1,130 @@
+package main
+
+import (
+	"math"
+	"strings"
+
+	"github.com/spf13/pflag"
+
+	"undercool/kinetics"
+	"undercool/presets/units"
+)
+
+// maxRows caps a temperature list so a typo in a step cannot exhaust memory.
+const maxRows = 100000
+
+// tempFlags choose the temperatures of a table.
+type tempFlags struct {
+	temps  string
+	span   string
+	fs     *pflag.FlagSet
+	points int // rows of the default range
+}
+
+func addTempFlags(fs *pflag.FlagSet, points int) *tempFlags {
+	tf := &tempFlags{fs: fs, points: points}
+	fs.StringVar(&tf.temps, "temps", "", "comma-separated temperatures, each K, C or F (bare = K), e.g. 1100K,800C")
+	fs.StringVar(&tf.span, "range", "", "temperatures FROM:TO:STEP (or FROM:TO for the default number of rows), e.g. 1000:600:10 or 900C:500C:25C")
+	return tf
+}
+
+// parseTemp reads one temperature and checks it is above absolute zero.
+func parseTemp(flag, s string) (float64, error) {
+	t, err := units.Parse(s, units.Temperature)
+	if err != nil {
+		return 0, usagef("--%s: %v", flag, err)
+	}
+	if !(t > 0) {
+		return 0, usagef("--%s: %q is at or below absolute zero", flag, s)
+	}
+	return t, nil
+}
+
+// list returns the temperatures asked for, or the default range [lo, hi]
+// from hi down to lo when neither flag is given.
+func (tf *tempFlags) list(lo, hi float64) ([]float64, error) {
+	if tf.fs.Changed("temps") && tf.fs.Changed("range") {
+		return nil, usagef("--temps and --range: give one or the other")
+	}
+	if tf.fs.Changed("temps") {
+		var out []float64
+		for _, s := range strings.Split(tf.temps, ",") {
+			t, err := parseTemp("temps", s)
+			if err != nil {
+				return nil, err
+			}
+			out = append(out, t)
+		}
+		return out, nil
+	}
+	if tf.fs.Changed("range") {
+		parts := strings.Split(tf.span, ":")
+		if len(parts) < 2 || len(parts) > 3 {
+			return nil, usagef("--range: %q is not FROM:TO:STEP or FROM:TO", tf.span)
+		}
+		from, err := parseTemp("range", parts[0])
+		if err != nil {
+			return nil, err
+		}
+		to, err := parseTemp("range", parts[1])
+		if err != nil {
+			return nil, err
+		}
+		if from == to {
+			return []float64{from}, nil
+		}
+		if len(parts) == 2 {
+			return spread(from, to, tf.points), nil
+		}
+		step, err := units.Parse(parts[2], units.TemperatureDifference)
+		if err != nil {
+			return nil, usagef("--range: step: %v", err)
+		}
+		step = math.Abs(step)
+		if !(step > 0) {
+			return nil, usagef("--range: the step must not be zero")
+		}
+		n := math.Floor(math.Abs(to-from)/step+1e-9) + 1
+		if n > maxRows {
+			return nil, usagef("--range: %g rows is more than the %d allowed; use a larger step", n, maxRows)
+		}
+		sign := 1.0
+		if to < from {
+			sign = -1
+		}
+		out := make([]float64, int(n))
+		for i := range out {
+			out[i] = from + sign*float64(i)*step
+		}
+		return out, nil
+	}
+	return spread(hi, lo, tf.points), nil
+}
+
+// spread gives n evenly spaced temperatures from a to b inclusive.
+func spread(a, b float64, n int) []float64 {
+	out := make([]float64, n)
+	for i := range out {
+		out[i] = a + (b-a)*float64(i)/float64(n-1)
+	}
+	return out
+}
+
+// defaultSpan is the temperature range a material's tables cover by
+// default: just below T_e down to the glass transition, the VFT T0 or, for
+// a material with neither, half of T_e.
+func defaultSpan(md *kinetics.Model) (lo, hi float64) {
+	m := md.Material()
+	hi = m.Te * 0.99
+	lo = 0.5 * m.Te
+	switch mob := m.Mobility.(type) {
+	case kinetics.VFT:
+		lo = math.Max(lo, mob.T0+0.05*(m.Te-mob.T0))
+	case kinetics.WLF:
+		lo = mob.Tg
+	}
+	if m.Tg > 0 && m.Tg < hi {
+		lo = m.Tg
+	}
+	return lo, hi
+}
