@@ -1,0 +1,157 @@
+package cnt_test
+
+import (
+	"math"
+	"testing"
+
+	"undercool/cnt"
+)
+
+// β* = 24·D·n*^(2/3)/λ² by hand: D = 1e-9 m²/s, n* = 1000, λ = 0.3 nm gives
+// 24·1e-9·100/9e-20 = 2.6667e13 1/s.
+func TestLnAttachmentHand(t *testing.T) {
+	got := cnt.LnAttachment(math.Log(1e-9), 1000, 0.3e-9)
+	if want := math.Log(24e-9 * 100 / 9e-20); !close(got, want, 1e-14) {
+		t.Errorf("ln β* = %.15g, want %.15g", got, want)
+	}
+	if !close(math.Exp(got), 2.6667e13, 1e-4) {
+		t.Errorf("β* = %g, want 2.6667e13", math.Exp(got))
+	}
+	if got := cnt.LnAttachment(math.Inf(-1), 1000, 0.3e-9); !math.IsInf(got, -1) {
+		t.Errorf("ln β*(D = 0) = %g, want -Inf", got)
+	}
+}
+
+// The attachment rate J = N·Z·β*·exp(−ΔG*/k_BT) against the product
+// computed directly where it is representable (Kelton and Greer (2010)
+// eq. 2.30).
+func TestLnRateDirect(t *testing.T) {
+	for _, c := range []struct{ N, Z, beta, barrierKT, T float64 }{
+		{3e28, 0.05, 1e10, 40, 1000},
+		{1e20, 0.01, 1e3, 70, 300},
+		{6e28, 0.2, 5e12, 5, 1500},
+	} {
+		barrier := c.barrierKT * cnt.Boltzmann * c.T
+		want := math.Log(c.N * c.Z * c.beta * math.Exp(-c.barrierKT))
+		got := cnt.LnRate(math.Log(c.N), c.Z, math.Log(c.beta), barrier, c.T)
+		if !close(got, want, 1e-13) {
+			t.Errorf("%+v: ln J = %.15g, want %.15g", c, got, want)
+		}
+	}
+}
+
+// Turnbull D., Fisher J.C., J. Chem. Phys. 17 (1949) 71, eq. 12:
+// J = N·(k_BT/h)·exp(−Q/RT)·exp(−ΔG*/k_BT). By hand at T = 1000 K:
+// k_BT/h = 1.380649e-20/6.62607015e-34 = 2.08366e13 1/s; Q = 100 kJ/mol gives
+// Q/RT = 100000/8314.46 = 12.0272; ΔG* = 40 k_BT; N = 1e28 m⁻³:
+// ln J = 64.4724 + 30.6677 − 12.0272 − 40 = 43.1129.
+func TestLnRateTurnbullFisherHand(t *testing.T) {
+	const T, Q, N = 1000.0, 1e5, 1e28
+	barrier := 40 * cnt.Boltzmann * T
+	got := cnt.LnRateTurnbullFisher(math.Log(N), Q, barrier, T)
+	if !close(got, 43.1129, 1e-5) {
+		t.Errorf("ln J = %.7g, want 43.1129 (hand)", got)
+	}
+	direct := math.Log(N * (cnt.Boltzmann * T / cnt.Planck) * math.Exp(-Q/(cnt.Gas*T)) * math.Exp(-40))
+	if !close(got, direct, 1e-13) {
+		t.Errorf("ln J = %.15g, direct product %.15g", got, direct)
+	}
+	if !close(cnt.Boltzmann*T/cnt.Planck, 2.08366e13, 1e-5) {
+		t.Errorf("kT/h = %g, want 2.08366e13", cnt.Boltzmann*T/cnt.Planck)
+	}
+}
+
+func TestLnRateFixedHand(t *testing.T) {
+	got := cnt.LnRateFixed(math.Log(1e42), 30*cnt.Boltzmann*500, 500)
+	if want := math.Log(1e42) - 30; !close(got, want, 1e-14) {
+		t.Errorf("ln J = %g, want %g", got, want)
+	}
+}
+
+// Rates span hundreds of decades. Each case is built so that the direct
+// product N·Z·β*·exp(−ΔG*/kT) overflows or underflows float64 on the way,
+// while ln J is an ordinary number. The expected ln J is the sum of logs.
+func TestLnRateNoOverflow(t *testing.T) {
+	ln := math.Log
+	const T = 1000.0
+	kT := cnt.Boltzmann * T
+	for _, c := range []struct {
+		name       string
+		lnN, Z     float64
+		lnBeta     float64
+		barrierKT  float64
+		wantLog10J float64
+	}{
+		// N·Z·β* = 1e30·0.05·1e301 overflows; ΔG*/kT = ln(5e29) brings J to 1e300.
+		{"J ~ 1e+300", ln(1e30), 0.05, ln(1e301), ln(5e29), 300},
+		// exp(−800) underflows to 0; a prefactor N·Z·β* of e^800·1e-300 lifts J to 1e-300.
+		{"J ~ 1e-300", ln(1e30), 0.05, ln(1e-300) + 800 - ln(1e30) - ln(0.05), 800, -300},
+		// far beyond float64 either way
+		{"J ~ 1e+1000", ln(1e30), 0.1, 1000*math.Ln10 - ln(1e30) - ln(0.1), 0, 1000},
+		{"J ~ 1e-5000", ln(1e28), 0.01, ln(1e12), 5000*math.Ln10 + ln(1e28) + ln(0.01) + ln(1e12), -5000},
+	} {
+		got := cnt.LnRate(c.lnN, c.Z, c.lnBeta, c.barrierKT*kT, T)
+		if math.IsInf(got, 0) || math.IsNaN(got) {
+			t.Errorf("%s: ln J = %g, want finite", c.name, got)
+			continue
+		}
+		if g := got / math.Ln10; !close(g, c.wantLog10J, 1e-10) {
+			t.Errorf("%s: log10 J = %.12g, want %g", c.name, g, c.wantLog10J)
+		}
+	}
+	// The same for Turnbull–Fisher and fixed prefactors: a barrier of 1e5 kT.
+	if got := cnt.LnRateTurnbullFisher(ln(1e28), 1e5, 1e5*kT, T); !(got < -9e4 && got > -1.1e5) {
+		t.Errorf("Turnbull–Fisher, ΔG* = 1e5 kT: ln J = %g, want about -1e5", got)
+	}
+	if got := cnt.LnRateFixed(ln(1e40), 1e5*kT, T); !close(got, ln(1e40)-1e5, 1e-14) {
+		t.Errorf("fixed, ΔG* = 1e5 kT: ln J = %g", got)
+	}
+}
+
+// No nucleation gives ln J = −Inf, never NaN (doc comments of LnRate,
+// LnRateTurnbullFisher, LnRateFixed).
+func TestLnRateSpecialCases(t *testing.T) {
+	inf := math.Inf(1)
+	for _, c := range []struct {
+		name string
+		got  float64
+	}{
+		{"Z = 0", cnt.LnRate(60, 0, 20, 1e-19, 300)},
+		{"ln β* = -Inf (no mobility)", cnt.LnRate(60, 0.1, -inf, 1e-19, 300)},
+		{"ΔG* = +Inf (no driving force)", cnt.LnRate(60, 0.1, 20, inf, 300)},
+		{"no driving force, no mobility", cnt.LnRate(60, 0, -inf, inf, 300)},
+		{"Turnbull–Fisher, ΔG* = +Inf", cnt.LnRateTurnbullFisher(60, 1e5, inf, 300)},
+		{"fixed, ΔG* = +Inf", cnt.LnRateFixed(60, inf, 300)},
+	} {
+		if !same(c.got, math.Inf(-1)) {
+			t.Errorf("%s: ln J = %g, want -Inf", c.name, c.got)
+		}
+	}
+	// A driving force with no nucleus from Critical goes through as −Inf.
+	n := cnt.Critical(0, 0.1, 3e-29, 1, 300)
+	if got := cnt.LnRate(60, n.Zeldovich, 20, n.Barrier, 300); !math.IsInf(got, -1) {
+		t.Errorf("LnRate of Critical(dmu = 0) = %g, want -Inf", got)
+	}
+}
+
+// τ = 1/(2π·Z²·β*), Kelton and Greer (2010) §3.3. By hand: Z = 0.05,
+// β* = 1e6 1/s gives 1/(2π·0.0025·1e6) = 6.3662e-5 s.
+func TestTimeLag(t *testing.T) {
+	if got := cnt.TimeLag(0.05, math.Log(1e6)); !close(got, 6.3662e-5, 1e-5) {
+		t.Errorf("τ = %g s, want 6.3662e-5 s", got)
+	}
+	if got, want := cnt.TimeLag(0.02, math.Log(3e4)), 1/(2*math.Pi*0.02*0.02*3e4); !close(got, want, 1e-14) {
+		t.Errorf("τ = %g s, want %g s", got, want)
+	}
+	for _, c := range []struct {
+		name   string
+		z, lnB float64
+	}{
+		{"Z = 0", 0, 10},
+		{"β* = 0", 0.05, math.Inf(-1)},
+	} {
+		if got := cnt.TimeLag(c.z, c.lnB); !math.IsInf(got, 1) {
+			t.Errorf("%s: τ = %g, want +Inf", c.name, got)
+		}
+	}
+}
