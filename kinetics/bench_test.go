@@ -1,0 +1,49 @@
+package kinetics_test
+
+import (
+	"testing"
+
+	"undercool/kinetics"
+)
+
+var sinkF float64
+var sinkS kinetics.State
+
+// BenchmarkLnJ is one evaluation of ln J(T) with the attachment prefactor and
+// an Arrhenius mobility (target: ≤ 200 ns). The temperature moves so that
+// nothing is hoisted out of the loop.
+func BenchmarkLnJ(b *testing.B) {
+	md := mustModel(b, goldCallister())
+	T := 1000.0
+	b.ReportAllocs()
+	for b.Loop() {
+		sinkF += md.LnJ(T)
+		T += 1e-6
+	}
+}
+
+// BenchmarkLnJVFT is the same with a VFT (Stokes–Einstein) mobility.
+func BenchmarkLnJVFT(b *testing.B) {
+	m := goldCallister()
+	m.Mobility = kinetics.VFT{A: -4.5, B: 3000, T0: 500, Jump: 3e-10}
+	md := mustModel(b, m)
+	T := 1000.0
+	b.ReportAllocs()
+	for b.Loop() {
+		sinkF += md.LnJ(T)
+		T += 1e-6
+	}
+}
+
+// BenchmarkRateTable1000 is a rate table of 1,000 temperatures from 10 K to
+// Te with Model.At (target: < 1 ms per table).
+func BenchmarkRateTable1000(b *testing.B) {
+	md := mustModel(b, goldCallister())
+	te := md.Material().Te
+	b.ReportAllocs()
+	for b.Loop() {
+		for i := range 1000 {
+			sinkS = md.At(10 + (te-10)*float64(i)/999)
+		}
+	}
+}
