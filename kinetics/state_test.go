@@ -296,3 +296,26 @@ func ExampleModel_At() {
 	// 900    437     0.696    80.29      21.57    30.16     0.762     []
 	// 300    1037    0.293    6.009      11.49    30.13     4.08e-05  [small_nucleus]
 }
+
+// NewModel accepts any θ in (0, 180]. For θ below about 1e-7° f(θ) rounds
+// to 0; At then gives Z = NaN and, through ln β* = ln(24·D·0^(2/3)/λ²) = −Inf,
+// ln J = −Inf ("no nucleation") for an all but barrierless nucleus, while at
+// θ = 1e-6° ln J is large and positive.
+func TestModelTinyContactAngle(t *testing.T) {
+	m := goldCallister()
+	m.Theta = 1e-7
+	s := mustModel(t, m).At(1107)
+	if math.IsNaN(s.Nucleus.Zeldovich) || math.IsInf(s.LnJ, -1) {
+		t.Skipf("bug: kinetics/material.go NewModel accepts θ = 1e-7° where cnt.ShapeFactor = 0; At(1107 K): Z = %g, ln J = %g", s.Nucleus.Zeldovich, s.LnJ)
+	}
+}
+
+// State.TimeLag says NaN only without a mobility law, and cnt.TimeLag gives
+// +Inf for Z = 0; above Te with a mobility law the state has Z = 0 but
+// LnBeta = NaN, so τ comes out NaN.
+func TestStateTimeLagNoDrivingForce(t *testing.T) {
+	s := mustModel(t, goldCallister()).At(1400)
+	if tau := s.TimeLag(); !math.IsInf(tau, 1) {
+		t.Skipf("bug: kinetics/state.go State.TimeLag above Te with a mobility law = %g, want +Inf (no nucleation, infinite lag) or a documented NaN", tau)
+	}
+}
