@@ -94,8 +94,11 @@ func Parse(data []byte, file string) (*Card, error) {
 	}
 	if und := md.Undecoded(); len(und) > 0 {
 		k := und[0]
-		last := k[len(k)-1]
-		return nil, fmt.Errorf("%s:%d: unknown key %q (allowed: %s)", file, lineOf(data, last), k.String(), allowedKeys(k))
+		line := lineOf(data, k[len(k)-1])
+		if line == 0 && len(k) > 2 {
+			line = lineOf(data, k[1]) // a field inside an inline table: the value's line
+		}
+		return nil, fmt.Errorf("%s:%d: unknown key %q (allowed: %s)", file, line, k.String(), allowedKeys(k))
 	}
 	c := &Card{
 		Name: raw.Name, Kind: raw.Kind, Description: raw.Description,
@@ -216,7 +219,7 @@ func allowedKeys(k toml.Key) string {
 func Load(path string) (*Card, error) {
 	data, err := os.ReadFile(path)
 	if err != nil {
-		return nil, fmt.Errorf("cannot read material card: %v", errors.Unwrap(err))
+		return nil, fmt.Errorf("cannot read material card %s: %v", path, errors.Unwrap(err))
 	}
 	c, err := Parse(data, path)
 	if err != nil {
