@@ -1,0 +1,381 @@
+package kinetics
+
+import (
+	"errors"
+	"math"
+	"runtime"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/stat/distuv"
+
+	"undercool/cnt"
+)
+
+// demoMaterial is the invented demo alloy of the shipped demo card
+// (invented for the demo; not a real material).
+func demoMaterial() Material {
+	return Material{
+		Name:     "demo",
+		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
+		Te:       1150,
+		Vm:       9.8e-6,
+		Gamma:    0.118,
+		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
+	}
+}
+
+// log10JAt is the headline result "log10 J at T" for the tests.
+func log10JAt(T float64) Eval {
+	return func(md *Model) ([]float64, error) { return []float64{md.LnJ(T) / math.Ln10}, nil }
+}
+
+func mustSpread(t *testing.T, m Material, key string, form SpreadForm, x float64) Spread {
+	t.Helper()
+	s, err := NewSpread(m, key, form, x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}
+
+// quantileSE is the large-sample standard error of the p-quantile of a
+// standard normal variable estimated from n samples,
+// sqrt(p(1−p)/n)/φ(z_p) (Stuart and Ord, Kendall's Advanced Theory of
+// Statistics, vol. 1, §10.10, from memory for the section).
+func quantileSE(p float64, n int) float64 {
+	z := distuv.UnitNormal.Quantile(p)
+	return math.Sqrt(p*(1-p)/float64(n)) / distuv.UnitNormal.Prob(z)
+}
+
+// TestQuantilesMonotonicNormal: log10 J at a fixed temperature falls
+// monotonically with γ, so its p-quantile is f(γ0 + σ·z_{1−p}) exactly,
+// z the standard normal quantile. The sample quantile must lie within five
+// standard errors (in z) of it.
+func TestQuantilesMonotonicNormal(t *testing.T) {
+	m := demoMaterial()
+	const n, T = 20000, 1000.0
+	s := mustSpread(t, m, "gamma", Relative, 0.02)
+	if s.Dist != Normal || math.Abs(s.SD-0.02*0.118) > 1e-15 {
+		t.Fatalf("spread %+v, want normal with σ = 2.36e-3 J/m2", s)
+	}
+	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(T), Samples: n, Seed: 7}
+	u, err := mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := func(z float64) float64 {
+		md, err := NewModel(m.WithParam("gamma", 0.118+s.SD*z))
+		if err != nil {
+			t.Fatal(err)
+		}
+		return md.LnJ(T) / math.Ln10
+	}
+	b := u.Bands[0]
+	for _, c := range []struct {
+		p, got float64
+	}{{0.05, b.P5}, {0.5, b.P50}, {0.95, b.P95}} {
+		z := distuv.UnitNormal.Quantile(1 - c.p) // decreasing in γ
+		se := quantileSE(c.p, n)
+		hi, lo := f(z-5*se), f(z+5*se)
+		if !(c.got >= lo && c.got <= hi) {
+			t.Errorf("P%g = %.6f, want within [%.6f, %.6f] (exact %.6f)", 100*c.p, c.got, lo, hi, f(z))
+		}
+	}
+	if b.Missing != 0 {
+		t.Errorf("%d samples without an answer", b.Missing)
+	}
+}
+
+// TestQuantilesLogNormal: with the attachment prefactor ln J is linear in
+// ln D0, so log10 J = log10 J0 + σ_ln·z/ln 10 for a log-normal D0 and the
+// quantiles follow exactly from the normal ones.
+func TestQuantilesLogNormal(t *testing.T) {
+	m := demoMaterial()
+	const n, T = 20000, 900.0
+	s := mustSpread(t, m, "d0", Factor, 3)
+	if s.Dist != LogNormal || math.Abs(s.SD-math.Log(3)) > 1e-15 {
+		t.Fatalf("spread %+v, want log-normal with σ_ln = ln 3", s)
+	}
+	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(T), Samples: n, Seed: 11}
+	u, err := mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	f0 := u.Base[0]
+	b := u.Bands[0]
+	for _, c := range []struct {
+		p, got float64
+	}{{0.05, b.P5}, {0.5, b.P50}, {0.95, b.P95}} {
+		z := distuv.UnitNormal.Quantile(c.p)
+		want := f0 + s.SD*z/math.Ln10
+		tol := 5 * quantileSE(c.p, n) * s.SD / math.Ln10
+		if math.Abs(c.got-want) > tol {
+			t.Errorf("P%g = %.6f, want %.6f ± %.2g", 100*c.p, c.got, want, tol)
+		}
+	}
+}
+
+// TestSameSeedAnyCores: the same seed gives the same bits on 1 and 2
+// cores (and on 3 goroutines).
+func TestSameSeedAnyCores(t *testing.T) {
+	m := demoMaterial()
+	spreads := []Spread{
+		mustSpread(t, m, "gamma", Relative, 0.02),
+		mustSpread(t, m, "q", Absolute, 3e3),
+		mustSpread(t, m, "d0", Relative, 0.5),
+	}
+	eval := func(md *Model) ([]float64, error) {
+		return []float64{md.LnJ(1000) / math.Ln10, md.LnJ(800) / math.Ln10}, nil
+	}
+	outs := []Output{{"a", false}, {"b", false}}
+	run := func(procs, workers int) *Uncertainty {
+		old := runtime.GOMAXPROCS(procs)
+		defer runtime.GOMAXPROCS(old)
+		mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: outs, Eval: eval, Samples: 1000, Seed: 42, Workers: workers}
+		u, err := mc.Run()
+		if err != nil {
+			t.Fatal(err)
+		}
+		return u
+	}
+	ref := run(1, 0)
+	for _, c := range []struct{ procs, workers int }{{2, 0}, {2, 3}, {1, 5}} {
+		u := run(c.procs, c.workers)
+		for i := range ref.Values {
+			for k := range ref.Values[i] {
+				if math.Float64bits(ref.Values[i][k]) != math.Float64bits(u.Values[i][k]) {
+					t.Fatalf("GOMAXPROCS %d, %d workers: sample %d output %d differs: %v vs %v", c.procs, c.workers, i, k, u.Values[i][k], ref.Values[i][k])
+				}
+			}
+		}
+		for k := range ref.Bands {
+			if ref.Bands[k] != u.Bands[k] {
+				t.Errorf("bands differ: %+v vs %+v", u.Bands[k], ref.Bands[k])
+			}
+		}
+	}
+	other := MonteCarlo{Base: m, Spreads: spreads, Outputs: outs, Eval: eval, Samples: 1000, Seed: 43}
+	u, _ := other.Run()
+	if u.Values[0][0] == ref.Values[0][0] {
+		t.Error("another seed gives the same first sample")
+	}
+}
+
+// TestZeroSpread: a spread of zero gives the deterministic value, exactly.
+func TestZeroSpread(t *testing.T) {
+	m := demoMaterial()
+	spreads := []Spread{mustSpread(t, m, "gamma", Relative, 0), mustSpread(t, m, "d0", Relative, 0)}
+	mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(950), Samples: 300, Seed: 1}
+	u, err := mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	md, _ := NewModel(m)
+	want := md.LnJ(950) / math.Ln10
+	for i, v := range u.Values {
+		if v[0] != want {
+			t.Fatalf("sample %d = %v, want %v", i, v[0], want)
+		}
+	}
+	if b := u.Bands[0]; b.P5 != want || b.P50 != want || b.P95 != want {
+		t.Errorf("bands %+v, want all %v", b, want)
+	}
+	for _, e := range u.Sensitivity[0] {
+		if e.Minus != 0 || e.Plus != 0 {
+			t.Errorf("effect %+v, want 0", e)
+		}
+	}
+}
+
+// TestSensitivity: the effect of ±1σ of D0 on log10 J is ∓log10(1 + r)
+// exactly (ln J is linear in ln D0), γ's is negative for +1σ, and the
+// table is ranked.
+func TestSensitivity(t *testing.T) {
+	m := demoMaterial()
+	spreads := []Spread{mustSpread(t, m, "d0", Relative, 0.1), mustSpread(t, m, "gamma", Relative, 0.02)}
+	mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(1000), Samples: 64, Seed: 1}
+	u, err := mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	eff := u.Sensitivity[0]
+	if eff[0].Key != "gamma" || eff[1].Key != "d0" {
+		t.Fatalf("ranking %v, want gamma before d0", eff)
+	}
+	if !(eff[0].Plus < 0 && eff[0].Minus > 0) {
+		t.Errorf("gamma effect %+v: +1σ must lower the rate", eff[0])
+	}
+	want := math.Log10(1.1)
+	if math.Abs(eff[1].Plus-want) > 1e-9 || math.Abs(eff[1].Minus+want) > 1e-9 {
+		t.Errorf("d0 effect %+v, want ±%.9f", eff[1], want)
+	}
+	// A time-like output in decades: the JMAK-like t ∝ J^(-1/4) changes by
+	// −1/4 of log10 J's change.
+	mc.Outputs = []Output{{"time_s", true}}
+	mc.Eval = func(md *Model) ([]float64, error) { return []float64{math.Exp(-md.LnJ(1000) / 4)}, nil }
+	u, err = mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := u.Sensitivity[0][1]; math.Abs(got.Plus+want/4) > 1e-9 {
+		t.Errorf("time effect of d0 %+v, want %.9f decades", got, -want/4)
+	}
+}
+
+// TestNeverAndMissing: +Inf ("never") takes part in the quantiles, NaN
+// (no answer) is counted and left out.
+func TestNeverAndMissing(t *testing.T) {
+	m := demoMaterial()
+	s := mustSpread(t, m, "gamma", Relative, 0.05)
+	eval := func(md *Model) ([]float64, error) {
+		g := md.Material().Gamma
+		switch {
+		case g > 0.118*1.05:
+			return []float64{math.Inf(1)}, nil
+		case g < 0.118*0.95:
+			return []float64{math.NaN()}, nil
+		}
+		return []float64{g}, nil
+	}
+	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"x", false}}, Eval: eval, Samples: 4000, Seed: 3}
+	u, err := mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := u.Bands[0]
+	if !math.IsInf(b.P95, 1) {
+		t.Errorf("P95 = %v, want +Inf (about 16 %% of samples never)", b.P95)
+	}
+	if b.Missing < 400 || b.Missing > 900 {
+		t.Errorf("missing %d of 4000, want about 16 %%", b.Missing)
+	}
+}
+
+// TestTruncation: draws outside a parameter's range are drawn again and
+// counted; a spread that keeps leaving it is an error.
+func TestTruncation(t *testing.T) {
+	m := demoMaterial()
+	m.Theta = 150
+	m.Sites = 1e20
+	s := mustSpread(t, m, "theta", Absolute, 20)
+	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(1000), Samples: 2000, Seed: 5}
+	u, err := mc.Run()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// P(θ > 180) = P(z > 1.5) ≈ 6.7 %.
+	if r := u.Spreads[0].Redrawn; r < 80 || r > 200 {
+		t.Errorf("redrawn %d of 2000, want about 134", r)
+	}
+	for i, v := range u.Values {
+		if math.IsNaN(v[0]) {
+			t.Fatalf("sample %d has no answer", i)
+		}
+	}
+	mc.Spreads = []Spread{{Key: "theta", SD: 1e6}}
+	if _, err := mc.Run(); err == nil || !strings.Contains(err.Error(), "theta: the spread is too wide") {
+		t.Errorf("error %v, want theta: the spread is too wide", err)
+	}
+}
+
+func TestSpreadErrors(t *testing.T) {
+	m := demoMaterial()
+	vft := m
+	vft.Mobility = VFT{A: -4, B: 3000, T0: 500, Jump: m.JumpDistance()}
+	cases := []struct {
+		m    Material
+		key  string
+		form SpreadForm
+		x    float64
+		want string
+	}{
+		{m, "colour", Relative, 0.1, `unknown parameter "colour" (known: te, dh,`},
+		{vft, "d0", Relative, 0.1, "d0: the material has no such value (mobility vft, not arrhenius)"},
+		{m, "j0", Relative, 0.1, "j0: the material has no such value"},
+		{m, "dcp", Relative, 0.1, "dcp: the material has no such value"},
+		{m, "gamma", Relative, -0.1, "gamma: the standard deviation must be finite and not negative"},
+		{m, "gamma", Absolute, math.NaN(), "gamma: the standard deviation must be finite"},
+		{m, "gamma", Absolute, math.Inf(1), "gamma: the standard deviation must be finite"},
+		{m, "gamma", Factor, 2, "gamma: a factor spread (xF) is only for the log-normal parameters"},
+		{m, "d0", Factor, 0.5, "d0: a factor spread must be at least 1"},
+	}
+	for _, c := range cases {
+		_, err := NewSpread(c.m, c.key, c.form, c.x)
+		if err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("NewSpread(%s, %v): error %v, want %q", c.key, c.x, err, c.want)
+		}
+	}
+	mc := MonteCarlo{Base: vft, Spreads: []Spread{{Key: "q", SD: 1}}, Outputs: []Output{{"x", false}}, Eval: log10JAt(900), Samples: 10}
+	if _, err := mc.Run(); err == nil || !strings.HasPrefix(err.Error(), "q: the material has no such value") {
+		t.Errorf("Run with q on vft: %v", err)
+	}
+}
+
+// TestEvalError: the error of the lowest failing sample is returned,
+// whatever the number of goroutines.
+func TestEvalError(t *testing.T) {
+	m := demoMaterial()
+	s := mustSpread(t, m, "gamma", Relative, 0.02)
+	bad := errors.New("no nose")
+	eval := func(md *Model) ([]float64, error) {
+		if md.Material().Gamma > 0.118*1.04 {
+			return nil, bad
+		}
+		return []float64{1}, nil
+	}
+	var msgs []string
+	for _, w := range []int{1, 2, 4} {
+		mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"x", false}}, Eval: eval, Samples: 5000, Seed: 9, Workers: w}
+		_, err := mc.Run()
+		if !errors.Is(err, bad) {
+			t.Fatalf("error %v, want %v", err, bad)
+		}
+		msgs = append(msgs, err.Error())
+	}
+	if msgs[0] != msgs[1] || msgs[1] != msgs[2] {
+		t.Errorf("errors differ with the number of workers: %q", msgs)
+	}
+}
+
+func TestWithParam(t *testing.T) {
+	m := demoMaterial()
+	for _, key := range []string{"te", "dh", "vm", "gamma", "theta", "sites", "jump", "d0", "q"} {
+		x0, err := m.Param(key)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got, err := m.WithParam(key, 1.01*x0).Param(key)
+		if err != nil || math.Abs(got-1.01*x0) > 1e-12*math.Abs(x0) {
+			t.Errorf("%s: set %v, got %v (%v)", key, 1.01*x0, got, err)
+		}
+	}
+	if te := m.WithParam("te", 1200).Te; te != 1200 {
+		t.Errorf("te on the material %v, want 1200", te)
+	}
+	// A viscosity law's jump distance follows vm when it was the material's own.
+	v := m
+	v.Mobility = VFT{A: -4, B: 3000, T0: 500, Jump: m.JumpDistance()}
+	w := v.WithParam("vm", 8*v.Vm)
+	if got, want := w.Mobility.(VFT).Jump, 2*m.JumpDistance(); math.Abs(got-want) > 1e-12*want {
+		t.Errorf("vft jump %v after vm ×8, want %v", got, want)
+	}
+	cp := m
+	cp.Driving = cnt.ConstantCp{Te: 1150, DH: 14.2e3, DCp: 5}
+	if d := cp.WithParam("dcp", 7).Driving.(cnt.ConstantCp); d.DCp != 7 || d.Te != 1150 {
+		t.Errorf("dcp: %+v", d)
+	}
+}
+
+// BenchmarkMonteCarloLog10J: 10,000 samples of log10 J at one temperature
+// with three spreads, on all cores.
+func BenchmarkMonteCarloLog10J(b *testing.B) {
+	m := demoMaterial()
+	spreads := []Spread{{Key: "gamma", SD: 0.002}, {Key: "q", SD: 3e3}, {Key: "d0", Dist: LogNormal, SD: 0.4}}
+	mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(1000), Samples: 10000, Seed: 1}
+	for b.Loop() {
+		if _, err := mc.Run(); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
