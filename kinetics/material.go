@@ -18,9 +18,12 @@ const (
 	PrefactorTurnbullFisher
 	// PrefactorFixed is J = J0·exp(−ΔG*/k_BT).
 	PrefactorFixed
+	// PrefactorDiffusion is J = N·Z·β*·exp(−ΔG*/k_BT) with β* = 4π·r*·D·c,
+	// attachment by volume diffusion of solute at number concentration c (solutions).
+	PrefactorDiffusion
 )
 
-var prefactorNames = [...]string{"attachment", "turnbull-fisher", "fixed"}
+var prefactorNames = [...]string{"attachment", "turnbull-fisher", "fixed", "diffusion"}
 
 func (p Prefactor) String() string { return prefactorNames[p] }
 
@@ -53,6 +56,7 @@ type Material struct {
 	Mobility  Mobility  // nil: no mobility law (nucleus only, or fixed prefactor)
 	Jump      float64   // jump distance λ, m (0: v^(1/3))
 	Tg        float64   // glass transition, K (0: none), for ranges and flags
+	Conc      float64   // solute molecules per m³ in solution, for PrefactorDiffusion
 }
 
 // MolecularVolume is v = V_m/N_A, m³.
@@ -141,6 +145,10 @@ func NewModel(m Material) (*Model, error) {
 			return nil, errors.New("the fixed prefactor needs j0 (m^-3 s^-1)")
 		}
 		md.lnJ0 = math.Log(m.J0)
+	case PrefactorDiffusion:
+		if err := checkDiffusion(m); err != nil {
+			return nil, err
+		}
 	case PrefactorTurnbullFisher:
 		a, ok := m.Mobility.(Arrhenius)
 		if !ok {

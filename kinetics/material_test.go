@@ -160,7 +160,7 @@ func TestNewModelTurnbullFisherNeedsArrhenius(t *testing.T) {
 }
 
 func TestPrefactorNames(t *testing.T) {
-	want := []string{"attachment", "turnbull-fisher", "fixed"}
+	want := []string{"attachment", "turnbull-fisher", "fixed", "diffusion"}
 	if got := kinetics.PrefactorNames(); strings.Join(got, ",") != strings.Join(want, ",") {
 		t.Errorf("PrefactorNames() = %v, want %v", got, want)
 	}

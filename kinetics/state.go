@@ -129,6 +129,9 @@ func (md *Model) At(T float64) State {
 		s.Growth = GrowthRate(s.LnD, md.jump, s.Dmu/kT)
 		if s.Dmu > 0 {
 			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
+			if md.m.Prefactor == PrefactorDiffusion {
+				s.LnBeta = cnt.LnAttachmentDiffusion(s.LnD, s.Nucleus.Radius, md.m.Conc)
+			}
 		}
 	}
 	s.LnJ = md.lnRate(s, T)
