@@ -27,15 +27,17 @@ type Value struct {
 
 // Card is a material card: the model choices and the sourced values.
 type Card struct {
-	Name        string
-	Kind        string
-	Description string
-	Driving     string // one of DrivingChoices
-	DrivingFile string // CSV of Δg(T) for driving "table", relative to the card
-	Mobility    string // one of MobilityChoices
-	Prefactor   string // one of PrefactorChoices
-	Values      map[string]Value
-	File        string // where it came from: a path, or "preset NAME"
+	Name           string
+	Kind           string
+	Description    string
+	Driving        string // one of DrivingChoices
+	DrivingFile    string // CSV of Δg(T) for driving "table", relative to the card
+	SolubilityFile string // CSV of the solubility c_sat(T) for driving "solution", relative to the card
+	Mobility       string // one of MobilityChoices
+	Prefactor      string // one of PrefactorChoices
+	Values         map[string]Value
+	Spreads        map[string]SpreadSpec // [spread]: standard deviations of values, by key
+	File           string                // where it came from: a path, or "preset NAME"
 }
 
 type rawValue struct {
@@ -44,14 +46,16 @@ type rawValue struct {
 }
 
 type rawCard struct {
-	Name         string              `toml:"name"`
-	Kind         string              `toml:"kind"`
-	Description  string              `toml:"description"`
-	Driving      string              `toml:"driving"`
-	DrivingTable string              `toml:"driving_table"`
-	Mobility     string              `toml:"mobility"`
-	Prefactor    string              `toml:"prefactor"`
-	Values       map[string]rawValue `toml:"values"`
+	Name            string              `toml:"name"`
+	Kind            string              `toml:"kind"`
+	Description     string              `toml:"description"`
+	Driving         string              `toml:"driving"`
+	DrivingTable    string              `toml:"driving_table"`
+	SolubilityTable string              `toml:"solubility_table"`
+	Mobility        string              `toml:"mobility"`
+	Prefactor       string              `toml:"prefactor"`
+	Values          map[string]rawValue `toml:"values"`
+	Spread          map[string]rawValue `toml:"spread"`
 }
 
 // lineOf finds the line on which a key is defined (as "key =" or as a
@@ -103,7 +107,8 @@ func Parse(data []byte, file string) (*Card, error) {
 	c := &Card{
 		Name: raw.Name, Kind: raw.Kind, Description: raw.Description,
 		Driving: raw.Driving, DrivingFile: raw.DrivingTable, Mobility: raw.Mobility, Prefactor: raw.Prefactor,
-		Values: map[string]Value{}, File: file,
+		SolubilityFile: raw.SolubilityTable,
+		Values:         map[string]Value{}, File: file,
 	}
 	topChecks := []struct {
 		key, val string
@@ -154,6 +159,9 @@ func Parse(data []byte, file string) (*Card, error) {
 		}
 		v.Source, v.Line = rv.Source, line
 		c.Values[key] = v
+	}
+	if c.Spreads, err = parseSpreads(data, file, raw.Spread); err != nil {
+		return nil, err
 	}
 	return c, nil
 }
@@ -206,13 +214,19 @@ func paramKeys() []string {
 }
 
 func allowedKeys(k toml.Key) string {
+	if len(k) > 1 && k[0] == "spread" {
+		if len(k) > 2 {
+			return "value, source"
+		}
+		return strings.Join(SpreadKeys(), ", ")
+	}
 	if len(k) > 1 && k[0] == "values" {
 		if len(k) > 2 {
 			return "value, source"
 		}
 		return strings.Join(paramKeys(), ", ")
 	}
-	return "name, kind, description, driving, driving_table, mobility, prefactor, [values]"
+	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, [values], [spread]"
 }
 
 // Load reads a card from a file.
@@ -227,6 +241,9 @@ func Load(path string) (*Card, error) {
 	}
 	if c.DrivingFile != "" && !filepath.IsAbs(c.DrivingFile) {
 		c.DrivingFile = filepath.Join(filepath.Dir(path), c.DrivingFile)
+	}
+	if c.SolubilityFile != "" && !filepath.IsAbs(c.SolubilityFile) {
+		c.SolubilityFile = filepath.Join(filepath.Dir(path), c.SolubilityFile)
 	}
 	return c, nil
 }
