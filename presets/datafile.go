@@ -60,7 +60,7 @@ func headerUnit(s string) string {
 func matchHeader(h string, cols []Column) (int, string, bool) {
 	h = strings.ToLower(strings.TrimSpace(h))
 	for i, c := range cols {
-		if h == c.Quantity && c.Kind.Bare {
+		if h == c.Quantity { // bare name: fine for a plain number, else "needs a unit"
 			return i, "", true
 		}
 		if rest, ok := strings.CutPrefix(h, c.Quantity+"_"); ok {
@@ -99,13 +99,16 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 		if err == io.EOF {
 			break
 		}
-		line, _ := cr.FieldPos(0)
 		if err != nil {
 			var pe *csv.ParseError
 			if errors.As(err, &pe) {
 				return nil, fmt.Errorf("%s:%d: not valid CSV: %v", file, pe.Line, pe.Err)
 			}
 			return nil, fmt.Errorf("%s: %v", file, err)
+		}
+		line, _ := cr.FieldPos(0)
+		if blankOrComment(rec) {
+			continue
 		}
 		if index == nil {
 			index = make([]int, len(rec))
@@ -157,6 +160,20 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 		return nil, fmt.Errorf("%s: no data rows after the header", file)
 	}
 	return d, nil
+}
+
+// blankOrComment reports a record of only spaces, or one whose first field
+// starts with '#' after spaces (the CSV reader skips only unindented comments).
+func blankOrComment(rec []string) bool {
+	if strings.HasPrefix(strings.TrimSpace(rec[0]), "#") {
+		return true
+	}
+	for _, f := range rec {
+		if strings.TrimSpace(f) != "" {
+			return false
+		}
+	}
+	return true
 }
 
 func seenQuantity(h map[string]string, q string) bool { _, ok := h[q]; return ok }
