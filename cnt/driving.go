@@ -93,20 +93,23 @@ func NewTable(T, g []float64, label string) (*Table, error) {
 	if len(T) < 2 {
 		return nil, fmt.Errorf("a driving-force table needs at least 2 rows, got %d", len(T))
 	}
+	for i := range T {
+		if !(T[i] > 0) || math.IsInf(T[i], 0) || math.IsNaN(g[i]) || math.IsInf(g[i], 0) {
+			return nil, fmt.Errorf("row %d: temperature must be positive and finite and Δg finite", i+1)
+		}
+		if i == 0 {
+			continue
+		}
+		if d := T[i] - T[i-1]; d == 0 || (d > 0) != (T[1] > T[0]) {
+			return nil, fmt.Errorf("temperatures must be strictly monotonic (row %d)", i+1)
+		}
+	}
 	ts := append([]float64(nil), T...)
 	gs := append([]float64(nil), g...)
 	if ts[0] > ts[len(ts)-1] {
 		for i, j := 0, len(ts)-1; i < j; i, j = i+1, j-1 {
 			ts[i], ts[j] = ts[j], ts[i]
 			gs[i], gs[j] = gs[j], gs[i]
-		}
-	}
-	for i := range ts {
-		if !(ts[i] > 0) || math.IsInf(ts[i], 0) || math.IsNaN(gs[i]) || math.IsInf(gs[i], 0) {
-			return nil, fmt.Errorf("row %d: temperature must be positive and finite and Δg finite", i+1)
-		}
-		if i > 0 && !(ts[i] > ts[i-1]) {
-			return nil, fmt.Errorf("temperatures must be strictly monotonic (row %d)", i+1)
 		}
 	}
 	return &Table{T: ts, G: gs, Label: label}, nil

@@ -14,8 +14,10 @@ func ShapeFactor(thetaDeg float64) float64 {
 	if !(thetaDeg >= 0 && thetaDeg <= 180) {
 		return math.NaN()
 	}
-	c := math.Cos(thetaDeg * math.Pi / 180)
-	return (2 + c) * (1 - c) * (1 - c) / 4
+	// (1 − cos θ)² = 4·sin⁴(θ/2): the half-angle form keeps full precision
+	// at small angles, where 1 − cos θ cancels.
+	s := math.Sin(thetaDeg * math.Pi / 360)
+	return (2 + math.Cos(thetaDeg*math.Pi/180)) * s * s * s * s
 }
 
 // Nucleus is the critical embryo at one temperature.
@@ -42,6 +44,9 @@ type Nucleus struct {
 func Critical(dmu, gamma, v, f, T float64) Nucleus {
 	if !(dmu > 0) {
 		return Nucleus{Radius: math.Inf(1), Size: math.Inf(1), Barrier: math.Inf(1)}
+	}
+	if f == 0 {
+		return Nucleus{Radius: 2 * gamma * v / dmu, Zeldovich: math.Inf(1)}
 	}
 	g3v2 := gamma * gamma * gamma * v * v
 	barrier := f * 16 * math.Pi * g3v2 / (3 * dmu * dmu)

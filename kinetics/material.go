@@ -156,6 +156,7 @@ func NewModel(m Material) (*Model, error) {
 		}
 		md.q = a.Q
 	}
+	var err error
 	switch mob := m.Mobility.(type) {
 	case Arrhenius:
 		if err := positive("d0", mob.D0); err != nil {
@@ -165,9 +166,13 @@ func NewModel(m Material) (*Model, error) {
 			return nil, errors.New("q must be finite")
 		}
 	case VFT:
-		if !(mob.T0 >= 0) || math.IsNaN(mob.A) || math.IsNaN(mob.B) || !(mob.B > 0) {
-			return nil, errors.New("vft needs finite vft-a, positive vft-b and vft-t0 >= 0")
+		if !(mob.T0 >= 0) || math.IsInf(mob.T0, 1) || math.IsNaN(mob.A) || math.IsInf(mob.A, 0) || !(mob.B > 0) || math.IsInf(mob.B, 1) {
+			return nil, errors.New("vft needs finite vft-a, positive finite vft-b and finite vft-t0 >= 0")
 		}
+		if mob.Jump, err = jumpOf(mob.Jump, md.jump); err != nil {
+			return nil, err
+		}
+		md.m.Mobility = mob
 	case WLF:
 		if err := positive("tg", mob.Tg); err != nil {
 			return nil, err
@@ -181,8 +186,21 @@ func NewModel(m Material) (*Model, error) {
 		if err := positive("wlf-c1", mob.C1); err != nil {
 			return nil, err
 		}
+		if mob.Jump, err = jumpOf(mob.Jump, md.jump); err != nil {
+			return nil, err
+		}
+		md.m.Mobility = mob
 	}
 	return md, nil
+}
+
+// jumpOf is the Stokes–Einstein diameter of a viscosity law: its own, or
+// the material's jump distance when the law has none.
+func jumpOf(own, material float64) (float64, error) {
+	if own == 0 {
+		return material, nil
+	}
+	return own, positive("jump", own)
 }
 
 // Material returns a copy of the material the model was built from, with

@@ -77,7 +77,7 @@ type State struct {
 	Nucleus      cnt.Nucleus // critical nucleus (+Inf sizes when none)
 	LnD          float64     // ln D, D in m²/s (NaN: no mobility law)
 	LnBeta       float64     // ln β*, 1/s (NaN: not defined)
-	LnJ          float64     // ln J, J in m⁻³·s⁻¹ (−Inf: no nucleation; NaN: no rate model)
+	LnJ          float64     // ln J, J in m⁻³·s⁻¹ (−Inf: no nucleation; NaN: no rate model, or outside a tabulated driving force)
 	Growth       float64     // u, m/s (NaN: no mobility law)
 	Flags        Flag
 }
@@ -88,10 +88,15 @@ func (s State) DrivingVolume(vm float64) float64 { return s.DrivingMole / vm }
 // Log10J is log10 of the rate.
 func (s State) Log10J() float64 { return s.LnJ / math.Ln10 }
 
-// TimeLag is the transient time τ = 1/(2π·Z²·β*), s; NaN without a mobility law.
+// TimeLag is the transient time τ = 1/(2π·Z²·β*), s: NaN without a
+// mobility law or outside a tabulated driving force, +Inf where there is no
+// driving force (nothing nucleates).
 func (s State) TimeLag() float64 {
-	if math.IsNaN(s.LnBeta) {
+	if math.IsNaN(s.Growth) {
 		return math.NaN()
+	}
+	if !(s.Dmu > 0) {
+		return math.Inf(1)
 	}
 	return cnt.TimeLag(s.Nucleus.Zeldovich, s.LnBeta)
 }
