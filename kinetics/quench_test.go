@@ -1,0 +1,158 @@
+package kinetics
+
+import (
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+
+	"undercool/cnt"
+)
+
+// esTest are C-curve constants of our own, of the size published for
+// aluminium alloys (k1 = ln 0.995 as in Evancho and Staley 1974), used only
+// to check the arithmetic. They describe no real alloy.
+var esTest = EvanchoStaley{K1: math.Log(0.995), K2: 1e-10, K3: 4000, K4: 760, K5: 130000}
+
+// TestEvanchoStaleyFormula checks C(T) against the formula written out by
+// hand at 600 K.
+func TestEvanchoStaleyFormula(t *testing.T) {
+	const T = 600.0
+	R := cnt.Gas
+	want := -esTest.K1 * esTest.K2 * math.Exp(esTest.K3*esTest.K4*esTest.K4/(R*T*(esTest.K4-T)*(esTest.K4-T))) * math.Exp(esTest.K5/(R*T))
+	if got := esTest.Time(T); !scalar.EqualWithinRel(got, want, 1e-12) {
+		t.Errorf("C(600 K) = %g s, want %g s", got, want)
+	}
+	for _, T := range []float64{760, 800, 0, -5, math.NaN()} {
+		if got := esTest.LnInvTime(T); !math.IsInf(got, -1) {
+			t.Errorf("ln(1/C(%g K)) = %g, want -Inf (at or above the solvus, or no temperature)", T, got)
+		}
+	}
+}
+
+func TestEvanchoStaleyCheck(t *testing.T) {
+	if err := esTest.Check(); err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		name string
+		c    EvanchoStaley
+	}{
+		{"k1", EvanchoStaley{K1: 0.1, K2: 1, K3: 1, K4: 700, K5: 1}},
+		{"k2", EvanchoStaley{K1: -0.005, K2: 0, K3: 1, K4: 700, K5: 1}},
+		{"k3", EvanchoStaley{K1: -0.005, K2: 1, K3: math.NaN(), K4: 700, K5: 1}},
+		{"k4", EvanchoStaley{K1: -0.005, K2: 1, K3: 1, K4: -700, K5: 1}},
+		{"k5", EvanchoStaley{K1: -0.005, K2: 1, K3: 1, K4: 700, K5: math.Inf(1)}},
+	} {
+		err := tc.c.Check()
+		if err == nil || err.Error()[:2] != tc.name {
+			t.Errorf("%s bad: err = %v, want it to name %s", tc.name, err, tc.name)
+		}
+	}
+}
+
+// TestQuenchIsothermal: a hold at one temperature for t seconds has Q = t/C(T)
+// exactly, all of it in one band, and reaches Q = 1 at t = C(T).
+func TestQuenchIsothermal(t *testing.T) {
+	const T = 620.0
+	C := esTest.Time(T)
+	p, err := NewPath([]float64{0, C, 3 * C}, []float64{T, T, T})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Quench(p, esTest, 25)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !scalar.EqualWithinRel(r.Q, 3, 1e-12) {
+		t.Errorf("Q = %.15g, want 3", r.Q)
+	}
+	if !r.Reached || !scalar.EqualWithinRel(r.TimeReached, C, 1e-12) {
+		t.Errorf("Q = 1 at %g s, want %g s", r.TimeReached, C)
+	}
+	if len(r.Bands) != 1 || r.Bands[0].Lo != 600 || r.Bands[0].Share != 1 {
+		t.Errorf("bands = %+v, want one band 600–625 K with all of Q", r.Bands)
+	}
+	if got, want := r.Retained(esTest.K1), math.Pow(0.995, 3); !scalar.EqualWithinRel(got, want, 1e-12) {
+		t.Errorf("retained fraction %g, want 0.995³ = %g", got, want)
+	}
+}
+
+// TestQuenchBands: the shares of a linear quench add up to 1, each band
+// holds the integral over its own range, and the band through the nose of
+// the C-curve holds the most.
+func TestQuenchBands(t *testing.T) {
+	p := LinearPath(750, 300, 20, 4500) // 0.1 K steps, uneven band edges
+	r, err := Quench(p, esTest, 50)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var sum, sumQ float64
+	best := 0
+	for i, b := range r.Bands {
+		sum += b.Share
+		sumQ += b.Q
+		if b.Q > r.Bands[best].Q {
+			best = i
+		}
+		if i > 0 && !(b.Hi <= r.Bands[i-1].Lo) {
+			t.Errorf("bands out of order: %+v after %+v", b, r.Bands[i-1])
+		}
+	}
+	if !scalar.EqualWithinRel(sum, 1, 1e-12) || !scalar.EqualWithinRel(sumQ, r.Q, 1e-12) {
+		t.Errorf("shares add up to %g, band Q to %g of %g", sum, sumQ, r.Q)
+	}
+	// one band by direct integration: ∫_{550}^{600} dT/(q·C(T)) on a fine grid
+	var want float64
+	const q, n = 20.0, 20000
+	for k := 0; k < n; k++ {
+		T := 550 + 50*(float64(k)+0.5)/n
+		want += 50.0 / n / q / esTest.Time(T)
+	}
+	for _, b := range r.Bands {
+		if b.Lo == 550 && !scalar.EqualWithinRel(b.Q, want, 1e-4) {
+			t.Errorf("band 550–600 K: Q = %g, direct %g", b.Q, want)
+		}
+	}
+	// the nose of this C-curve lies where d ln(1/C)/dT = 0
+	nose := r.Bands[best]
+	if !(esTest.Time(nose.Lo) < esTest.Time(nose.Hi+100)) {
+		t.Errorf("largest share in %g–%g K, not near the nose", nose.Lo, nose.Hi)
+	}
+}
+
+func TestQuenchBadBand(t *testing.T) {
+	p := LinearPath(750, 300, 20, 10)
+	for _, w := range []float64{0, -1, math.NaN(), math.Inf(1)} {
+		if _, err := Quench(p, esTest, w); err == nil {
+			t.Errorf("band width %g: no error", w)
+		}
+	}
+}
+
+// TestAdditivityIsothermal: with the material's own TTT curve as C-curve,
+// an isothermal hold reaches the additivity sum 1 at the JMAK time t_X.
+func TestAdditivityIsothermal(t *testing.T) {
+	md := testModel(t)
+	const T, X = 900.0, 0.01
+	_, a := md.Isothermal(T, JMAK{})
+	tx := a.Time(X)
+	n := 4000
+	times, temps := make([]float64, n+1), make([]float64, n+1)
+	for i := range times {
+		times[i], temps[i] = 2*tx*float64(i)/float64(n), T
+	}
+	p, _ := NewPath(times, temps)
+	r, err := md.Additivity(p, X, 10)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !r.Reached || !scalar.EqualWithinRel(r.TimeReached, tx, 1e-9) || !scalar.EqualWithinRel(r.Q, 2, 1e-9) {
+		t.Errorf("sum %g, reached 1 at %g s; want 2 and t_X = %g s", r.Q, r.TimeReached, tx)
+	}
+	// and the exact path integral agrees: X(t_X) = X for an isothermal hold
+	pr, _, _ := md.AlongPath(p, X)
+	if !pr.Reached || !scalar.EqualWithinRel(pr.TimeReached, tx, 1e-3) {
+		t.Errorf("path integral reaches %g at %g s, JMAK t_X = %g s", X, pr.TimeReached, tx)
+	}
+}
