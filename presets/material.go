@@ -44,12 +44,20 @@ func (c *Card) Material() (*kinetics.Model, error) {
 		v, err = c.need(key, why)
 		return v
 	}
-	m.Vm = get("vm", "molar volume")
+	if vm, ok := c.massVolume(); ok && !c.Has("vm") {
+		m.Vm = vm
+	} else {
+		m.Vm = get("vm", "molar volume (or molar_mass and density)")
+	}
 	m.Gamma = get("gamma", "interfacial energy")
 	if err != nil {
 		return nil, err
 	}
-	if c.Driving == "table" {
+	if c.Driving == "solution" {
+		if err := c.solution(&m); err != nil {
+			return nil, err
+		}
+	} else if c.Driving == "table" {
 		d, err := ReadDataFile(c.DrivingFile, nil, DrivingColumns)
 		if err != nil {
 			return nil, err
@@ -95,6 +103,10 @@ func (c *Card) Material() (*kinetics.Model, error) {
 		m.Mobility = kinetics.Arrhenius{D0: get("d0", "Arrhenius pre-exponential"), Q: get("q", "Arrhenius activation energy")}
 	case "vft":
 		m.Mobility = kinetics.VFT{A: get("vft_a", "VFT A"), B: get("vft_b", "VFT B"), T0: get("vft_t0", "VFT T0"), Jump: jump}
+	case "stokes-einstein":
+		m.Mobility = kinetics.SolventViscosity{Eta: get("solvent_viscosity", "solvent viscosity, for Stokes-Einstein"), Jump: jump}
+	case "diffusivity":
+		m.Mobility = kinetics.SoluteDiffusivity{D: get("solute_diffusivity", "diffusivity of the solute")}
 	case "wlf":
 		m.Mobility = kinetics.WLF{Tg: get("tg", "glass transition, for WLF"), C1: c.orDefault("wlf_c1", kinetics.WLFC1),
 			C2: c.orDefault("wlf_c2", kinetics.WLFC2), EtaG: c.orDefault("eta_g", kinetics.EtaAtTg), Jump: jump}
@@ -104,6 +116,11 @@ func (c *Card) Material() (*kinetics.Model, error) {
 	}
 	if c.Prefactor != "" {
 		m.Prefactor, _ = kinetics.ParsePrefactor(c.Prefactor)
+	}
+	if m.Prefactor == kinetics.PrefactorDiffusion {
+		if m.Conc, err = c.numberConc(); err != nil {
+			return nil, err
+		}
 	}
 	md, err := kinetics.NewModel(m)
 	if err != nil {

@@ -42,7 +42,22 @@ var Params = []Param{
 	{"wlf_c2", []units.Kind{units.TemperatureDifference}, "WLF constant C2 (default 51.6 K)", positive},
 	{"eta_g", []units.Kind{units.Viscosity}, "viscosity at Tg for WLF (default 1e12 Pa s)", positive},
 	{"jump", []units.Kind{units.Length}, "jump distance λ (default v^(1/3))", positive},
+	// Crystallization from solution (driving solution).
+	{"supersaturation", []units.Kind{units.Dimensionless}, "fixed supersaturation ratio S = c/c_sat, > 0 (S <= 1: no driving force)", positive},
+	{"sat_temp", []units.Kind{units.Temperature}, "saturation temperature of the solution, where S = 1", positive},
+	{"dh_sol", []units.Kind{units.MolarEnergy}, "enthalpy of dissolution, positive, for the ideal (van 't Hoff) solubility law", positive},
+	{"conc", SolutionConcKinds, "solute concentration, in the units of the solubility table (mol/l, g/l, g/kg or a mole fraction)", positive},
+	{"molar_mass", []units.Kind{units.MolarMass}, "molar mass of the solute, for vm = molar_mass/density", positive},
+	{"density", []units.Kind{units.Density}, "density of the crystal, for vm = molar_mass/density", positive},
+	{"solvent_viscosity", []units.Kind{units.Viscosity}, "solvent viscosity, for the Stokes-Einstein diffusivity of the solute (mobility stokes-einstein)", positive},
+	{"solute_diffusivity", []units.Kind{units.Diffusivity}, "diffusivity of the solute in the solvent (mobility diffusivity)", positive},
+	{"number_conc", []units.Kind{units.NumberDensity}, "solute molecules per volume, for prefactor diffusion (default from conc)", positive},
+	{"growth_rate", []units.Kind{units.Velocity}, "measured crystal growth rate in the solution, for the polynuclear induction time", positive},
 }
+
+// SolutionConcKinds are the families a concentration or a solubility may be
+// given in; a concentration and its solubility table must share one.
+var SolutionConcKinds = []units.Kind{units.AmountConcentration, units.MassConcentration, units.MassRatio, units.Dimensionless}
 
 // ParamByKey returns the parameter with a card key, and whether it exists.
 func ParamByKey(key string) (Param, bool) {
@@ -56,8 +71,8 @@ func ParamByKey(key string) (Param, bool) {
 
 // Choices are the model names a card or the command line may pick.
 var (
-	DrivingChoices   = []string{"linear", "hoffman", "thompson-spaepen", "cp", "table"}
-	MobilityChoices  = []string{"arrhenius", "vft", "wlf", "none"}
+	DrivingChoices   = []string{"linear", "hoffman", "thompson-spaepen", "cp", "table", "solution"}
+	MobilityChoices  = []string{"arrhenius", "vft", "wlf", "none", "stokes-einstein", "diffusivity"}
 	KindChoices      = []string{"metal", "glass", "molecular", "solution", "demo"}
-	PrefactorChoices = []string{"attachment", "turnbull-fisher", "fixed"}
+	PrefactorChoices = []string{"attachment", "turnbull-fisher", "fixed", "diffusion"}
 )

@@ -90,6 +90,29 @@ var (
 		"s": {1, 0}, "ms": {1e-3, 0}, "us": {1e-6, 0}, "min": {60, 0}, "h": {3600, 0}, "d": {86400, 0}, "day": {86400, 0}, "days": {86400, 0},
 		"y": {365.25 * 86400, 0}, "yr": {365.25 * 86400, 0}, "year": {365.25 * 86400, 0}, "years": {365.25 * 86400, 0},
 	})
+	// Solutions: molar mass and density of the crystal, the solute's
+	// concentration in one of three families (the supersaturation is a
+	// ratio, so a concentration and a solubility must share a family), and
+	// a crystal growth rate.
+	MolarMass = k("molar mass", "kg/mol", false, map[string]unit{
+		"kg/mol": {1, 0}, "g/mol": {1e-3, 0},
+	})
+	Density = k("density", "kg/m3", false, map[string]unit{
+		"kg/m3": {1, 0}, "g/cm3": {1e3, 0}, "g/ml": {1e3, 0}, "g/l": {1, 0},
+	})
+	AmountConcentration = k("amount concentration", "mol/m3", false, map[string]unit{
+		"mol/m3": {1, 0}, "mol/l": {1e3, 0}, "mol/dm3": {1e3, 0}, "mmol/l": {1, 0}, "mmol/ml": {1e3, 0},
+	})
+	MassConcentration = k("mass concentration", "kg/m3", false, map[string]unit{
+		"kg/m3": {1, 0}, "g/l": {1, 0}, "mg/ml": {1, 0}, "g/ml": {1e3, 0}, "mg/l": {1e-3, 0}, "g/dm3": {1, 0},
+	})
+	MassRatio = k("mass ratio", "kg/kg", false, map[string]unit{
+		"kg/kg": {1, 0}, "g/kg": {1e-3, 0}, "g/g": {1, 0}, "mg/g": {1e-3, 0}, "g/100g": {1e-2, 0}, "wt%": {1e-2, 0},
+	})
+	Velocity = k("velocity", "m/s", false, map[string]unit{
+		"m/s": {1, 0}, "mm/s": {1e-3, 0}, "um/s": {1e-6, 0}, "nm/s": {1e-9, 0},
+		"um/min": {1e-6 / 60, 0}, "um/h": {1e-6 / 3600, 0}, "mm/h": {1e-3 / 3600, 0}, "mm/min": {1e-3 / 60, 0},
+	})
 )
 
 // Units lists the accepted spellings of a kind, sorted, for messages.

@@ -1,0 +1,223 @@
+package presets
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"undercool/cnt"
+	"undercool/kinetics"
+	"undercool/presets/units"
+)
+
+// A card with driving "solution" describes a crystal forming from a
+// solution. Its supersaturation S comes from, in this order of precedence:
+//
+//	supersaturation                 a fixed S (sat_temp, or a table and conc, sets T_sat)
+//	solubility_table + conc         S = conc/c_sat(T); T_sat where c_sat = conc
+//	solubility_table + sat_temp     a solution saturated at sat_temp: conc = c_sat(sat_temp)
+//	sat_temp + dh_sol               ideal van 't Hoff solubility at constant concentration
+//
+// T_sat takes the place of the equilibrium temperature: S = 1 there, and a
+// cooling path starts there.
+
+// SolubilityColumns are the columns of a solubility table, one set per
+// family of concentration units (SolutionConcKinds); a file uses one.
+func solubilityColumns(k units.Kind) []Column {
+	return []Column{
+		{Quantity: "temperature", Kind: units.Temperature, Required: true},
+		{Quantity: "solubility", Kind: k, Required: true},
+	}
+}
+
+// Solubility is a solubility table read from a file.
+type Solubility struct {
+	File  string
+	T, C  []float64  // K; solubility in the SI unit of Kind
+	Kind  units.Kind // the family of its concentration unit
+	Lines []int      // file line of every row
+}
+
+// ReadSolubility reads a CSV of temperature and solubility, such as
+//
+//	temperature_c,solubility_g_per_kg
+//	10,9.8
+//
+// The solubility column may be an amount concentration (solubility_mol_per_l),
+// a mass concentration (solubility_g_per_l), a mass ratio
+// (solubility_g_per_kg, solubility_g_per_100g) or a plain mole fraction
+// (solubility). Errors name the file and line.
+func ReadSolubility(path string) (*Solubility, error) {
+	var first error
+	for _, k := range SolutionConcKinds {
+		d, err := ReadDataFile(path, nil, solubilityColumns(k))
+		if err == nil {
+			return &Solubility{File: path, T: d.Columns["temperature"], C: d.Columns["solubility"], Kind: k, Lines: d.Lines}, nil
+		}
+		msg := err.Error()
+		headerProblem := strings.Contains(msg, `column "solubility`) && (strings.Contains(msg, "is not a unit of") || strings.Contains(msg, "needs a unit"))
+		if !headerProblem {
+			return nil, err
+		}
+		if first == nil {
+			first = err
+		}
+	}
+	return nil, fmt.Errorf("%s: the solubility column must be solubility_UNIT with UNIT an amount concentration (mol_per_l), a mass concentration (g_per_l, mg_per_ml), a mass ratio (g_per_kg, g_per_100g), or plain \"solubility\" for a mole fraction", path)
+}
+
+// massVolume is V_m = M/ρ from molar_mass and density, when both are given.
+func (c *Card) massVolume() (float64, bool) {
+	if c.Has("molar_mass") && c.Has("density") {
+		return c.SI("molar_mass") / c.SI("density"), true
+	}
+	return 0, false
+}
+
+// solution sets the driving force and the saturation temperature of a
+// solution card on m.
+func (c *Card) solution(m *kinetics.Material) error {
+	var tab *cnt.SolubilityTable
+	var sol *Solubility
+	if c.SolubilityFile != "" {
+		var err error
+		if tab, sol, err = c.solubilityTable(); err != nil {
+			return err
+		}
+	}
+	switch {
+	case c.Has("supersaturation"):
+		m.Driving = cnt.Supersaturation{S: c.SI("supersaturation")}
+		switch {
+		case c.Has("sat_temp"):
+			m.Te = c.SI("sat_temp")
+		case tab != nil && c.Has("conc"):
+			ts, err := saturation(tab, sol)
+			if err != nil {
+				return err
+			}
+			m.Te = ts
+		default:
+			return fmt.Errorf("%s: a fixed supersaturation also needs sat_temp, the saturation temperature (it starts every default temperature range and the undercooling column); give it in the card or with --sat-temp", c.File)
+		}
+	case tab != nil:
+		m.Driving = tab
+		if c.Has("conc") {
+			ts, err := saturation(tab, sol)
+			if err != nil {
+				return err
+			}
+			if c.Has("sat_temp") && math.Abs(ts-c.SI("sat_temp")) > 0.01 {
+				return fmt.Errorf("%s: conc %s and sat_temp %s disagree: the solubility table puts the saturation of conc at %.2f K; give one of them", c.File, c.Values["conc"].Text, c.Values["sat_temp"].Text, ts)
+			}
+			m.Te = ts
+		} else {
+			m.Te = c.SI("sat_temp")
+		}
+	case c.Has("sat_temp") && c.Has("dh_sol"):
+		m.Driving = cnt.VantHoff{Tsat: c.SI("sat_temp"), DHsol: c.SI("dh_sol")}
+		m.Te = c.SI("sat_temp")
+	default:
+		return fmt.Errorf("%s: driving \"solution\" needs a supersaturation: supersaturation (with sat_temp), or sat_temp and dh_sol (van 't Hoff), or a solubility table (solubility_table, --solubility FILE.csv) with conc or sat_temp", c.File)
+	}
+	return nil
+}
+
+// solubilityTable reads the card's solubility table and pairs it with the
+// concentration: conc (same family of units) or, without it, the solubility
+// at sat_temp.
+func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
+	if c.SolubilityFile == "-" {
+		return nil, nil, fmt.Errorf("%s: the solubility table must be a file, not stdin", c.File)
+	}
+	sol, err := ReadSolubility(c.SolubilityFile)
+	if err != nil {
+		return nil, nil, err
+	}
+	row := func(err error) error {
+		// cnt reports rows from 1 in file order; give the file line.
+		var n int
+		if _, e := fmt.Sscanf(err.Error(), "row %d:", &n); e == nil && n >= 1 && n <= len(sol.Lines) {
+			return fmt.Errorf("%s:%d: %s", sol.File, sol.Lines[n-1], strings.TrimSpace(strings.SplitN(err.Error(), ":", 2)[1]))
+		}
+		return fmt.Errorf("%s: %v", sol.File, err)
+	}
+	// Check the rows with a placeholder concentration first.
+	probe, err := cnt.NewSolubilityTable(sol.T, sol.C, 1, sol.File)
+	if err != nil {
+		return nil, nil, row(err)
+	}
+	var conc float64
+	switch {
+	case c.Has("conc"):
+		v := c.Values["conc"]
+		if v.Kind.Name != sol.Kind.Name {
+			return nil, nil, fmt.Errorf("%s: conc %s is a %s but the solubility table %s is in %s: give both in the same family of units", c.File, v.Text, v.Kind.Name, sol.File, familyName(sol.Kind))
+		}
+		conc = v.SI
+	case c.Has("sat_temp"):
+		ts := c.SI("sat_temp")
+		conc = probe.ConcentrationAt(ts)
+		if math.IsNaN(conc) {
+			return nil, nil, fmt.Errorf("%s: sat_temp %s lies outside the solubility table %s (%.2f to %.2f K)", c.File, c.Values["sat_temp"].Text, sol.File, probe.T[0], probe.T[len(probe.T)-1])
+		}
+	default:
+		return nil, nil, fmt.Errorf("%s: the solubility table %s needs the solution's concentration: conc (in the table's units) or sat_temp", c.File, sol.File)
+	}
+	tab, err := cnt.NewSolubilityTable(sol.T, sol.C, conc, sol.File)
+	if err != nil {
+		return nil, nil, row(err)
+	}
+	return tab, sol, nil
+}
+
+// saturation is the saturation temperature of a table's concentration; a
+// solubility that does not rise with temperature is named by its file line.
+func saturation(tab *cnt.SolubilityTable, sol *Solubility) (float64, error) {
+	if ok, r := tab.Increasing(); !ok {
+		n := len(sol.Lines)
+		i := r - 1 // index in ascending temperature
+		if sol.T[0] > sol.T[n-1] {
+			i = n - r
+		}
+		return 0, fmt.Errorf("%s:%d: the solubility does not rise with temperature here (it must, to give one saturation temperature for conc)", sol.File, sol.Lines[i])
+	}
+	ts, err := tab.SaturationTemperature()
+	if err != nil {
+		return 0, fmt.Errorf("%s: %v", sol.File, err)
+	}
+	return ts, nil
+}
+
+func familyName(k units.Kind) string {
+	if k.Name == units.Dimensionless.Name {
+		return "mole fraction"
+	}
+	return k.Name
+}
+
+// errNoNumberConc is the error of a diffusion prefactor without a way to
+// count the solute molecules per volume.
+var errNoNumberConc = errors.New("the diffusion prefactor needs the number of solute molecules per volume: number_conc, or conc as an amount concentration (mol/l), or as a mass concentration (g/l) with molar_mass")
+
+// numberConc is the number concentration of solute molecules, m⁻³: given,
+// or from conc when it is an amount or (with molar_mass) a mass concentration.
+func (c *Card) numberConc() (float64, error) {
+	if c.Has("number_conc") {
+		return c.SI("number_conc"), nil
+	}
+	if !c.Has("conc") {
+		return 0, fmt.Errorf("%s: %v", c.File, errNoNumberConc)
+	}
+	v := c.Values["conc"]
+	switch v.Kind.Name {
+	case units.AmountConcentration.Name:
+		return v.SI * cnt.Avogadro, nil
+	case units.MassConcentration.Name:
+		if c.Has("molar_mass") {
+			return v.SI / c.SI("molar_mass") * cnt.Avogadro, nil
+		}
+	}
+	return 0, fmt.Errorf("%s: %v", c.File, errNoNumberConc)
+}
