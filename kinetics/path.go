@@ -194,48 +194,10 @@ func (t table) atLn(T float64) (lnJ, lnU float64) {
 	return lj, lu
 }
 
-// lnMeanE returns ln E(x) with E(x) = (eˣ − 1)/x, E(0) = 1: the integral of
-// exp(a + x·s/h) over s in [0, h] is exp(a)·h·E(x). It never overflows.
-func lnMeanE(x float64) float64 {
-	switch {
-	case math.Abs(x) < 1e-8:
-		return x / 2
-	case x > 0:
-		return x + math.Log(-math.Expm1(-x)/x)
-	default:
-		return math.Log(math.Expm1(x) / x)
-	}
-}
-
-// centroid is the mean position, as a fraction of the interval, of
-// exp(x·s) on s in [0, 1]: 1/(1 − e^(−x)) − 1/x, 1/2 at x = 0.
-func centroid(x float64) float64 {
-	if math.Abs(x) < 1e-4 {
-		return 0.5 + x/12
-	}
-	return -1/math.Expm1(-x) - 1/x
-}
-
-// negligibleDrop stands in for ln J = −Inf at one end of an interval: the
-// rate there is taken as e^(−700) of the other end (the interval holds the
-// onset of nucleation or the end of mobility, where J is vanishing).
+// negligibleDrop stands in for ln J = −Inf at one end of a step: the rate
+// there is taken as e^(−700) of the other end (the step holds the onset of
+// nucleation or the end of mobility, where J is vanishing).
 const negligibleDrop = 700
-
-// interval gives, for interval [t_i, t_{i+1}] with ln J linear in time
-// between its ends a and b, the logarithm of its nuclei ∫J dt and the
-// J-weighted mean position in it (fraction of the step).
-func interval(a, b, h float64) (lnW, pos float64) {
-	switch {
-	case math.IsInf(a, -1) && math.IsInf(b, -1):
-		return math.Inf(-1), 0.5
-	case math.IsInf(a, -1):
-		a = b - negligibleDrop
-	case math.IsInf(b, -1):
-		b = a - negligibleDrop
-	}
-	x := b - a
-	return a + math.Log(h) + lnMeanE(x), centroid(x)
-}
 
 // accum carries the running integrals of a path from one point to the
 // next; see integrate.
@@ -465,17 +427,6 @@ func (md *Model) AnalyzeCurve(p Path, X, bandK float64) (CurveAnalysis, error) {
 		return CurveAnalysis{}, err
 	}
 	return CurveAnalysis{Path: pathResult(p, s, X), Sums: s, Additivity: q}, nil
-}
-
-// logAdd is ln(eᵃ + eᵇ) without overflow; −Inf is the logarithm of zero.
-func logAdd(a, b float64) float64 {
-	if a < b {
-		a, b = b, a
-	}
-	if math.IsInf(a, -1) {
-		return a
-	}
-	return a + math.Log1p(math.Exp(b-a))
 }
 
 // tableCurve is the material's isothermal TTT curve for fraction X, read

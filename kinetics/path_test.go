@@ -11,6 +11,45 @@ import (
 	"undercool/cnt"
 )
 
+// lnMeanE returns ln E(x) with E(x) = (eˣ − 1)/x, E(0) = 1: the integral of
+// exp(a + x·s/h) over s in [0, h] is exp(a)·h·E(x). It never overflows.
+func lnMeanE(x float64) float64 {
+	switch {
+	case math.Abs(x) < 1e-8:
+		return x / 2
+	case x > 0:
+		return x + math.Log(-math.Expm1(-x)/x)
+	default:
+		return math.Log(math.Expm1(x) / x)
+	}
+}
+
+// centroid is the mean position, as a fraction of the interval, of
+// exp(x·s) on s in [0, 1]: 1/(1 − e^(−x)) − 1/x, 1/2 at x = 0.
+func centroid(x float64) float64 {
+	if math.Abs(x) < 1e-4 {
+		return 0.5 + x/12
+	}
+	return -1/math.Expm1(-x) - 1/x
+}
+
+// interval is the reference form of one step of accum.step, written
+// in logarithms: it gives, for interval [t_i, t_{i+1}] with ln J linear in time
+// between its ends a and b, the logarithm of its nuclei ∫J dt and the
+// J-weighted mean position in it (fraction of the step).
+func interval(a, b, h float64) (lnW, pos float64) {
+	switch {
+	case math.IsInf(a, -1) && math.IsInf(b, -1):
+		return math.Inf(-1), 0.5
+	case math.IsInf(a, -1):
+		a = b - negligibleDrop
+	case math.IsInf(b, -1):
+		b = a - negligibleDrop
+	}
+	x := b - a
+	return a + math.Log(h) + lnMeanE(x), centroid(x)
+}
+
 // bruteXext is the O(N²) reference for integrate: the same nuclei per step
 // (w_i, ℓ_i) summed directly at every point, with the largest ln w_i
 // factored out.
