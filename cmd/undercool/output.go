@@ -80,7 +80,16 @@ type result struct {
 	extra   object   // top-level JSON entries besides inputs and rows
 	cols    []column
 	rows    [][]any  // cells: float64 (NaN/Inf = none), string, []string
+	tables  []table  // further tables after the main one (text and markdown; CSV as comments)
 	notes   []string // lines printed below the table (flag legend, cautions)
+}
+
+// table is a further table of a result, such as a sensitivity ranking.
+// JSON does not show it: put its content in extra.
+type table struct {
+	title string
+	cols  []column
+	rows  [][]any
 }
 
 // dash stands in tables for a value that does not exist.
@@ -191,29 +200,18 @@ func (r *result) renderText(w io.Writer, markdown bool) error {
 	}
 	if len(r.cols) > 0 {
 		b.WriteByte('\n')
-		align := make([]tw.Align, len(r.cols))
-		for i, c := range r.cols {
-			align[i] = tw.AlignRight
-			if c.text == nil {
-				align[i] = tw.AlignLeft
-			}
+		if err := writeTable(&b, r.cols, r.rows, markdown); err != nil {
+			return err
 		}
-		opts := []tablewriter.Option{
-			tablewriter.WithHeaderAutoFormat(tw.Off),
-			tablewriter.WithRowAlignmentConfig(tw.CellAlignment{PerColumn: align}),
-			tablewriter.WithHeaderAlignment(tw.AlignCenter),
-		}
+	}
+	for _, t := range r.tables {
+		b.WriteByte('\n')
 		if markdown {
-			opts = append(opts, tablewriter.WithRenderer(renderer.NewMarkdown()))
+			fmt.Fprintf(&b, "#### %s\n\n", t.title)
+		} else {
+			fmt.Fprintln(&b, t.title)
 		}
-		t := tablewriter.NewTable(&b, opts...)
-		t.Header(r.heads())
-		for _, row := range r.rows {
-			if err := t.Append(r.cells(row)); err != nil {
-				return err
-			}
-		}
-		if err := t.Render(); err != nil {
+		if err := writeTable(&b, t.cols, t.rows, markdown); err != nil {
 			return err
 		}
 	}
@@ -227,11 +225,46 @@ func (r *result) renderText(w io.Writer, markdown bool) error {
 	return err
 }
 
+// writeTable renders one table with tablewriter, as text or Markdown.
+func writeTable(b *bytes.Buffer, cols []column, rows [][]any, markdown bool) error {
+	r := &result{cols: cols}
+	align := make([]tw.Align, len(cols))
+	for i, c := range cols {
+		align[i] = tw.AlignRight
+		if c.text == nil {
+			align[i] = tw.AlignLeft
+		}
+	}
+	opts := []tablewriter.Option{
+		tablewriter.WithHeaderAutoFormat(tw.Off),
+		tablewriter.WithRowAlignmentConfig(tw.CellAlignment{PerColumn: align}),
+		tablewriter.WithHeaderAlignment(tw.AlignCenter),
+	}
+	if markdown {
+		opts = append(opts, tablewriter.WithRenderer(renderer.NewMarkdown()))
+	}
+	t := tablewriter.NewTable(b, opts...)
+	t.Header(r.heads())
+	for _, row := range rows {
+		if err := t.Append(r.cells(row)); err != nil {
+			return err
+		}
+	}
+	return t.Render()
+}
+
 func (r *result) renderCSV(w io.Writer) error {
 	var b bytes.Buffer
 	fmt.Fprintf(&b, "# %s\n", r.title)
 	for _, l := range append(append(append([]string{}, r.about...), r.summary...), r.notes...) {
 		fmt.Fprintf(&b, "# %s\n", l)
+	}
+	for _, t := range r.tables {
+		fmt.Fprintf(&b, "# %s\n", t.title)
+		tr := &result{cols: t.cols}
+		for _, row := range t.rows {
+			fmt.Fprintf(&b, "#   %s\n", strings.Join(tr.cells(row), ", "))
+		}
 	}
 	cw := csv.NewWriter(&b)
 	keys := make([]string, len(r.cols))

@@ -83,11 +83,15 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 	mf := addMaterialFlags(fs)
 	tf := addTempFlags(fs, 21)
 	ff := addFormatFlag(fs)
+	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
 		if len(args) > 0 {
 			return usagef("rate: unexpected argument %q", args[0])
 		}
 		if err := ff.check(); err != nil {
+			return err
+		}
+		if err := sf.check(); err != nil {
 			return err
 		}
 		c, md, err := mf.model()
@@ -114,6 +118,16 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 		r.notes = flagNotes(all)
 		if !md.HasRate() {
 			r.notes = append(r.notes, "no rate: the material has no mobility law; give --mobility with its values, or --prefactor fixed with --j0")
+		}
+		if plan, err := sf.plan(c, md); err != nil {
+			return err
+		} else if plan != nil && md.HasRate() {
+			heads, eval := rateHeadlines(temps)
+			u, err := plan.run(e, md, heads, eval)
+			if err != nil {
+				return err
+			}
+			addUncertainty(r, plan, u, heads, temps)
 		}
 		r.notes = append(r.notes, caution)
 		return r.render(e.stdout, ff.value)
