@@ -13,12 +13,13 @@ import (
 
 // materialFlags are the flags that choose a material and override its values.
 type materialFlags struct {
-	material  string
-	driving   string
-	mobility  string
-	prefactor string
-	values    map[string]*string // card key → flag text
-	fs        *pflag.FlagSet
+	material   string
+	driving    string
+	mobility   string
+	prefactor  string
+	solubility string             // --solubility FILE.csv (solution_flags.go)
+	values     map[string]*string // card key → flag text
+	fs         *pflag.FlagSet
 }
 
 func flagName(key string) string { return strings.ReplaceAll(key, "_", "-") }
@@ -27,9 +28,10 @@ func flagName(key string) string { return strings.ReplaceAll(key, "_", "-") }
 func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 	mf := &materialFlags{values: map[string]*string{}, fs: fs}
 	fs.StringVar(&mf.material, "material", "", "shipped card name or path to a .toml card (see undercool materials)")
-	fs.StringVar(&mf.driving, "driving", "", "driving force: linear, hoffman, thompson-spaepen, cp, or FILE.csv with temperature_K and dg_J_per_mol columns")
+	fs.StringVar(&mf.driving, "driving", "", "driving force: linear, hoffman, thompson-spaepen, cp, solution, or FILE.csv with temperature_K and dg_J_per_mol columns")
 	fs.StringVar(&mf.mobility, "mobility", "", "mobility law: arrhenius, vft, wlf or none")
-	fs.StringVar(&mf.prefactor, "prefactor", "", "rate prefactor: attachment (default), turnbull-fisher or fixed")
+	fs.StringVar(&mf.prefactor, "prefactor", "", "rate prefactor: attachment (default), turnbull-fisher, fixed or diffusion (solutions)")
+	fs.StringVar(&mf.solubility, "solubility", "", "solubility table FILE.csv (temperature_UNIT, solubility_UNIT) for driving solution, with --conc or --sat-temp")
 	for _, p := range presets.Params {
 		units := p.Kinds[0].SI
 		if len(p.Kinds) > 1 {
@@ -71,6 +73,7 @@ func (mf *materialFlags) card() (*presets.Card, error) {
 			return nil, usagef("--%s: %v", flagName(k), err)
 		}
 	}
+	mf.applySolution(c)
 	if mf.set("driving") {
 		switch d := mf.driving; {
 		case strings.HasSuffix(strings.ToLower(d), ".csv"):
@@ -78,7 +81,7 @@ func (mf *materialFlags) card() (*presets.Card, error) {
 		case d != "table" && contains(presets.DrivingChoices, d):
 			c.Driving = d
 		default:
-			return nil, usagef("--driving: %q is not one of linear, hoffman, thompson-spaepen, cp, or a FILE.csv", d)
+			return nil, usagef("--driving: %q is not one of linear, hoffman, thompson-spaepen, cp, solution, or a FILE.csv", d)
 		}
 	}
 	if mf.set("mobility") {
@@ -108,6 +111,10 @@ func inferMobility(c *presets.Card) string {
 		return "arrhenius"
 	case c.Has("vft_a") || c.Has("vft_b") || c.Has("vft_t0"):
 		return "vft"
+	case c.Has("solvent_viscosity"):
+		return "stokes-einstein"
+	case c.Has("solute_diffusivity"):
+		return "diffusivity"
 	}
 	return "none"
 }
@@ -174,6 +181,7 @@ func describeCard(c *presets.Card, md *kinetics.Model) ([]string, object) {
 		{"equilibrium_temperature_k", m.Te}, {"molecular_volume_m3", md.MolecularVolume()}, {"jump_distance_m", md.JumpDistance()},
 		{"shape_factor", md.ShapeFactor()}, {"values", values},
 	}
+	lines, inputs = describeSolution(c, md, lines, inputs)
 	return lines, inputs
 }
 
