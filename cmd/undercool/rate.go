@@ -84,6 +84,7 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 	tf := addTempFlags(fs, 21)
 	ff := addFormatFlag(fs)
 	sf := addSpreadFlags(fs)
+	pf := addPlotFlag(fs, "draw log10 J and u against temperature")
 	return func(e *env, args []string) error {
 		if len(args) > 0 {
 			return usagef("rate: unexpected argument %q", args[0])
@@ -92,6 +93,9 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 			return err
 		}
 		if err := sf.check(); err != nil {
+			return err
+		}
+		if err := pf.check(); err != nil {
 			return err
 		}
 		c, md, err := mf.model()
@@ -130,6 +134,9 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 			addUncertainty(r, plan, u, heads, temps)
 		}
 		r.notes = append(r.notes, caution)
+		if err := writeRatePlot(pf, c.Name, md, temps); err != nil {
+			return err
+		}
 		return r.render(e.stdout, ff.value)
 	}
 }
