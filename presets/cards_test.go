@@ -93,6 +93,10 @@ func TestShippedCards(t *testing.T) {
 				}
 				return // the sensible ranges below are for melts and glasses
 			}
+			if c.Kind == "solution" { // apparent γ and no shipped rate: see checkSolution in solution_test.go
+				checkSolution(t, c, m)
+				return
+			}
 			if !m.HasRate() || !m.HasGrowth() {
 				t.Error("shipped card without a rate or growth law")
 			}
@@ -260,6 +264,11 @@ func TestLithiumDisilicateMaximum(t *testing.T) {
 	if math.Abs(at-measured) > 60 {
 		t.Logf("lithium disilicate: maximum misses the measured one by %.0f K (tolerance 60 K): universal WLF constants, see the comment", at-measured)
 	}
+	// The height of the maximum is far below the measured one, of order
+	// 10^9 m^-3 s^-1 (James P.F., Phys. Chem. Glasses 15 (1974) 95, from
+	// memory): the well-known failure of CNT with a constant γ for silicate
+	// glasses, made worse here by the approximate driving force. Logged only.
+	t.Logf("lithium disilicate: maximum rate 10^%.0f m^-3 s^-1 against a measured order of 10^9", best/math.Ln10)
 	if !(at > 600 && at < 900) || !(at > m.Material().Tg) {
 		t.Errorf("no interior maximum above Tg: %.1f K", at)
 	}
