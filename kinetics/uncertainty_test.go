@@ -12,8 +12,8 @@ import (
 	"undercool/cnt"
 )
 
-// demoMaterial is the invented demo alloy of the shipped demo card
-// (invented for the demo; not a real material).
+// demoMaterial is an invented alloy for the tests (the first values of
+// the invented demo card; not a real material).
 func demoMaterial() Material {
 	return Material{
 		Name:     "demo",
@@ -377,5 +377,58 @@ func BenchmarkMonteCarloLog10J(b *testing.B) {
 		if _, err := mc.Run(); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// BenchmarkMonteCarloNoseCritical is the speed case: 10,000
+// samples of the TTT nose (temperature and time) and the critical cooling
+// rate, with spreads on γ, Q and D0, on all cores; and each part alone.
+func BenchmarkMonteCarloNoseCritical(b *testing.B) {
+	m := demoMaterial()
+	spreads := []Spread{{Key: "gamma", SD: 0.002}, {Key: "q", SD: 3e3}, {Key: "d0", Dist: LogNormal, SD: 0.7}}
+	const X = 1e-6
+	nose := func(md *Model) (float64, float64, error) {
+		te := md.Material().Te
+		n, err := md.Nose(0.5*te, 0.99*te, X, JMAK{})
+		return n.T, math.Exp(n.LnTime), err
+	}
+	critical := func(md *Model) (float64, error) {
+		c, err := md.LinearCooling(0)
+		if err != nil {
+			return 0, err
+		}
+		return c.CriticalRate(X), nil
+	}
+	cases := []struct {
+		name string
+		outs []Output
+		eval Eval
+	}{
+		{"nose", []Output{{"nose_temperature_k", false}, {"nose_time_s", true}}, func(md *Model) ([]float64, error) {
+			T, t, err := nose(md)
+			return []float64{T, t}, err
+		}},
+		{"critical", []Output{{"critical_cooling_rate_k_per_s", true}}, func(md *Model) ([]float64, error) {
+			q, err := critical(md)
+			return []float64{q}, err
+		}},
+		{"nose+critical", []Output{{"nose_temperature_k", false}, {"nose_time_s", true}, {"critical_cooling_rate_k_per_s", true}}, func(md *Model) ([]float64, error) {
+			T, t, err := nose(md)
+			if err != nil {
+				return nil, err
+			}
+			q, err := critical(md)
+			return []float64{T, t, q}, err
+		}},
+	}
+	for _, c := range cases {
+		b.Run(c.name, func(b *testing.B) {
+			mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: c.outs, Eval: c.eval, Samples: 10000, Seed: 1}
+			for b.Loop() {
+				if _, err := mc.Run(); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
