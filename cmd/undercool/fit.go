@@ -1,0 +1,195 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"path/filepath"
+	"strings"
+
+	"github.com/spf13/pflag"
+
+	"undercool/kinetics"
+	"undercool/presets"
+	"undercool/presets/units"
+)
+
+func init() {
+	commands["fit"] = &command{
+		summary: "Fit a model to measurements in a CSV file whose header names carry units: " +
+			"arrhenius (Q and the pre-exponential from ln y against 1/T), " +
+			"interface (the interfacial energy and a prefactor scale from measured nucleation rates, the rest of the material from --material and flags) or " +
+			"avrami (n and k from transformed fractions against time). " +
+			"Estimates come with standard errors and 95 % intervals (Student t, N - 2 degrees of freedom); two points give the exact answer and no interval. " +
+			"Lines starting with # are comments; FILE - reads standard input.",
+		usage:   "undercool fit arrhenius|interface|avrami FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--card-out FILE.toml] [--format F]",
+		example: "undercool fit arrhenius testdata/fit/diffusion.csv --card-out solute.toml",
+		setup:   setupFit,
+	}
+}
+
+// fitKinds are the accepted first arguments of fit.
+var fitKinds = []string{"arrhenius", "interface", "avrami"}
+
+// fitFlags are the flags of the fit command.
+type fitFlags struct {
+	weights bool
+	cardOut string
+	kind    string
+	mf      *materialFlags
+	ff      *formatFlag
+	fs      *pflag.FlagSet
+}
+
+func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
+	f := &fitFlags{fs: fs}
+	fs.BoolVar(&f.weights, "weights", false, "weigh the points by the file's weight column (relative weights on the logarithm, each > 0)")
+	fs.StringVar(&f.cardOut, "card-out", "", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface)")
+	fs.StringVar(&f.kind, "kind", "metal", "kind of material written by arrhenius --card-out without --material: "+strings.Join(presets.KindChoices, ", "))
+	f.mf = addMaterialFlags(fs)
+	f.ff = addFormatFlag(fs)
+	return func(e *env, args []string) error {
+		if len(args) == 0 {
+			return usagef("fit: give the kind of fit (%s) and a data file", strings.Join(fitKinds, ", "))
+		}
+		kind := args[0]
+		if !contains(fitKinds, kind) {
+			return usagef("fit: %q is not a kind of fit (%s)", kind, strings.Join(fitKinds, ", "))
+		}
+		if len(args) != 2 {
+			return usagef("fit %s: give one data file (or - for standard input), got %d arguments", kind, len(args)-1)
+		}
+		if err := f.ff.check(); err != nil {
+			return err
+		}
+		if f.cardOut != "" && !strings.HasSuffix(strings.ToLower(f.cardOut), ".toml") {
+			return usagef("--card-out: %q must end in .toml", f.cardOut)
+		}
+		if !contains(presets.KindChoices, f.kind) {
+			return usagef("--kind: %q is not one of %s", f.kind, strings.Join(presets.KindChoices, ", "))
+		}
+		switch kind {
+		case "arrhenius":
+			return f.arrhenius(e, args[1])
+		case "interface":
+			return f.iface(e, args[1])
+		default:
+			return f.avrami(e, args[1])
+		}
+	}
+}
+
+// materialGiven reports which material flag was given, if any.
+func (f *fitFlags) materialGiven() string {
+	for _, n := range []string{"material", "driving", "mobility", "prefactor"} {
+		if f.fs.Changed(n) {
+			return n
+		}
+	}
+	for _, p := range presets.Params {
+		if f.fs.Changed(flagName(p.Key)) {
+			return flagName(p.Key)
+		}
+	}
+	return ""
+}
+
+// weightColumn is the optional column of relative weights.
+var weightColumn = presets.Column{Quantity: "weight", Kind: units.Dimensionless}
+
+// readFitData reads the data file and returns it with the weights, if asked for.
+func (f *fitFlags) readFitData(e *env, path string, cols []presets.Column) (*presets.Data, []float64, []string, error) {
+	d, err := presets.ReadDataFile(path, e.stdin, append(cols, weightColumn))
+	if err != nil {
+		return nil, nil, nil, usagef("%v", err)
+	}
+	var notes []string
+	w, has := d.Columns["weight"]
+	switch {
+	case f.weights && !has:
+		return nil, nil, nil, usagef("--weights: %s has no weight column", d.File)
+	case !f.weights && has:
+		notes = append(notes, "the weight column is ignored; give --weights to use it")
+		w = nil
+	}
+	for i, wi := range w {
+		if !(wi > 0) {
+			return nil, nil, nil, usagef("%s:%d: column \"weight\": %g must be positive", d.File, d.Lines[i], wi)
+		}
+	}
+	return d, w, notes, nil
+}
+
+// fitError turns an error of a fit into one naming the file line.
+func fitError(d *presets.Data, err error) error {
+	var pe *kinetics.PointError
+	if errors.As(err, &pe) && pe.Index >= 0 && pe.Index < len(d.Lines) {
+		return usagef("%s:%d: %s", d.File, d.Lines[pe.Index], pe.Msg)
+	}
+	if errors.Is(err, kinetics.ErrFewPoints) {
+		return usagef("%s: %d data rows; a fit of 2 parameters needs at least 2", d.File, len(d.Lines))
+	}
+	return usagef("%s: %v", d.File, err)
+}
+
+// spread formats the standard error and 95 % interval of an estimate,
+// ", SE s unit, 95 % [lo, hi] unit", or says there are none (two points).
+// se may be NaN alone (an interval without a standard error of its own).
+func spreadText(se float64, v [2]float64, format func(float64) string, unit string) string {
+	if math.IsNaN(v[0]) || math.IsNaN(v[1]) {
+		return " (two points: exact, no interval)"
+	}
+	s := ""
+	if !math.IsNaN(se) {
+		s = ", SE " + format(se) + unit
+	}
+	return s + ", 95 % [" + format(v[0]) + ", " + format(v[1]) + "]" + unit
+}
+
+// ciJSON is an interval for JSON: [low, high], or null when there is none.
+func ciJSON(v [2]float64) any {
+	if math.IsNaN(v[0]) || math.IsNaN(v[1]) || math.IsInf(v[0], 0) || math.IsInf(v[1], 0) {
+		return nil
+	}
+	return []float64{v[0], v[1]}
+}
+
+// lnText is "; ln NAME = v" with its spread, or without one for an exact fit.
+func lnText(name string, v, se float64, ci [2]float64) string {
+	s := fmt.Sprintf("; ln %s = %.5g", name, v)
+	if math.IsNaN(se) {
+		return s
+	}
+	return s + spreadText(se, ci, g(4), "")
+}
+
+// g formats a float with n significant digits.
+func g(n int) func(float64) string {
+	return func(x float64) string { return sig(n)(x) }
+}
+
+// statsLine describes the scatter of a fit.
+func statsLine(n, dof int, r2, sd float64, of string) string {
+	if dof == 0 {
+		return fmt.Sprintf("points: 2 (exact %s, no scatter to estimate)", "line")
+	}
+	return fmt.Sprintf("points: %d, %d degrees of freedom; R2 = %.5f; residual SD = %.3g in %s", n, dof, r2, sd, of)
+}
+
+// warningsJSON lists fit warnings for JSON.
+func warningsJSON(ws []kinetics.FitWarning) []object {
+	out := []object{}
+	for _, w := range ws {
+		out = append(out, object{{"key", w.Key}, {"text", w.Text}})
+	}
+	return out
+}
+
+// dataName is how a data file is named in a card's source: its base name,
+// or "standard input".
+func dataName(d *presets.Data) string {
+	if d.File == "stdin" {
+		return "standard input"
+	}
+	return filepath.Base(d.File)
+}

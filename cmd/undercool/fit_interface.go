@@ -1,0 +1,212 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"undercool/kinetics"
+	"undercool/presets"
+	"undercool/presets/units"
+)
+
+func (f *fitFlags) iface(e *env, path string) error {
+	if f.materialGiven() == "" {
+		return usagef("fit interface: give the material with --material NAME|FILE.toml (and flags); every value but gamma is taken from it")
+	}
+	card, model, err := f.mf.model()
+	if err != nil {
+		return err
+	}
+	if !model.HasRate() {
+		return usagef("fit interface: the material has no rate; give a mobility law (--mobility with its values) or --prefactor fixed with --j0")
+	}
+	cols := []presets.Column{
+		{Quantity: "temperature", Kind: units.Temperature, Required: true},
+		{Quantity: "rate", Kind: units.RateDensity, Required: true},
+	}
+	d, w, notes, err := f.readFitData(e, path, cols)
+	if err != nil {
+		return err
+	}
+	T, J := d.Columns["temperature"], d.Columns["rate"]
+	lnJ := make([]float64, len(J))
+	for i, j := range J {
+		if !(j > 0) {
+			return usagef("%s:%d: column %q: %s must be positive to take its logarithm", d.File, d.Lines[i], d.Headers["rate"], sig(6)(j))
+		}
+		lnJ[i] = math.Log(j)
+	}
+	for i, t := range T {
+		if !(t > 0) {
+			return usagef("%s:%d: column %q: %s K is at or below absolute zero", d.File, d.Lines[i], d.Headers["temperature"], sig(6)(t))
+		}
+	}
+	fit, err := kinetics.FitInterface(model, T, lnJ, w)
+	if err != nil {
+		var pe *kinetics.PointError
+		if errors.As(err, &pe) || errors.Is(err, kinetics.ErrFewPoints) || len(T) < 2 || sameAll(T) {
+			return fitError(d, err)
+		}
+		return fmt.Errorf("%s: %v", d.File, err)
+	}
+	about, inputs := describeCard(card, model)
+	about = append(about, fmt.Sprintf("data: %s, %d points; columns %s, %s%s", d.File, fit.N, d.Headers["temperature"], d.Headers["rate"], weighted(w)))
+	about = append(about, "fit: ln J_measured = ln A + ln J_model(T; gamma), least squares over gamma and A; every other value from the material (its gamma is only replaced)")
+	inputs = append(inputs, kv{"data_file", d.File}, kv{"points", fit.N}, kv{"weighted", w != nil})
+	mj := func(x float64) string { return fmt.Sprintf("%.5g", x*1e3) }
+	r := &result{
+		title:  "undercool fit interface: interfacial energy from measured nucleation rates",
+		about:  about,
+		inputs: inputs,
+	}
+	r.summary = []string{
+		fmt.Sprintf("gamma = %.5g J/m2 (%s mJ/m2)%s", fit.Gamma, mj(fit.Gamma), spreadText(fit.GammaSE, fit.GammaCI, mj, " mJ/m2")),
+		fmt.Sprintf("prefactor scale A = %s (the model's rate times A)%s", sig(4)(fit.Scale), spreadText(math.NaN(), fit.ScaleCI, g(4), "")),
+		statsLine(fit.N, fit.DoF, fit.R2, fit.ResidualSD, "ln J") + residualDecades(fit),
+	}
+	if fit.Linear != nil {
+		lg := "no gamma (the slope is not negative)"
+		if !math.IsNaN(fit.LinearGamma) {
+			lg = fmt.Sprintf("gamma = %.4g J/m2", fit.LinearGamma)
+		}
+		lhs := "ln J - ln D"
+		if model.Material().Mobility == nil {
+			lhs = "ln J"
+		}
+		r.summary = append(r.summary, fmt.Sprintf("classical plot (%s against 1/(T dg_v^2)): slope %.5g K J2/m6, %s; it leaves out the temperature dependence of the prefactor, for comparison only", lhs, fit.Linear.Slope, lg))
+	}
+	var linSlope any = math.NaN()
+	if fit.Linear != nil {
+		linSlope = fit.Linear.Slope
+	}
+	fitted := fit.Fitted()
+	r.extra = object{
+		{"gamma_j_per_m2", fit.Gamma},
+		{"gamma_se_j_per_m2", fit.GammaSE},
+		{"gamma_ci95_j_per_m2", ciJSON(fit.GammaCI)},
+		{"prefactor_scale", fit.Scale},
+		{"prefactor_scale_ci95", ciJSON(fit.ScaleCI)},
+		{"ln_prefactor_scale", fit.LnScale},
+		{"ln_prefactor_scale_se", fit.LnScaleSE},
+		{"r2", fit.R2},
+		{"residual_sd_ln", fit.ResidualSD},
+		{"degrees_of_freedom", fit.DoF},
+		{"student_t", fit.T},
+		{"classical_slope_k_j2_per_m6", linSlope},
+		{"classical_gamma_j_per_m2", fit.LinearGamma},
+		{"fitted_sites_per_m3", sitesOrNaN(fitted)},
+		{"fitted_j0_per_m3_s", j0OrNaN(fitted)},
+		{"flags", fit.Flags.Keys()},
+	}
+	r.cols = []column{
+		{"line", "line", nil},
+		{"T (K)", "temperature_k", fixed(2)},
+		{"T (°C)", "temperature_c", fixed(2)},
+		{"log10 J (m^-3 s^-1)", "log10_rate_per_m3_s", fixed(3)},
+		{"fitted", "fitted_log10_rate_per_m3_s", fixed(3)},
+		{"residual (decades)", "residual_log10", fixed(3)},
+		{"n*", "critical_size", sig(4)},
+		{"1/(T dg_v^2) (K^-1 m6/J2)", "classical_x_m6_per_k_j2", sig(5)},
+		{"classical y", "classical_y", fixed(4)},
+		{"flags", "flags", nil},
+	}
+	for i, t := range T {
+		s := fit.Model.At(t)
+		r.rows = append(r.rows, []any{
+			fmt.Sprint(d.Lines[i]), t, t - kinetics.CelsiusOffset, lnJ[i] / math.Ln10,
+			(lnJ[i] - fit.Residuals[i]) / math.Ln10, fit.Residuals[i] / math.Ln10,
+			s.Nucleus.Size, fit.LinearX[i], fit.LinearY[i], s.Flags.Keys(),
+		})
+	}
+	if fit.Exact() {
+		r.notes = append(r.notes, "two points: the fit passes through both; no standard errors or intervals")
+	} else {
+		r.notes = append(r.notes, fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom), SE from the Jacobian at the minimum (linear approximation); A's interval is exp of that of ln A", fit.T, fit.DoF))
+	}
+	r.notes = append(r.notes, flagNotes(fit.Flags)...)
+	r.notes = append(r.notes, notes...)
+	r.notes = append(r.notes, caution)
+	if f.cardOut != "" {
+		c, header, err := interfaceCard(card, d, fit)
+		if err != nil {
+			return err
+		}
+		if err := writeCard(f.cardOut, c, header); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "card written: "+f.cardOut)
+	}
+	return r.render(e.stdout, f.ff.value)
+}
+
+func residualDecades(fit *kinetics.InterfaceFit) string {
+	if fit.Exact() {
+		return ""
+	}
+	return fmt.Sprintf(" (%.3g decades)", fit.ResidualSD/math.Ln10)
+}
+
+func sameAll(T []float64) bool {
+	for _, t := range T {
+		if t != T[0] {
+			return false
+		}
+	}
+	return true
+}
+
+func sitesOrNaN(m kinetics.Material) float64 {
+	if m.Prefactor == kinetics.PrefactorFixed {
+		return math.NaN()
+	}
+	return m.Sites
+}
+
+func j0OrNaN(m kinetics.Material) float64 {
+	if m.Prefactor != kinetics.PrefactorFixed {
+		return math.NaN()
+	}
+	return m.J0
+}
+
+// interfaceCard is the material card with the fitted gamma, and the
+// prefactor scale folded into the site density (or into j0 for a fixed
+// prefactor).
+func interfaceCard(base *presets.Card, d *presets.Data, fit *kinetics.InterfaceFit) (*presets.Card, []string, error) {
+	c := *base
+	c.Values = map[string]presets.Value{}
+	for k, v := range base.Values {
+		c.Values[k] = v
+	}
+	c.Name = base.Name + "-fit"
+	c.Description = fmt.Sprintf("%s (gamma and the prefactor scale fitted to %s)", base.Description, dataName(d))
+	src := fmt.Sprintf("undercool fit interface of %s, %d points, with the other values of %s", dataName(d), fit.N, base.File)
+	gs := src
+	if !fit.Exact() {
+		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", fit.GammaCI[0], fit.GammaCI[1])
+	}
+	if err := c.Set("gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs); err != nil {
+		return nil, nil, fmt.Errorf("card: %v", err)
+	}
+	m := fit.Fitted()
+	what := "the base site density"
+	if m.Prefactor == kinetics.PrefactorFixed {
+		what = "the base j0"
+	}
+	scale := fmt.Sprintf("%s times the prefactor scale A = %.5g fitted by undercool fit interface to %s", what, fit.Scale, dataName(d))
+	var err error
+	if m.Prefactor == kinetics.PrefactorFixed {
+		err = c.Set("j0", fmt.Sprintf("%.7g /m3/s", m.J0), scale)
+	} else {
+		err = c.Set("sites", fmt.Sprintf("%.7g m-3", m.Sites), scale)
+	}
+	if err != nil {
+		return nil, nil, fmt.Errorf("card: %v", err)
+	}
+	header := []string{
+		fmt.Sprintf("%s with gamma fitted by undercool fit interface to %s.", base.Name, dataName(d)),
+		"The prefactor scale A is folded into the site density (or j0); every other value is the base card's.",
+	}
+	return &c, header, nil
+}
