@@ -43,11 +43,15 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 	fs.StringVar(&at, "at", "", "hold temperature, K, C or F (bare = K), above absolute zero; required")
 	jf := addJMAKFlags(fs, false)
 	ff := addFormatFlag(fs)
+	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
 		if len(args) > 0 {
 			return usagef("hold: unexpected argument %q", args[0])
 		}
 		if err := ff.check(); err != nil {
+			return err
+		}
+		if err := sf.check(); err != nil {
 			return err
 		}
 		if !fs.Changed("at") {
@@ -100,7 +104,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 			inputs: inputs,
 		}
 		answer := fmt.Sprintf("time to X = %s at %.2f K (%.2f °C): %s", fracLabel(X), T, T-273.15, readableTime(t))
-		if !never {
+		if !never && t >= 60 {
 			answer += fmt.Sprintf(" (%.4g s)", t)
 		}
 		reason := ""
@@ -148,6 +152,10 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		r.notes = flagNotes(s.Flags)
 		if j.Lag {
 			r.notes = append(r.notes, "time lag: nucleation taken to start after tau = 1/(2 pi Z^2 beta*) and run at the steady rate after; other treatments differ by a factor of order one")
+		}
+		heads, eval := holdHeadlines(T, X, j)
+		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {
+			return err
 		}
 		r.notes = append(r.notes, caution)
 		return r.render(e.stdout, ff.value)

@@ -191,11 +191,15 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 	tf := addTempFlags(fs, 31)
 	pf := addPlotFlag(fs, "draw the TTT curve(s), temperature against log time,")
 	ff := addFormatFlag(fs)
+	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
 		if len(args) > 0 {
 			return usagef("ttt: unexpected argument %q", args[0])
 		}
 		if err := ff.check(); err != nil {
+			return err
+		}
+		if err := sf.check(); err != nil {
 			return err
 		}
 		fractions, err := jf.fractions(true)
@@ -300,6 +304,10 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 		if j.Lag {
 			r.notes = append(r.notes, "time lag: nucleation taken to start after tau = 1/(2 pi Z^2 beta*) and run at the steady rate after; other treatments differ by a factor of order one")
+		}
+		heads, eval := tttHeadlines(fractions, j, lo, hi)
+		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {
+			return err
 		}
 		r.notes = append(r.notes, caution)
 
