@@ -433,3 +433,71 @@ func rateHeadlines(temps []float64) ([]headline, kinetics.Eval) {
 	}
 	return heads, eval
 }
+
+// apply runs the spreads of a command, if there are any, and adds the
+// bands, the sensitivity and the notes to r. rowTemps are the
+// temperatures of the table rows, for per-row headlines.
+func (sf *spreadFlags) apply(e *env, r *result, c *presets.Card, md *kinetics.Model, heads []headline, eval kinetics.Eval, rowTemps []float64) error {
+	plan, err := sf.plan(c, md)
+	if err != nil || plan == nil {
+		return err
+	}
+	u, err := plan.run(e, md, heads, eval)
+	if err != nil {
+		return err
+	}
+	addUncertainty(r, plan, u, heads, rowTemps)
+	return nil
+}
+
+// seconds formats a time band readably ("3.2 min", "never").
+func seconds(t float64) string { return readableTime(t) }
+
+// tttHeadlines are the bands of a TTT curve: the nose temperature and
+// time for each fraction. A nose outside [lo, hi] has no answer.
+func tttHeadlines(fractions []float64, j kinetics.JMAK, lo, hi float64) ([]headline, kinetics.Eval) {
+	var heads []headline
+	for _, X := range fractions {
+		suffix, label := "", ""
+		if len(fractions) > 1 {
+			suffix, label = "_x_"+fracLabel(X), " (X = "+fracLabel(X)+")"
+		}
+		heads = append(heads,
+			headline{key: "nose_temperature_k" + suffix, label: "nose temperature" + label, text: kelvin, row: -1},
+			headline{key: "nose_time_s" + suffix, label: "nose time" + label, log: true, text: seconds, row: -1})
+	}
+	eval := func(md *kinetics.Model) ([]float64, error) {
+		out := make([]float64, 0, 2*len(fractions))
+		for _, X := range fractions {
+			n, err := md.Nose(lo, hi, X, j)
+			if err != nil {
+				return nil, err
+			}
+			switch {
+			case math.IsNaN(n.T): // nothing transforms in the range
+				out = append(out, math.NaN(), math.Inf(1))
+			case !n.Inside():
+				out = append(out, math.NaN(), math.NaN())
+			default:
+				t, _ := secondsOf(n.LnTime)
+				out = append(out, n.T, t)
+			}
+		}
+		return out, nil
+	}
+	return heads, eval
+}
+
+// holdHeadlines is the band of a hold: the time to X at T.
+func holdHeadlines(T, X float64, j kinetics.JMAK) ([]headline, kinetics.Eval) {
+	heads := []headline{{key: "time_s", label: fmt.Sprintf("time to X = %s at %.2f K", fracLabel(X), T), log: true, text: seconds, row: -1}}
+	eval := func(md *kinetics.Model) ([]float64, error) {
+		_, a := md.Isothermal(T, j)
+		t, _ := secondsOf(a.LnTime(X))
+		if math.IsNaN(t) {
+			t = math.Inf(1)
+		}
+		return []float64{t}, nil
+	}
+	return heads, eval
+}
