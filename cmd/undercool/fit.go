@@ -22,7 +22,7 @@ func init() {
 			"avrami (n and k from transformed fractions against time). " +
 			"Estimates come with standard errors and 95 % intervals (Student t, N - 2 degrees of freedom); two points give the exact answer and no interval. " +
 			"Lines starting with # are comments; FILE - reads standard input.",
-		usage:   "undercool fit arrhenius|interface|avrami FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--card-out FILE.toml] [--format F]",
+		usage:   "undercool fit arrhenius|interface|avrami FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
 		example: "undercool fit arrhenius testdata/fit/diffusion.csv --card-out solute.toml",
 		setup:   setupFit,
 	}
@@ -38,6 +38,7 @@ type fitFlags struct {
 	kind    string
 	mf      *materialFlags
 	ff      *formatFlag
+	pf      *plotFlag
 	fs      *pflag.FlagSet
 }
 
@@ -46,6 +47,7 @@ func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
 	fs.BoolVar(&f.weights, "weights", false, "weigh the points by the file's weight column (relative weights on the logarithm, each > 0)")
 	fs.StringVar(&f.cardOut, "card-out", "", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface)")
 	fs.StringVar(&f.kind, "kind", "metal", "kind of material written by arrhenius --card-out without --material: "+strings.Join(presets.KindChoices, ", "))
+	f.pf = addPlotFlag(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot)")
 	f.mf = addMaterialFlags(fs)
 	f.ff = addFormatFlag(fs)
 	return func(e *env, args []string) error {
@@ -60,6 +62,9 @@ func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
 			return usagef("fit %s: give one data file (or - for standard input), got %d arguments", kind, len(args)-1)
 		}
 		if err := f.ff.check(); err != nil {
+			return err
+		}
+		if err := f.pf.check(); err != nil {
 			return err
 		}
 		if f.cardOut != "" && !strings.HasSuffix(strings.ToLower(f.cardOut), ".toml") {
@@ -79,19 +84,24 @@ func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
 	}
 }
 
-// materialGiven reports which material flag was given, if any.
+// fitOwnFlags are the flags of fit itself; every other flag describes a material.
+var fitOwnFlags = []string{"weights", "card-out", "kind", "plot", "format"}
+
+// materialGiven returns the name of a material flag that was given, if any.
 func (f *fitFlags) materialGiven() string {
-	for _, n := range []string{"material", "driving", "mobility", "prefactor"} {
-		if f.fs.Changed(n) {
-			return n
+	var given []string
+	f.fs.Visit(func(fl *pflag.Flag) {
+		if !contains(fitOwnFlags, fl.Name) {
+			given = append(given, fl.Name)
 		}
+	})
+	if len(given) == 0 {
+		return ""
 	}
-	for _, p := range presets.Params {
-		if f.fs.Changed(flagName(p.Key)) {
-			return flagName(p.Key)
-		}
+	if contains(given, "material") {
+		return "material"
 	}
-	return ""
+	return given[0]
 }
 
 // weightColumn is the optional column of relative weights.

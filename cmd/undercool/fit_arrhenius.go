@@ -138,6 +138,12 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 	}
 	r.notes = append(r.notes, notes...)
 	r.notes = append(r.notes, caution)
+	if f.pf.wanted() {
+		if err := arrheniusPlot(f.pf, dataName(d), q.symbol, q.unit, T, y, fit); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "plot written: "+f.pf.path)
+	}
 	if f.cardOut != "" {
 		if q.col.Quantity != "diffusivity" {
 			return usagef("--card-out: a card holds an Arrhenius diffusivity (d0, q); %s has a %s column", d.File, d.Headers[q.col.Quantity])

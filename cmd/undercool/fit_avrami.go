@@ -127,6 +127,12 @@ func (f *fitFlags) avrami(e *env, path string) error {
 	}
 	r.notes = append(r.notes, notes...)
 	r.notes = append(r.notes, caution)
+	if f.pf.wanted() {
+		if err := avramiPlot(f.pf, dataName(d), t, X, fit); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "plot written: "+f.pf.path)
+	}
 	return r.render(e.stdout, f.ff.value)
 }
 

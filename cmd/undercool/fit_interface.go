@@ -127,6 +127,12 @@ func (f *fitFlags) iface(e *env, path string) error {
 	r.notes = append(r.notes, flagNotes(fit.Flags)...)
 	r.notes = append(r.notes, notes...)
 	r.notes = append(r.notes, caution)
+	if f.pf.wanted() {
+		if err := interfacePlot(f.pf, dataName(d), T, lnJ, fit); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "plot written: "+f.pf.path)
+	}
 	if f.cardOut != "" {
 		c, header, err := interfaceCard(card, d, fit)
 		if err != nil {

@@ -1,0 +1,170 @@
+package main
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"undercool/kinetics"
+)
+
+// inverseTempTicks label an axis of 1000/T (1/K) with the value and the
+// temperature in kelvin beneath it, the secondary scale of an Arrhenius plot.
+type inverseTempTicks struct{}
+
+func (inverseTempTicks) Ticks(lo, hi float64) []plot.Tick {
+	ticks := plot.DefaultTicks{}.Ticks(lo, hi)
+	for i := range ticks {
+		if ticks[i].Label != "" && ticks[i].Value > 0 {
+			ticks[i].Label = strconv.FormatFloat(ticks[i].Value, 'f', -1, 64) + "\n" + strconv.FormatFloat(1000/ticks[i].Value, 'f', 0, 64) + " K"
+		}
+	}
+	return ticks
+}
+
+// dataAndLine puts measured points (scatter) and a fitted curve (line) on p.
+func dataAndLine(p *plot.Plot, pts, line plotter.XYs, dataName, lineName string) error {
+	s, err := plotter.NewScatter(pts)
+	if err != nil {
+		return fmt.Errorf("--plot: %v", err)
+	}
+	s.GlyphStyle = draw.GlyphStyle{Color: curveColor(0), Radius: vg.Points(3), Shape: draw.CircleGlyph{}}
+	l, err := plotter.NewLine(line)
+	if err != nil {
+		return fmt.Errorf("--plot: %v", err)
+	}
+	l.Color = curveColor(1)
+	l.Width = vg.Points(1.5)
+	p.Add(plotter.NewGrid(), l, s)
+	p.Legend.Add(dataName, s)
+	p.Legend.Add(lineName, l)
+	placeLegend(p, pts)
+	return nil
+}
+
+// fitPlot draws a fitted straight line over its range of x, on n points.
+func fitPlot(lo, hi float64, n int, at func(x float64) (float64, bool)) plotter.XYs {
+	var out plotter.XYs
+	for i := range n {
+		x := lo + (hi-lo)*float64(i)/float64(n-1)
+		if y, ok := at(x); ok && !math.IsNaN(y) && !math.IsInf(y, 0) {
+			out = append(out, plotter.XY{X: x, Y: y})
+		}
+	}
+	return out
+}
+
+func span(xs []float64) (lo, hi float64) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, x := range xs {
+		lo, hi = math.Min(lo, x), math.Max(hi, x)
+	}
+	pad := 0.04 * (hi - lo)
+	return lo - pad, hi + pad
+}
+
+// arrheniusPlot is y on a log axis against 1000/T, with the temperature in
+// kelvin under each tick.
+func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit *kinetics.ArrheniusFit) error {
+	x := make([]float64, len(T))
+	pts := make(plotter.XYs, len(T))
+	for i, t := range T {
+		x[i] = 1000 / t
+		pts[i] = plotter.XY{X: x[i], Y: y[i]}
+	}
+	lo, hi := span(x)
+	line := fitPlot(lo, hi, 50, func(x float64) (float64, bool) {
+		return math.Exp(fit.Line.At(x / 1000)), true
+	})
+	p := plot.New()
+	p.Title.Text = "Arrhenius fit, " + file
+	p.X.Label.Text = "1000/T (1/K), T beneath"
+	p.Y.Label.Text = symbol + " (" + unit + "), log scale"
+	p.X.Tick.Marker = inverseTempTicks{}
+	p.Y.Scale = plot.LogScale{}
+	p.Y.Tick.Marker = decadeTicks{}
+	p.X.Min, p.X.Max = lo, hi
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", fit.Q/1e3)); err != nil {
+		return err
+	}
+	return savePlots(pf.path, pf.format, p)
+}
+
+// avramiPlot is the linearized plot, ln(−ln(1−X)) against ln t, of the points used.
+func avramiPlot(pf *plotFlag, file string, t, X []float64, fit *kinetics.AvramiFit) error {
+	var pts plotter.XYs
+	var xs []float64
+	for _, i := range fit.Used {
+		lx := math.Log(t[i])
+		pts = append(pts, plotter.XY{X: lx, Y: math.Log(-math.Log1p(-X[i]))})
+		xs = append(xs, lx)
+	}
+	lo, hi := span(xs)
+	line := fitPlot(lo, hi, 2, func(x float64) (float64, bool) { return fit.Line.At(x), true })
+	p := plot.New()
+	p.Title.Text = "Avrami fit, " + file
+	p.X.Label.Text = "ln(t / 1 s)"
+	p.Y.Label.Text = "ln(-ln(1 - X))"
+	p.X.Min, p.X.Max = lo, hi
+	if err := dataAndLine(p, pts, line, "data used", fmt.Sprintf("fit, n = %.4g", fit.N)); err != nil {
+		return err
+	}
+	return savePlots(pf.path, pf.format, p)
+}
+
+// interfacePlot is two panels: log10 J measured and fitted against T, and
+// the classical straight line.
+func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.InterfaceFit) error {
+	pts := make(plotter.XYs, len(T))
+	for i, t := range T {
+		pts[i] = plotter.XY{X: t, Y: lnJ[i] / math.Ln10}
+	}
+	lo, hi := span(T)
+	line := fitPlot(lo, hi, 60, func(t float64) (float64, bool) {
+		l := fit.Model.LnJ(t)
+		return (l + fit.LnScale) / math.Ln10, !math.IsInf(l, 0)
+	})
+	p := plot.New()
+	p.Title.Text = "interfacial energy fit, " + file
+	p.X.Label.Text = "temperature (K)"
+	p.Y.Label.Text = "log10 J (m^-3 s^-1)"
+	p.X.Tick.Marker = plainTicks{}
+	p.X.Min, p.X.Max = lo, hi
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g J/m2", fit.Gamma)); err != nil {
+		return err
+	}
+	plots := []*plot.Plot{p}
+	if fit.Linear != nil {
+		cp := make(plotter.XYs, len(T))
+		for i := range T {
+			cp[i] = plotter.XY{X: fit.LinearX[i] * 1e20, Y: fit.LinearY[i]}
+		}
+		xlo, xhi := span(fit.LinearX)
+		cl := fitPlot(xlo, xhi, 2, func(x float64) (float64, bool) { return fit.Linear.At(x), true })
+		for i := range cl {
+			cl[i].X *= 1e20
+		}
+		q := plot.New()
+		q.Title.Text = "classical plot (for comparison)"
+		q.X.Label.Text = "1e20/(T dg_v^2) (m6/(J2 K))"
+		q.Y.Label.Text = "ln J - ln D"
+		if fit.Model.Material().Mobility == nil {
+			q.Y.Label.Text = "ln J"
+		}
+		q.X.Min, q.X.Max = xlo*1e20, xhi*1e20
+		name := "straight line"
+		if !math.IsNaN(fit.LinearGamma) {
+			name = fmt.Sprintf("straight line, gamma = %.4g J/m2", fit.LinearGamma)
+		}
+		if err := dataAndLine(q, cp, cl, "data", name); err != nil {
+			return err
+		}
+		plots = append(plots, q)
+	}
+	return savePlots(pf.path, pf.format, plots...)
+}
