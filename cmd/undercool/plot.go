@@ -432,18 +432,18 @@ func readableTime(t float64) string {
 	}
 }
 
-// threeSig formats with three significant digits, in exponent form only
-// for very small or very large values.
+// threeSig formats with three significant digits, trailing zeros kept
+// ("1.00", "59.9", "123"), in exponent form only for very small or very
+// large values.
 func threeSig(x float64) string {
 	if x != 0 && (math.Abs(x) < 1e-3 || math.Abs(x) >= 1e6) {
 		return strconv.FormatFloat(x, 'e', 2, 64)
 	}
-	s := strconv.FormatFloat(x, 'g', 3, 64)
-	if strings.ContainsRune(s, 'e') {
-		// 'g' chose an exponent for a value like 1.23e+05: write it out.
-		return strconv.FormatFloat(x, 'f', 0, 64)
+	if x == 0 {
+		return "0"
 	}
-	return s
+	decimals := max(0, 2-int(math.Floor(math.Log10(math.Abs(x)))))
+	return strconv.FormatFloat(x, 'f', decimals, 64)
 }
 
 // writeRatePlot draws log10 J and u against temperature on plotPoints
