@@ -42,6 +42,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 	var at string
 	fs.StringVar(&at, "at", "", "hold temperature, K, C or F (bare = K), above absolute zero; required")
 	jf := addJMAKFlags(fs, false)
+	sh := addSolutionHoldFlags(fs) // --volume: induction time (solution_hold.go)
 	ff := addFormatFlag(fs)
 	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
@@ -72,6 +73,9 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 		c, md, err := mf.model()
 		if err != nil {
+			return err
+		}
+		if done, err := sh.run(e, c, md, T, X, ff.value); done {
 			return err
 		}
 		if err := transformError(md, j); err != nil {
