@@ -181,7 +181,7 @@ func g(n int) func(float64) string {
 // statsLine describes the scatter of a fit.
 func statsLine(n, dof int, r2, sd float64, of string) string {
 	if dof == 0 {
-		return fmt.Sprintf("points: 2 (exact %s, no scatter to estimate)", "line")
+		return "points: 2 (exact fit, no scatter to estimate)"
 	}
 	return fmt.Sprintf("points: %d, %d degrees of freedom; R2 = %.5f; residual SD = %.3g in %s", n, dof, r2, sd, of)
 }

@@ -98,7 +98,7 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 		r.summary = append(r.summary, "warning: "+wn.Text)
 	}
 	r.summary = append(r.summary,
-		fmt.Sprintf("Q = %s kJ/mol (%.4g eV)%s", kj(fit.Q), fit.Q/(cnt.Avogadro*electronVolt), spreadText(fit.QSE, fit.QCI, kj, " kJ/mol")),
+		fmt.Sprintf("Q = %s kJ/mol (%.0f J/mol, %.4g eV)%s", kj(fit.Q), fit.Q, fit.Q/(cnt.Avogadro*electronVolt), spreadText(fit.QSE, fit.QCI, kj, " kJ/mol")),
 		fmt.Sprintf("pre-exponential = %s %s%s%s", sig(4)(fit.A), q.unit, spreadText(math.NaN(), fit.ACI, g(4), ""), lnText("A", fit.LnA, fit.LnASE, fit.Line.InterceptCI())),
 		statsLine(l.N, l.DoF, l.R2, l.ResidualSD, "ln y"),
 	)
