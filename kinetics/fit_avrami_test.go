@@ -2,6 +2,7 @@ package kinetics
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"testing"
 )
@@ -106,4 +107,22 @@ func TestFitAvramiBadInput(t *testing.T) {
 	if f, _ := FitAvrami([]float64{10, 20}, []float64{0.1, 0.5}, nil); !math.IsNaN(f.TimeTo(1)) || !math.IsNaN(f.TimeTo(0)) {
 		t.Error("TimeTo outside (0,1) must be NaN")
 	}
+}
+
+func ExampleFitAvrami() {
+	// Invented isothermal fractions; the first and last rows (X = 0, X = 1)
+	// are left out of the straight line.
+	t := []float64{0, 60, 120, 180, 240, 300, 900} // s
+	X := []float64{0, 0.05, 0.31, 0.65, 0.88, 0.97, 1}
+	f, err := FitAvrami(t, X, nil)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	ci := f.NCI
+	fmt.Printf("n = %.2f, 95%% [%.2f, %.2f]; left out rows %v\n", f.N, ci[0], ci[1], f.Skipped)
+	fmt.Printf("half time %.0f s, t(0.95) %.0f s\n", f.HalfTime(), f.TimeTo(0.95))
+	// Output:
+	// n = 2.63, 95% [2.42, 2.85]; left out rows [0 6]
+	// half time 157 s, t(0.95) 274 s
 }

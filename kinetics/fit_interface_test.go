@@ -160,3 +160,31 @@ func BenchmarkFitInterface20(b *testing.B) {
 		}
 	}
 }
+
+// Weights are relative: equal weights change nothing, and a point given a
+// tiny weight barely pulls the fit.
+func TestFitInterfaceWeights(t *testing.T) {
+	md := fitDemo(t, PrefactorAttachment)
+	T, lnJ := rateData(md, 1, 880, 1000, 7, 0.05)
+	plain, err := FitInterface(md, T, lnJ, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := []float64{3, 3, 3, 3, 3, 3, 3}
+	same, err := FitInterface(md, T, lnJ, w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !relClose(same.Gamma, plain.Gamma, 1e-7) || !relClose(same.GammaSE, plain.GammaSE, 1e-4) {
+		t.Errorf("equal weights: γ %g ± %g, unweighted %g ± %g", same.Gamma, same.GammaSE, plain.Gamma, plain.GammaSE)
+	}
+	lnJ[3] += 3 // an outlier of 1.3 decades
+	w[3] = 1e-6
+	f, err := FitInterface(md, T, lnJ, w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !relClose(f.Gamma, 0.118, 1e-3) {
+		t.Errorf("down-weighted outlier moved γ to %g", f.Gamma)
+	}
+}
