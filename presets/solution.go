@@ -90,25 +90,25 @@ func (c *Card) solution(m *kinetics.Material) error {
 	case c.Has("supersaturation"):
 		m.Driving = cnt.Supersaturation{S: c.SI("supersaturation")}
 		switch {
-		case c.Has("sat_temp"):
-			m.Te = c.SI("sat_temp")
-		case tab != nil && c.Has("conc"):
+		case tab != nil && c.tableBasis() == "conc":
 			ts, err := saturation(tab, sol)
 			if err != nil {
 				return err
 			}
 			m.Te = ts
+		case c.Has("sat_temp"):
+			m.Te = c.SI("sat_temp")
 		default:
 			return fmt.Errorf("%s: a fixed supersaturation also needs sat_temp, the saturation temperature (it starts every default temperature range and the undercooling column); give it in the card or with --sat-temp", c.File)
 		}
 	case tab != nil:
 		m.Driving = tab
-		if c.Has("conc") {
+		if basis := c.tableBasis(); basis != "sat_temp" {
 			ts, err := saturation(tab, sol)
 			if err != nil {
 				return err
 			}
-			if c.Has("sat_temp") && math.Abs(ts-c.SI("sat_temp")) > 0.01 {
+			if basis == "both" && math.Abs(ts-c.SI("sat_temp")) > 0.01 {
 				return fmt.Errorf("%s: conc %s and sat_temp %s disagree: the solubility table puts the saturation of conc at %.2f K; give one of them", c.File, c.Values["conc"].Text, c.Values["sat_temp"].Text, ts)
 			}
 			m.Te = ts
@@ -149,14 +149,14 @@ func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
 		return nil, nil, row(err)
 	}
 	var conc float64
-	switch {
-	case c.Has("conc"):
+	switch c.tableBasis() {
+	case "conc", "both":
 		v := c.Values["conc"]
 		if v.Kind.Name != sol.Kind.Name {
 			return nil, nil, fmt.Errorf("%s: conc %s is a %s but the solubility table %s is in %s: give both in the same family of units", c.File, v.Text, v.Kind.Name, sol.File, familyName(sol.Kind))
 		}
 		conc = v.SI
-	case c.Has("sat_temp"):
+	case "sat_temp":
 		ts := c.SI("sat_temp")
 		conc = probe.ConcentrationAt(ts)
 		if math.IsNaN(conc) {
@@ -170,6 +170,29 @@ func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
 		return nil, nil, row(err)
 	}
 	return tab, sol, nil
+}
+
+// tableBasis says which value fixes the solution of a solubility table:
+// "conc", "sat_temp", "both" (given alike: they must agree) or "" (neither).
+// A value from the command line wins over the other one from the card.
+func (c *Card) tableBasis() string {
+	hc, hs := c.Has("conc"), c.Has("sat_temp")
+	switch {
+	case hc && hs:
+		lc, ls := c.Values["conc"].Line, c.Values["sat_temp"].Line
+		switch {
+		case lc == 0 && ls > 0:
+			return "conc"
+		case ls == 0 && lc > 0:
+			return "sat_temp"
+		}
+		return "both"
+	case hc:
+		return "conc"
+	case hs:
+		return "sat_temp"
+	}
+	return ""
 }
 
 // saturation is the saturation temperature of a table's concentration; a

@@ -90,6 +90,16 @@ func TestSolutionCardDrivings(t *testing.T) {
 	if tab := md.Material().Driving.(*cnt.SolubilityTable); math.Abs(tab.Conc-0.022) > 1e-15 || md.Material().Te != 303.15 {
 		t.Errorf("table + sat_temp: conc %g, Te %g", tab.Conc, md.Material().Te)
 	}
+	// A value on the card gives way to the other one given on the command line.
+	c, _ := Parse([]byte(solutionCard+`sat_temp = { value = "40 C", source = "invented for the tests" }
+`), "test.toml")
+	c.SolubilityFile = writeTemp(t, "sol.csv", table)
+	if err := c.Set("conc", "15 g/kg", "command line"); err != nil {
+		t.Fatal(err)
+	}
+	if md, err := c.Material(); err != nil || math.Abs(md.Material().Te-293.15) > 1e-9 {
+		t.Errorf("card sat_temp, command-line conc: %v, Te %v; want 293.15", err, md)
+	}
 	// A fixed S wins over the table, which still gives T_sat.
 	md, err = solutionModel(t, map[string]string{"supersaturation": "1.8", "conc": "15 g/kg"}, table)
 	if err != nil {
