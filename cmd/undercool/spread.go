@@ -253,14 +253,16 @@ func effectText(e kinetics.Effect) string {
 		if math.IsNaN(x) {
 			return dash
 		}
+		if math.Abs(x) < 0.005 {
+			return "0.00" // no sign on a change that rounds to nothing
+		}
 		return strconv.FormatFloat(x, 'f', 2, 64)
 	}
-	plus := f(e.Plus)
-	if !math.IsNaN(e.Plus) && e.Plus >= 0 {
+	plus, minus := f(e.Plus), f(e.Minus)
+	if e.Plus >= 0.005 {
 		plus = "+" + plus
 	}
-	minus := f(e.Minus)
-	if !math.IsNaN(e.Minus) && e.Minus >= 0 {
+	if e.Minus >= 0.005 {
 		minus = "+" + minus
 	}
 	return minus + " / " + plus
