@@ -143,6 +143,11 @@ func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
 		}
 		return fmt.Errorf("%s: %v", sol.File, err)
 	}
+	for i, x := range sol.C {
+		if !(x > 0) {
+			return nil, nil, fmt.Errorf("%s:%d: the solubility must be positive", sol.File, sol.Lines[i])
+		}
+	}
 	// Check the rows with a placeholder concentration first.
 	probe, err := cnt.NewSolubilityTable(sol.T, sol.C, 1, sol.File)
 	if err != nil {
@@ -153,9 +158,16 @@ func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
 	case "conc", "both":
 		v := c.Values["conc"]
 		if v.Kind.Name != sol.Kind.Name {
-			return nil, nil, fmt.Errorf("%s: conc %s is a %s but the solubility table %s is in %s: give both in the same family of units", c.File, v.Text, v.Kind.Name, sol.File, familyName(sol.Kind))
+			return nil, nil, fmt.Errorf("%s: conc %s is a %s but the solubility table %s is a %s: give both in the same family of units", c.File, v.Text, familyName(v.Kind), sol.File, familyName(sol.Kind))
 		}
 		conc = v.SI
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for _, x := range sol.C {
+			lo, hi = math.Min(lo, x), math.Max(hi, x)
+		}
+		if !(conc >= lo && conc <= hi) {
+			return nil, nil, fmt.Errorf("%s: conc %s lies outside the solubilities of %s (%.4g to %.4g %s): no saturation temperature in the table", c.File, v.Text, sol.File, lo, hi, sol.Kind.SI)
+		}
 	case "sat_temp":
 		ts := c.SI("sat_temp")
 		conc = probe.ConcentrationAt(ts)

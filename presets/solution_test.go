@@ -164,11 +164,11 @@ func TestSolutionCardErrors(t *testing.T) {
 		{"nothing", nil, "", `driving "solution" needs a supersaturation`},
 		{"fixed S without T_sat", map[string]string{"supersaturation": "2"}, "", "also needs sat_temp"},
 		{"table without conc", nil, good, "needs the solution's concentration"},
-		{"conc in other units", map[string]string{"conc": "0.1 mol/l"}, good, "is a amount concentration but the solubility table"},
-		{"conc outside the table", map[string]string{"conc": "30 g/kg"}, good, "outside the tabulated solubilities"},
+		{"conc in other units", map[string]string{"conc": "0.1 mol/l"}, good, "is a molar concentration but the solubility table"},
+		{"conc outside the table", map[string]string{"conc": "30 g/kg"}, good, "lies outside the solubilities of"},
 		{"sat_temp outside the table", map[string]string{"sat_temp": "50C"}, good, "lies outside the solubility table"},
 		{"conc and sat_temp disagree", map[string]string{"conc": "15 g/kg", "sat_temp": "25C"}, good, "disagree"},
-		{"negative solubility", map[string]string{"conc": "15 g/kg"}, "temperature_k,solubility_g_per_kg\n283.15,10\n293.15,-15\n", "sol.csv:3: solubility must be positive"},
+		{"negative solubility", map[string]string{"conc": "15 g/kg"}, "temperature_k,solubility_g_per_kg\n283.15,10\n293.15,-15\n", "sol.csv:3: the solubility must be positive"},
 		{"non-numeric solubility", map[string]string{"conc": "15 g/kg"}, "temperature_k,solubility_g_per_kg\n283.15,10\n293.15,abc\n", "sol.csv:3:"},
 		{"temperatures not monotonic", map[string]string{"conc": "15 g/kg"}, "temperature_k,solubility_g_per_kg\n283.15,10\n303.15,22\n293.15,15\n", "sol.csv:4: temperatures must be strictly monotonic"},
 		{"solubility not monotonic", map[string]string{"conc": "12 g/kg"}, "temperature_k,solubility_g_per_kg\n283.15,10\n293.15,15\n303.15,14\n", "sol.csv:4: the solubility does not rise"},
@@ -188,7 +188,7 @@ func TestSolutionCardErrors(t *testing.T) {
 		{"supersaturation", "two", "not a number"},
 		{"supersaturation", "nan", "not a number"},
 		{"conc", "-5 g/kg", "must be positive"},
-		{"conc", "5 furlongs", "is not a amount concentration"},
+		{"conc", "5 furlongs", "is not a molar concentration"},
 		{"dh_sol", "-20 kJ/mol", "must be positive"},
 	} {
 		_, err := ParseValue(mustParam(c.key), c.text)

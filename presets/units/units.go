@@ -100,7 +100,7 @@ var (
 	Density = k("density", "kg/m3", false, map[string]unit{
 		"kg/m3": {1, 0}, "g/cm3": {1e3, 0}, "g/ml": {1e3, 0}, "g/l": {1, 0},
 	})
-	AmountConcentration = k("amount concentration", "mol/m3", false, map[string]unit{
+	AmountConcentration = k("molar concentration", "mol/m3", false, map[string]unit{
 		"mol/m3": {1, 0}, "mol/l": {1e3, 0}, "mol/dm3": {1e3, 0}, "mmol/l": {1, 0}, "mmol/ml": {1e3, 0},
 	})
 	MassConcentration = k("mass concentration", "kg/m3", false, map[string]unit{
