@@ -292,7 +292,12 @@ func (c *Cooling) Reach(q, X float64) CCTPoint {
 		panic("kinetics: Cooling.Reach: need q > 0 and 0 < X < 1")
 	}
 	p := CCTPoint{Rate: q}
-	T, ok := c.cross(c.Sums.LnXext, lnXextOf(X)+4*math.Log(q), (*accum).lnXext)
+	level := lnXextOf(X) + 4*math.Log(q)
+	T, ok := c.cross(c.Sums.LnXext, level, (*accum).lnXext)
+	if !ok && c.LnXextUnit() >= level-1e-9 {
+		// reached only at the end of the path (q is the critical rate)
+		T, ok = c.End, true
+	}
 	if ok {
 		p.Reached, p.Temp, p.Time = true, T, (c.Te-T)/q
 	}

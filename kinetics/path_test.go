@@ -437,3 +437,23 @@ func TestTabulatedEqualsDirect(t *testing.T) {
 	}
 	t.Logf("fraction %.4g, additivity sum %.4g", a.Path.Fraction, a.Additivity.Q)
 }
+
+// TestReachAtCriticalRate: at the critical rate the fraction is reached at
+// the end of the path, not "never".
+func TestReachAtCriticalRate(t *testing.T) {
+	md := testModel(t)
+	for _, end := range []float64{0, 600} {
+		c, err := md.LinearCooling(end)
+		if err != nil {
+			t.Fatal(err)
+		}
+		qc := c.CriticalRate(1e-6)
+		p := c.Reach(qc, 1e-6)
+		if !p.Reached || math.Abs(p.Temp-c.End) > 1 {
+			t.Errorf("end %g: at the critical rate X reached %v at %.2f K, want at the end %.2f K", end, p.Reached, p.Temp, c.End)
+		}
+		if p := c.Reach(qc*1.01, 1e-6); p.Reached {
+			t.Errorf("end %g: 1 %% above the critical rate X is reached at %.2f K", end, p.Temp)
+		}
+	}
+}

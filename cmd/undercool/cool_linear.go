@@ -151,7 +151,11 @@ func (lc *linearCool) result(about []string, inputs object) (*result, error) {
 	if lc.V > 0 {
 		r.notes = append(r.notes, "onset: where the expected number of nuclei in the volume, V times the integral of J dt, reaches 1 (the sample is then unfrozen with probability 1/e)")
 	}
-	r.notes = append(r.notes, "no time lag of nucleation and no athermal nuclei; the nose estimate uses the isothermal TTT curve of the same model", caution)
+	r.notes = append(r.notes, "no time lag of nucleation and no athermal (pre-existing) nuclei")
+	if lc.critical {
+		r.notes = append(r.notes, "the nose estimate uses the isothermal TTT curve of the same model (continuous nucleation, JMAK)")
+	}
+	r.notes = append(r.notes, caution)
 	return r, nil
 }
 
