@@ -42,14 +42,15 @@ type InductionFit struct {
 // FitInduction fits γ and A to induction times t (s) measured at
 // temperatures T (K) and supersaturations S, for a crystal of molecular
 // volume v (m³), shape factor f (1 for homogeneous) and vessel volume V
-// (m³; 0 when unknown: A is then not given, only A·V). It returns a
+// (m³; 0 when unknown: A is then not given, only A·V), with optional
+// relative weights w on ln t (nil: equal). It returns a
 // *PointError for a temperature or time that is not positive and finite or
 // an S ≤ 1 (no driving force: no induction time to fit), ErrFewPoints for
 // fewer than two points, ErrSameX when every point has the same
 // 1/(T³·ln²S), and an error when the times do not grow as S falls (slope
 // ≤ 0: no interfacial energy).
-func FitInduction(T, S, t []float64, v, f, V float64) (*InductionFit, error) {
-	if len(T) != len(S) || len(T) != len(t) {
+func FitInduction(T, S, t, w []float64, v, f, V float64) (*InductionFit, error) {
+	if len(T) != len(S) || len(T) != len(t) || (w != nil && len(w) != len(T)) {
 		panic("kinetics: FitInduction: slices differ in length")
 	}
 	if !(v > 0) || !(f > 0 && f <= 1) || !(V >= 0) {
@@ -70,7 +71,7 @@ func FitInduction(T, S, t []float64, v, f, V float64) (*InductionFit, error) {
 		x[i] = 1 / (T[i] * T[i] * T[i] * ls * ls)
 		y[i] = math.Log(t[i])
 	}
-	line, err := FitLine(x, y, nil)
+	line, err := FitLine(x, y, w)
 	if err != nil {
 		return nil, err
 	}

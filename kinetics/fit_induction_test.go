@@ -38,7 +38,7 @@ func inductionData(t *testing.T, noise []float64) (T, S, ti []float64, v float64
 // rounding (the data lie exactly on the line).
 func TestFitInductionRoundTrip(t *testing.T) {
 	T, S, ti, v := inductionData(t, nil)
-	f, err := FitInduction(T, S, ti, v, 1, 1e-4)
+	f, err := FitInduction(T, S, ti, nil, v, 1, 1e-4)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -58,7 +58,7 @@ func TestFitInductionRoundTrip(t *testing.T) {
 		t.Errorf("n* from %g to %g, flags %v: want small_nucleus", f.MinSize, f.MaxSize, f.Flags.Keys())
 	}
 	// Without a volume only A·V is known.
-	f, err = FitInduction(T, S, ti, v, 1, 0)
+	f, err = FitInduction(T, S, ti, nil, v, 1, 0)
 	if err != nil || !math.IsNaN(f.A) || !sameFloat(f.LnAV, math.Log(1e4), 1e-9) {
 		t.Errorf("no volume: A = %g, ln(AV) = %g, err %v", f.A, f.LnAV, err)
 	}
@@ -69,7 +69,7 @@ func TestFitInductionRoundTrip(t *testing.T) {
 // interval width.
 func TestFitInductionScatter(t *testing.T) {
 	T, S, ti, v := inductionData(t, []float64{0.1, -0.2, 0.25, -0.05, 0.3, -0.3, 0.15, -0.1})
-	f, err := FitInduction(T, S, ti, v, 1, 1e-4)
+	f, err := FitInduction(T, S, ti, nil, v, 1, 1e-4)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -105,20 +105,20 @@ func TestFitInductionErrors(t *testing.T) {
 		{"NaN time", []float64{298, 298}, []float64{1.5, 2}, []float64{10, math.NaN()}, "induction time", 1},
 		{"zero temperature", []float64{0, 298}, []float64{1.5, 2}, []float64{10, 5}, "temperature", 0},
 	} {
-		_, err := FitInduction(c.T, c.S, c.t, v, 1, 1e-4)
+		_, err := FitInduction(c.T, c.S, c.t, nil, v, 1, 1e-4)
 		var pe *PointError
 		if !errors.As(err, &pe) || pe.Index != c.index || !strings.Contains(err.Error(), c.msg) {
 			t.Errorf("%s: error %v, want point %d with %q", c.name, err, c.index+1, c.msg)
 		}
 	}
-	if _, err := FitInduction([]float64{298}, []float64{2}, []float64{10}, v, 1, 0); !errors.Is(err, ErrFewPoints) {
+	if _, err := FitInduction([]float64{298}, []float64{2}, []float64{10}, nil, v, 1, 0); !errors.Is(err, ErrFewPoints) {
 		t.Errorf("one point: %v", err)
 	}
-	if _, err := FitInduction([]float64{298, 298}, []float64{2, 2}, []float64{10, 20}, v, 1, 0); !errors.Is(err, ErrSameX) {
+	if _, err := FitInduction([]float64{298, 298}, []float64{2, 2}, []float64{10, 20}, nil, v, 1, 0); !errors.Is(err, ErrSameX) {
 		t.Errorf("same abscissa: %v", err)
 	}
 	// Times that fall as S falls: no γ.
-	if _, err := FitInduction([]float64{298, 298, 298}, []float64{1.5, 2, 3}, []float64{1, 10, 100}, v, 1, 0); err == nil || !strings.Contains(err.Error(), "not positive") {
+	if _, err := FitInduction([]float64{298, 298, 298}, []float64{1.5, 2, 3}, []float64{1, 10, 100}, nil, v, 1, 0); err == nil || !strings.Contains(err.Error(), "not positive") {
 		t.Errorf("wrong-way data: %v", err)
 	}
 }

@@ -67,6 +67,15 @@ func ReadSolubility(path string) (*Solubility, error) {
 	return nil, fmt.Errorf("%s: the solubility column must be solubility_UNIT with UNIT an amount concentration (mol_per_l), a mass concentration (g_per_l, mg_per_ml), a mass ratio (g_per_kg, g_per_100g), or plain \"solubility\" for a mole fraction", path)
 }
 
+// MolarVolume is the card's molar volume of the new phase, m³/mol: vm, or
+// molar_mass/density; false when it has neither.
+func (c *Card) MolarVolume() (float64, bool) {
+	if c.Has("vm") {
+		return c.SI("vm"), true
+	}
+	return c.massVolume()
+}
+
 // massVolume is V_m = M/ρ from molar_mass and density, when both are given.
 func (c *Card) massVolume() (float64, bool) {
 	if c.Has("molar_mass") && c.Has("density") {

@@ -19,17 +19,18 @@ func init() {
 		summary: "Fit a model to measurements in a CSV file whose header names carry units: " +
 			"arrhenius (Q and the pre-exponential from ln y against 1/T), " +
 			"interface (the interfacial energy and a prefactor scale from measured nucleation rates, the rest of the material from --material and flags) or " +
-			"avrami (n and k from transformed fractions against time). " +
+			"avrami (n and k from transformed fractions against time) or " +
+			"induction (the interfacial energy and the apparent prefactor A of a solution from induction times, ln t against 1/(T^3 ln^2 S); columns temperature_UNIT, supersaturation, induction_time_UNIT). " +
 			"Estimates come with standard errors and 95 % intervals (Student t, N - 2 degrees of freedom); two points give the exact answer and no interval. " +
 			"Lines starting with # are comments; FILE - reads standard input.",
-		usage:   "undercool fit arrhenius|interface|avrami FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
+		usage:   "undercool fit arrhenius|interface|avrami|induction FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
 		example: "undercool fit arrhenius testdata/fit/diffusion.csv --card-out solute.toml",
 		setup:   setupFit,
 	}
 }
 
 // fitKinds are the accepted first arguments of fit.
-var fitKinds = []string{"arrhenius", "interface", "avrami"}
+var fitKinds = []string{"arrhenius", "interface", "avrami", "induction"}
 
 // fitFlags are the flags of the fit command.
 type fitFlags struct {
@@ -49,6 +50,7 @@ func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
 	fs.StringVar(&f.kind, "kind", "metal", "kind of material written by arrhenius --card-out without --material: "+strings.Join(presets.KindChoices, ", "))
 	f.pf = addPlotFlag(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot)")
 	f.mf = addMaterialFlags(fs)
+	fi := addFitInductionFlags(fs) // --volume (fit_induction.go)
 	f.ff = addFormatFlag(fs)
 	return func(e *env, args []string) error {
 		if len(args) == 0 {
@@ -78,6 +80,8 @@ func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
 			return f.arrhenius(e, args[1])
 		case "interface":
 			return f.iface(e, args[1])
+		case "induction":
+			return f.induction(e, args[1], fi)
 		default:
 			return f.avrami(e, args[1])
 		}
@@ -85,7 +89,7 @@ func setupFit(fs *pflag.FlagSet) func(*env, []string) error {
 }
 
 // fitOwnFlags are the flags of fit itself; every other flag describes a material.
-var fitOwnFlags = []string{"weights", "card-out", "kind", "plot", "format"}
+var fitOwnFlags = []string{"weights", "card-out", "kind", "plot", "format", "volume"}
 
 // materialGiven returns the name of a material flag that was given, if any.
 func (f *fitFlags) materialGiven() string {

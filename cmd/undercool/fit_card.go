@@ -55,6 +55,13 @@ func cardTOML(c *presets.Card, header []string) []byte {
 		}
 		fmt.Fprintf(&b, "driving_table = %s\n", tomlString(p))
 	}
+	if c.SolubilityFile != "" {
+		p := c.SolubilityFile
+		if abs, err := filepath.Abs(p); err == nil {
+			p = abs
+		}
+		fmt.Fprintf(&b, "solubility_table = %s\n", tomlString(p))
+	}
 	if c.Mobility != "" && c.Mobility != "none" {
 		fmt.Fprintf(&b, "mobility = %s\n", tomlString(c.Mobility))
 	}

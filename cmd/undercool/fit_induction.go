@@ -1,0 +1,209 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"github.com/spf13/pflag"
+
+	"undercool/cnt"
+	"undercool/kinetics"
+	"undercool/presets"
+	"undercool/presets/units"
+)
+
+// fitInductionFlags are the flags only fit induction reads.
+type fitInductionFlags struct {
+	volume string
+	fs     *pflag.FlagSet
+}
+
+func addFitInductionFlags(fs *pflag.FlagSet) *fitInductionFlags {
+	fi := &fitInductionFlags{fs: fs}
+	fs.StringVar(&fi.volume, "volume", "", "fit induction: the volume of each sample, for the prefactor A from A·V, m3, L, mL, uL or mm3 (> 0)")
+	return fi
+}
+
+// inductionColumns are the columns of an induction-time file.
+var inductionColumns = []presets.Column{
+	{Quantity: "temperature", Kind: units.Temperature, Required: true},
+	{Quantity: "supersaturation", Kind: units.Dimensionless, Required: true},
+	{Quantity: "induction_time", Kind: units.Time, Required: true},
+}
+
+// induction fits γ and A to induction times: ln t_ind against 1/(T³·ln²S).
+func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
+	card, err := f.mf.card()
+	if err != nil {
+		return err
+	}
+	vm, ok := card.MolarVolume()
+	if !ok {
+		return usagef("fit induction: give the molar volume of the crystal: --vm, or --molar-mass and --density (or a --material card with them)")
+	}
+	theta := 180.0
+	if card.Has("theta") {
+		theta = card.SI("theta")
+	}
+	shape := cnt.ShapeFactor(theta)
+	V := 0.0
+	if fi.fs.Changed("volume") {
+		if V, err = units.Parse(fi.volume, units.Volume); err != nil {
+			return usagef("--volume: %v", err)
+		}
+		if !(V > 0) {
+			return usagef("--volume: %q must be positive", fi.volume)
+		}
+	}
+	d, w, notes, err := f.readFitData(e, path, inductionColumns)
+	if err != nil {
+		return err
+	}
+	T, S, ti := d.Columns["temperature"], d.Columns["supersaturation"], d.Columns["induction_time"]
+	v := vm / cnt.Avogadro
+	fit, err := kinetics.FitInduction(T, S, ti, w, v, shape, V)
+	if err != nil {
+		var pe *kinetics.PointError
+		if errors.As(err, &pe) || errors.Is(err, kinetics.ErrFewPoints) || errors.Is(err, kinetics.ErrSameX) {
+			return fitError(d, err)
+		}
+		return usagef("%s: %v", d.File, err)
+	}
+	line := fit.Line
+	mj := func(x float64) string { return fmt.Sprintf("%.4g", x*1e3) }
+	about := []string{
+		fmt.Sprintf("material: %s (%s); v = %.4g m3 per molecule (V_m = %.4g m3/mol), f(theta) = %.4g", card.Name, card.File, v, vm, shape),
+		fmt.Sprintf("data: %s, %d points; columns %s, %s, %s%s", d.File, line.N, d.Headers["temperature"], d.Headers["supersaturation"], d.Headers["induction_time"], weighted(w)),
+		"fit: ln t_ind = -ln(A V) + B'/(T^3 ln^2 S), B' = 16 pi f gamma^3 v^2/(3 k_B^3); induction taken as mononuclear, t_ind = 1/(J V), J = A exp(-16 pi f gamma^3 v^2/(3 (k_B T)^3 ln^2 S))",
+	}
+	if V > 0 {
+		about = append(about, fmt.Sprintf("volume of each sample: %s (%.4g m3)", fi.volume, V))
+	}
+	inputs := object{
+		{"material", card.Name}, {"card", card.File}, {"molar_volume_m3_per_mol", vm}, {"molecular_volume_m3", v},
+		{"shape_factor", shape}, {"volume_m3", nanIfZero(V)},
+		{"data_file", d.File}, {"points", line.N}, {"weighted", w != nil},
+	}
+	r := &result{
+		title:  "undercool fit induction: interfacial energy and prefactor from induction times",
+		about:  about,
+		inputs: inputs,
+	}
+	r.summary = []string{
+		fmt.Sprintf("gamma = %.5g J/m2 (%s mJ/m2)%s", fit.Gamma, mj(fit.Gamma), spreadText(fit.GammaSE, fit.GammaCI, mj, " mJ/m2")),
+	}
+	if V > 0 {
+		r.summary = append(r.summary, fmt.Sprintf("A = %s m^-3 s^-1%s", sig(4)(fit.A), spreadText(math.NaN(), fit.ACI, g(4), " m^-3 s^-1"))+lnText("A", fit.LnA, fit.LnASE, [2]float64{-line.InterceptCI()[1] - math.Log(V), -line.InterceptCI()[0] - math.Log(V)}))
+	} else {
+		r.summary = append(r.summary, fmt.Sprintf("A·V = %s s^-1 (give --volume for A itself)", sig(4)(math.Exp(fit.LnAV))))
+	}
+	r.summary = append(r.summary,
+		fmt.Sprintf("slope B' = %.5g K^3, intercept %.5g (ln s)", fit.Slope, line.Intercept),
+		statsLine(line.N, line.DoF, line.R2, line.ResidualSD, "ln t"),
+		fmt.Sprintf("critical nucleus over the data with the fitted gamma: %.3g to %.3g molecules", fit.MinSize, fit.MaxSize))
+	r.extra = object{
+		{"gamma_j_per_m2", fit.Gamma},
+		{"gamma_se_j_per_m2", fit.GammaSE},
+		{"gamma_ci95_j_per_m2", ciJSON(fit.GammaCI)},
+		{"pre_exponential", fit.A},
+		{"pre_exponential_ci95", ciJSON(fit.ACI)},
+		{"ln_pre_exponential", fit.LnA},
+		{"ln_pre_exponential_se", fit.LnASE},
+		{"ln_rate_times_volume_per_s", fit.LnAV},
+		{"slope_k3", fit.Slope},
+		{"intercept_ln_s", line.Intercept},
+		{"r2", line.R2},
+		{"residual_sd_ln", line.ResidualSD},
+		{"degrees_of_freedom", line.DoF},
+		{"student_t", line.T},
+		{"critical_size_min", fit.MinSize},
+		{"critical_size_max", fit.MaxSize},
+		{"flags", nonNil(fit.Flags.Keys())},
+	}
+	r.cols = []column{
+		{"line", "line", nil},
+		{"T (K)", "temperature_k", fixed(2)},
+		{"S", "supersaturation", sig(5)},
+		{"t_ind (s)", "induction_time_s", sig(5)},
+		{"1/(T^3 ln^2 S) (K^-3)", "x_per_k3", sig(5)},
+		{"ln t", "ln_time", fixed(4)},
+		{"fitted", "fitted_ln_time", fixed(4)},
+		{"residual", "residual_ln", fixed(4)},
+		{"n*", "critical_size", sig(4)},
+	}
+	for i := range T {
+		n := cnt.Critical(cnt.Boltzmann*T[i]*math.Log(S[i]), fit.Gamma, v, shape, T[i])
+		r.rows = append(r.rows, []any{
+			fmt.Sprint(d.Lines[i]), T[i], S[i], ti[i], fit.X[i], math.Log(ti[i]),
+			line.At(fit.X[i]), line.Residuals[i], n.Size,
+		})
+	}
+	if line.Exact() {
+		r.notes = append(r.notes, "two points: the line passes through both; no standard errors or intervals")
+	} else {
+		r.notes = append(r.notes, fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom); gamma's interval is the slope's through the cube root, A's is exp of that of ln A", line.T, line.DoF))
+	}
+	r.notes = append(r.notes, flagNotes(fit.Flags)...)
+	if fit.Flags&kinetics.FlagSmallNucleus != 0 {
+		r.notes = append(r.notes, "the fitted gamma gives a critical nucleus below 10 molecules: CNT is outside its range, and gamma and A are apparent values that correlate these data (common for crystallization from solution)")
+	}
+	r.notes = append(r.notes, "induction taken as mononuclear (the wait for the first nucleus); where growth to a detectable amount dominates, the slope still gives gamma but A is not the nucleation prefactor")
+	r.notes = append(r.notes, notes...)
+	r.notes = append(r.notes, caution)
+	if f.cardOut != "" {
+		if !(V > 0) {
+			return usagef("--card-out: the card needs the prefactor A, so give --volume")
+		}
+		c, header, err := inductionCard(card, d, fit)
+		if err != nil {
+			return err
+		}
+		if err := writeCard(f.cardOut, c, header); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "card written: "+f.cardOut)
+	}
+	return r.render(e.stdout, f.ff.value)
+}
+
+func nanIfZero(x float64) float64 {
+	if x == 0 {
+		return math.NaN()
+	}
+	return x
+}
+
+// inductionCard is the material card with the fitted γ and A as a fixed
+// prefactor.
+func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionFit) (*presets.Card, []string, error) {
+	c := *base
+	c.Values = map[string]presets.Value{}
+	for k, v := range base.Values {
+		c.Values[k] = v
+	}
+	if c.File == "command line" {
+		c.Name, c.Kind, c.Driving = "fitted-solution", "solution", "solution"
+	}
+	c.Name += "-fit"
+	c.Description = fmt.Sprintf("%s (gamma and the apparent prefactor A fitted to the induction times of %s)", base.Description, dataName(d))
+	c.Prefactor = "fixed"
+	src := fmt.Sprintf("undercool fit induction of %s, %d points", dataName(d), fit.Line.N)
+	gs, as := src, src
+	if !fit.Line.Exact() {
+		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", fit.GammaCI[0], fit.GammaCI[1])
+		as += fmt.Sprintf(", 95 %% interval %.4g to %.4g m^-3 s^-1", fit.ACI[0], fit.ACI[1])
+	}
+	if err := c.Set("gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs); err != nil {
+		return nil, nil, fmt.Errorf("card: %v", err)
+	}
+	if err := c.Set("j0", fmt.Sprintf("%.7g /m3/s", fit.A), as+"; apparent, belongs with the fitted gamma"); err != nil {
+		return nil, nil, fmt.Errorf("card: %v", err)
+	}
+	header := []string{
+		"Written by undercool fit induction: gamma and the apparent prefactor A (as j0, prefactor fixed)",
+		"fitted to " + dataName(d) + "; every other value as in " + base.File + ".",
+		"Apparent values: they correlate these induction times; the critical nucleus they imply may hold only a few molecules.",
+	}
+	return &c, header, nil
+}
