@@ -156,3 +156,43 @@ func TestAdditivityIsothermal(t *testing.T) {
 		t.Errorf("path integral reaches %g at %g s, JMAK t_X = %g s", X, pr.TimeReached, tx)
 	}
 }
+
+// TestSpecialCases: the documented special inputs, NaN-aware.
+func TestSpecialCases(t *testing.T) {
+	for _, tc := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"Fraction(-Inf): nothing nucleated", Fraction(math.Inf(-1)), 0},
+		{"Fraction(800): saturated", Fraction(800), 1},
+		{"Fraction(ln 1e-9)", Fraction(math.Log(1e-9)), -math.Expm1(-1e-9)},
+		{"C(T) above the solvus", esTest.Time(800), math.Inf(1)},
+		{"ln 1/C at the solvus", esTest.LnInvTime(760), math.Inf(-1)},
+		{"ln 1/C of NaN", esTest.LnInvTime(math.NaN()), math.Inf(-1)},
+		{"nose estimate", NoseEstimate(1000, 800, 4), 50},
+	} {
+		same := tc.got == tc.want || (math.IsNaN(tc.got) && math.IsNaN(tc.want)) || scalar.EqualWithinRel(tc.got, tc.want, 1e-12)
+		if !same {
+			t.Errorf("%s: got %g, want %g", tc.name, tc.got, tc.want)
+		}
+	}
+	// Above T_e the whole path: no nuclei, quench factor 0, nothing retained lost.
+	md := testModel(t)
+	p := LinearPath(1400, 1250, 10, 50)
+	a, err := md.AnalyzeCurve(p, 1e-3, 25)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Path.Fraction != 0 || a.Additivity.Q != 0 || a.Additivity.Reached || a.Additivity.Retained(-0.005) != 1 {
+		t.Errorf("path above T_e: %+v, %+v", a.Path, a.Additivity)
+	}
+	for _, b := range a.Additivity.Bands {
+		if b.Share != 0 || math.IsNaN(b.Share) {
+			t.Errorf("path above T_e: band %+v", b)
+		}
+	}
+	// End at or above T_e is an error, not a panic.
+	if _, err := md.LinearCooling(1300); err == nil {
+		t.Error("end above T_e: no error")
+	}
+}
