@@ -133,11 +133,15 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 	cf := addCoolFlags(fs)
 	pf := addPlotFlag(fs, "draw the CCT curve for --fraction over the TTT curve, with the cooling lines of --rate,")
 	ff := addFormatFlag(fs)
+	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
 		if len(args) > 0 {
 			return usagef("cool: unexpected argument %q", args[0])
 		}
 		if err := ff.check(); err != nil {
+			return err
+		}
+		if err := sf.check(); err != nil {
 			return err
 		}
 		X, err := cf.fractionValue()
@@ -173,13 +177,10 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 			if pf.wanted() {
 				return usagef("--plot: draws the CCT of linear cooling; it does not apply to --curve")
 			}
-			return runCurve(e, fs, mf, cf, ff.value, X, V, band)
+			return runCurve(e, fs, mf, cf, ff.value, X, V, band, sf)
 		}
 		c, md, err := mf.model()
 		if err != nil {
-			return err
-		}
-		if done, err := solutionCool(e, cf, c, md, V, ff.value); done { // solution_cool.go
 			return err
 		}
 		if err := coolError(md); err != nil {
@@ -208,6 +209,10 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 		lc := &linearCool{cl: cl, md: md, X: X, V: V, rates: rates, critical: cf.critical, name: c.Name}
 		r, err := lc.result(about, inputs)
 		if err != nil {
+			return err
+		}
+		heads, eval := coolHeadlines(end, X, V, rates, cf.critical)
+		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {
 			return err
 		}
 		var out bytes.Buffer

@@ -117,7 +117,7 @@ func bandRows(q kinetics.QuenchResult) [][]any {
 	return rows
 }
 
-func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, format string, X, V, band float64) error {
+func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, format string, X, V, band float64, sf *spreadFlags) error {
 	var es *kinetics.EvanchoStaley
 	if cf.set("c-curve") {
 		c, err := parseCCurve(cf.ccurve)
@@ -149,11 +149,14 @@ func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, forma
 	var extra object
 	var quench *kinetics.QuenchResult
 	k1 := 0.0
+	var card *presets.Card
+	var model *kinetics.Model
 	if withMaterial {
 		c, md, err := mf.model()
 		if err != nil {
 			return err
 		}
+		card, model = c, md
 		if err := coolError(md); err != nil {
 			return err
 		}
@@ -233,5 +236,11 @@ func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, forma
 		fmt.Sprintf("the table is where along the curve the quench factor was collected: bands of %g K, hottest first", band),
 		"additivity (Scheil) treats the path as a sequence of isothermal holds; it is exact only for isokinetic transformations (Cahn 1956)",
 		caution)
+	if model != nil {
+		heads, eval := curveHeadlines(p, X, V, band)
+		if err := sf.apply(e, r, card, model, heads, eval, nil); err != nil {
+			return err
+		}
+	}
 	return r.render(e.stdout, format)
 }

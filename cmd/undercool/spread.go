@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -500,6 +501,104 @@ func holdHeadlines(T, X float64, j kinetics.JMAK) ([]headline, kinetics.Eval) {
 			t = math.Inf(1)
 		}
 		return []float64{t}, nil
+	}
+	return heads, eval
+}
+
+// coolHeadlines are the bands of linear cooling to end (0: automatic):
+// the critical cooling rate for X (with critical), the fraction at the end
+// for each rate, and with a volume V > 0 the onset undercooling at the
+// critical rate or at each rate (no answer where no nucleus is expected).
+func coolHeadlines(end, X, V float64, rates []float64, critical bool) ([]headline, kinetics.Eval) {
+	var heads []headline
+	several := len(rates) > 1
+	if critical {
+		heads = append(heads, headline{key: "critical_cooling_rate_k_per_s", label: "critical cooling rate", log: true, text: rateText, row: -1})
+		if V > 0 {
+			heads = append(heads, headline{key: "onset_undercooling_k", label: "onset undercooling at the critical rate", text: kelvin, row: -1})
+		}
+	}
+	for _, q := range rates {
+		suffix, label := "", ""
+		if several {
+			suffix, label = "_at_"+strconv.FormatFloat(q, 'g', 4, 64)+"_k_per_s", " at "+rateText(q)
+		} else {
+			label = " at " + rateText(q)
+		}
+		heads = append(heads, headline{key: "fraction" + suffix, label: "fraction" + label, log: true, text: sig3, row: -1})
+		if V > 0 {
+			heads = append(heads, headline{key: "onset_undercooling_k" + suffix, label: "onset undercooling" + label, text: kelvin, row: -1})
+		}
+	}
+	eval := func(md *kinetics.Model) ([]float64, error) {
+		out := make([]float64, 0, len(heads))
+		c, err := md.LinearCooling(end)
+		if err != nil {
+			if errors.Is(err, kinetics.ErrEndAboveTe) {
+				// This sample's T_e lies below the end: no path, no answer.
+				for range heads {
+					out = append(out, math.NaN())
+				}
+				return out, nil
+			}
+			return nil, err
+		}
+		onset := func(q float64) float64 {
+			o := c.Onset(V, q)
+			if !o.Reached {
+				return math.NaN()
+			}
+			return c.Te - o.Temp
+		}
+		if critical {
+			qc := c.CriticalRate(X)
+			out = append(out, qc)
+			if V > 0 {
+				if qc > 0 {
+					out = append(out, onset(qc))
+				} else {
+					out = append(out, math.NaN())
+				}
+			}
+		}
+		for _, q := range rates {
+			out = append(out, c.Fraction(q))
+			if V > 0 {
+				out = append(out, onset(q))
+			}
+		}
+		return out, nil
+	}
+	return heads, eval
+}
+
+// sig3 writes a value with three significant digits.
+func sig3(x float64) string { return sig(3)(x) }
+
+// curveHeadlines are the bands of a measured cooling curve: the fraction
+// at its end, the onset undercooling in a volume V > 0 (no answer where no
+// nucleus is expected) and the additivity sum.
+func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, kinetics.Eval) {
+	heads := []headline{{key: "fraction", label: "fraction at the end of the curve", log: true, text: sig3, row: -1}}
+	if V > 0 {
+		heads = append(heads, headline{key: "onset_undercooling_k", label: "onset undercooling", text: kelvin, row: -1})
+	}
+	heads = append(heads, headline{key: "additivity_sum", label: "additivity sum", log: true, text: sig3, row: -1})
+	eval := func(md *kinetics.Model) ([]float64, error) {
+		a, err := md.AnalyzeCurve(p, X, band)
+		if err != nil {
+			return nil, err
+		}
+		out := []float64{a.Path.Fraction}
+		if V > 0 {
+			o := kinetics.OnsetAlong(p, a.Sums, V)
+			if o.Reached {
+				out = append(out, md.Material().Te-o.Temp)
+			} else {
+				out = append(out, math.NaN())
+			}
+		}
+		return append(out, a.Additivity.Q), nil
 	}
 	return heads, eval
 }
