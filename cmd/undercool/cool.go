@@ -183,6 +183,9 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 		if err != nil {
 			return err
 		}
+		if done, err := solutionCool(e, cf, c, md, V, ff.value); done { // solution_cool.go
+			return err
+		}
 		if err := coolError(md); err != nil {
 			return err
 		}
