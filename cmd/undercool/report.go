@@ -356,9 +356,15 @@ func (m *memo) write(b *bytes.Buffer, date, command string) {
 	m.writeUncertainty(b)
 
 	if m.plot != "" {
-		b.WriteString("\n## TTT plot\n\n")
-		fmt.Fprintf(b, "![TTT curve of %s for X = %s](%s)\n\n", c.Name, X, m.link)
-		fmt.Fprintf(b, "Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.\n", X)
+		if m.withCCT() {
+			b.WriteString("\n## TTT and CCT plot\n\n")
+			fmt.Fprintf(b, "![TTT and CCT curves of %s for X = %s](%s)\n\n", c.Name, X, m.link)
+			fmt.Fprintf(b, "Temperature against log time: the isothermal TTT curve to X = %s with its nose marked, the CCT curve (where linear cooling from T_e reaches X) and the cooling line at the critical rate; T_e (and T_g where the card has one) are dashed.\n", X)
+		} else {
+			b.WriteString("\n## TTT plot\n\n")
+			fmt.Fprintf(b, "![TTT curve of %s for X = %s](%s)\n\n", c.Name, X, m.link)
+			fmt.Fprintf(b, "Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.\n", X)
+		}
 	}
 
 	b.WriteString("\n## Validity flags\n\n")
@@ -522,9 +528,22 @@ func (m *memo) gammaGuide(g float64) (string, bool) {
 	return effectText(kinetics.Effect{Minus: d[0], Plus: d[1]}), true
 }
 
-// writePlot draws the TTT curve beside the memo.
+// withCCT reports whether the plot shows the CCT curve over the TTT one:
+// for continuous nucleation without a time lag, when something nucleates
+// on linear cooling.
+func (m *memo) withCCT() bool {
+	return m.cool != nil && m.j == (kinetics.JMAK{}) && criticalRate(m.cool, m.X) > 0
+}
+
+// writePlot draws the TTT curve beside the memo, with the CCT curve and
+// the cooling line at the critical rate over it where there is one (the
+// figure of undercool cool --critical --plot).
 func (m *memo) writePlot() error {
 	pf := &plotFlag{path: m.plot, format: "svg"}
+	if m.withCCT() {
+		lc := &linearCool{cl: m.cool, md: m.md, X: m.X, critical: true, name: m.card.Name, qc: criticalRate(m.cool, m.X)}
+		return lc.plot(pf)
+	}
 	return writeTTTPlot(pf, m.md, m.card.Name, []float64{m.X}, m.j, m.lo, m.hi, m.ttt)
 }
 
