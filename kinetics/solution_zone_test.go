@@ -87,3 +87,14 @@ func TestMetastableZoneEdges(t *testing.T) {
 		t.Errorf("fast cooling: %+v, %v; want not reached", o, err)
 	}
 }
+
+// BenchmarkMetastableZone is one onset: ZonePoints evaluations of the
+// model along the path and one pass of the running integrals.
+func BenchmarkMetastableZone(b *testing.B) {
+	md := zoneModel(b)
+	for b.Loop() {
+		if _, err := md.MetastableZone(1e-4, 0.5/60, 263.15); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
