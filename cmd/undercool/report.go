@@ -30,8 +30,8 @@ const reportRows = 11
 
 // reportFlags are the flags of report besides the material and spreads.
 type reportFlags struct {
-	out, plot, at, date, format string
-	fs                          *pflag.FlagSet
+	out, plot, at, date, format, curve, volume string
+	fs                                         *pflag.FlagSet
 }
 
 // memo is everything the memo shows, computed before a byte is written.
@@ -48,6 +48,10 @@ type memo struct {
 	at     float64 // 0: no hold asked
 	hold   kinetics.State
 	holdT  float64 // time to X at `at`, s; +Inf never
+	V      float64 // sample volume, m³ (0: none)
+	path   *kinetics.Path
+	pathD  *presets.Data
+	curve  kinetics.CurveAnalysis
 	flags  kinetics.Flag
 	plan   *spreadPlan
 	u      *kinetics.Uncertainty
@@ -62,6 +66,8 @@ func setupReport(fs *pflag.FlagSet) func(*env, []string) error {
 	fs.StringVar(&rf.out, "out", "", "the memo, FILE.md, or - for standard output; required")
 	jf := addJMAKFlags(fs, false)
 	fs.StringVar(&rf.at, "at", "", "also answer for a hold (storage, anneal) at this temperature, K, C or F (bare = K)")
+	fs.StringVar(&rf.curve, "curve", "", "also answer for a measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c)")
+	fs.StringVar(&rf.volume, "volume", "", "sample volume for the onset of nucleation at the critical rate and on --curve, m3, mm3, uL, mL or L (> 0)")
 	fs.StringVar(&rf.plot, "plot", "", "the TTT plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
 	fs.StringVar(&rf.date, "date", "", "the memo's date, YYYY-MM-DD (default: today, UTC)")
 	fs.StringVar(&rf.format, "format", "", "not used: the memo is always Markdown")
@@ -98,8 +104,21 @@ func setupReport(fs *pflag.FlagSet) func(*env, []string) error {
 				return err
 			}
 		}
+		if fs.Changed("volume") {
+			cf := &coolFlags{volume: rf.volume}
+			if m.V, err = cf.volumeValue(); err != nil {
+				return err
+			}
+		}
 		if m.plot, m.link, err = rf.plotPath(); err != nil {
 			return err
+		}
+		if fs.Changed("curve") {
+			p, d, err := readCurve(rf.curve, e)
+			if err != nil {
+				return err
+			}
+			m.path, m.pathD = &p, d
 		}
 		if m.card, m.md, err = mf.model(); err != nil {
 			return err
@@ -114,8 +133,8 @@ func setupReport(fs *pflag.FlagSet) func(*env, []string) error {
 			return err
 		}
 		if m.plan != nil {
-			var eval kinetics.Eval
-			m.heads, eval = m.headlines()
+			_, heads, eval := m.results()
+			m.heads = heads
 			if m.u, err = m.plan.run(e, m.md, m.heads, eval); err != nil {
 				return err
 			}
@@ -238,8 +257,17 @@ func (m *memo) compute() error {
 		}
 		m.flags |= m.hold.Flags
 	}
+	if m.path != nil {
+		var err error
+		if m.curve, err = m.md.AnalyzeCurve(*m.path, m.X, curveBand); err != nil {
+			return fmt.Errorf("report: %v", err)
+		}
+	}
 	return nil
 }
+
+// curveBand is the width of the temperature bands of the additivity sum, K.
+const curveBand = 25.0
 
 // criticalRate is the critical cooling rate of a cooling, NaN without one.
 func criticalRate(c *kinetics.Cooling, X float64) float64 {
@@ -249,38 +277,105 @@ func criticalRate(c *kinetics.Cooling, X float64) float64 {
 	return c.CriticalRate(X)
 }
 
-// headlines are the memo's banded results: nose, critical rate, hold.
-func (m *memo) headlines() ([]headline, kinetics.Eval) {
-	heads, tttEval := tttHeadlines([]float64{m.X}, m.j, m.lo, m.hi)
-	cool := m.cool != nil
-	if cool {
-		heads = append(heads, headline{key: "critical_cooling_rate_k_per_s", label: "critical cooling rate", log: true, text: rateText, row: -1})
-	}
-	var holdEval kinetics.Eval
-	if m.at > 0 {
-		var h []headline
-		h, holdEval = holdHeadlines(m.at, m.X, m.j)
+// memoLine is one row of the memo's results table; head is the index of
+// its band among the headlines, -1 for none.
+type memoLine struct {
+	label, value string
+	head         int
+}
+
+// results are the rows of the results table, the banded headlines among
+// them and the evaluation of one sample for those headlines.
+func (m *memo) results() ([]memoLine, []headline, kinetics.Eval) {
+	var lines []memoLine
+	var heads []headline
+	var evals []kinetics.Eval
+	add := func(h []headline, eval kinetics.Eval) int {
 		heads = append(heads, h...)
+		evals = append(evals, eval)
+		return len(heads) - len(h)
 	}
-	eval := func(md *kinetics.Model) ([]float64, error) {
-		out, err := tttEval(md)
-		if err != nil {
-			return nil, err
+	mat := m.md.Material()
+
+	h, eval := tttHeadlines([]float64{m.X}, m.j, m.lo, m.hi)
+	k := add(h, eval)
+	noseT, noseTime := dash, dash
+	switch {
+	case m.nose.Inside():
+		t, _ := secondsOf(m.nose.LnTime)
+		noseT = fmt.Sprintf("%.2f K (%.2f °C)", m.nose.T, m.nose.T-273.15)
+		noseTime = readableTime(t)
+	case math.IsNaN(m.nose.T):
+		noseT, noseTime = "none: nothing transforms in the range", "never"
+	default:
+		noseT = "not inside the searched range"
+	}
+	lines = append(lines, memoLine{"nose temperature", noseT, k}, memoLine{"nose time to X", noseTime, k + 1})
+
+	if m.cool != nil {
+		qc := criticalRate(m.cool, m.X)
+		h, eval := coolHeadlines(0, m.X, m.V, nil, true)
+		k := add(h, eval)
+		lines = append(lines, memoLine{"critical cooling rate", rateText(qc), k})
+		if m.nose.Inside() {
+			t, _ := secondsOf(m.nose.LnTime)
+			est := kinetics.NoseEstimate(mat.Te, m.nose.T, t)
+			lines = append(lines, memoLine{"nose estimate (T_e − T_nose)/t_nose (overstates the rate)", rateText(est), -1})
 		}
-		if cool {
-			c, err := md.LinearCooling(0)
+		if m.V > 0 {
+			v := "none: fewer than one nucleus expected"
+			if qc > 0 {
+				if o := m.cool.Onset(m.V, qc); o.Reached {
+					v = fmt.Sprintf("%.2f K, at %.2f K", mat.Te-o.Temp, o.Temp)
+				}
+			}
+			lines = append(lines, memoLine{fmt.Sprintf("onset undercooling in %.4g m³ at the critical rate", m.V), v, k + 1})
+		}
+	}
+	if m.at > 0 {
+		h, eval := holdHeadlines(m.at, m.X, m.j)
+		k := add(h, eval)
+		lines = append(lines, memoLine{fmt.Sprintf("time to X at %.2f K (%.2f °C)", m.at, m.at-273.15), readableTime(m.holdT), k})
+	}
+	if m.path != nil {
+		a := m.curve
+		h, eval := curveHeadlines(*m.path, m.X, m.V, curveBand)
+		k := add(h, eval)
+		lines = append(lines, memoLine{"fraction at the end of the curve", sig3(a.Path.Fraction), k})
+		reached := "not reached"
+		if a.Path.Reached {
+			reached = fmt.Sprintf("at %.2f K, %s into the curve", a.Path.TempReached, readableTime(a.Path.TimeReached))
+		}
+		lines = append(lines, memoLine{"X reached on the curve", reached, -1})
+		next := k + 1
+		if m.V > 0 {
+			v := "none: fewer than one nucleus expected"
+			if o := kinetics.OnsetAlong(*m.path, a.Sums, m.V); o.Reached {
+				v = fmt.Sprintf("%.2f K, at %.2f K, %s into the curve", mat.Te-o.Temp, o.Temp, readableTime(o.Time))
+			}
+			lines = append(lines, memoLine{fmt.Sprintf("onset undercooling in %.4g m³ on the curve", m.V), v, next})
+			next++
+		}
+		sum := sig3(a.Additivity.Q)
+		if a.Additivity.Reached {
+			sum += fmt.Sprintf(", reaches 1 at %.2f K", a.Additivity.TempReached)
+		} else {
+			sum += ", does not reach 1"
+		}
+		lines = append(lines, memoLine{"additivity sum ∫dt/t_X on the curve", sum, next})
+	}
+	all := func(md *kinetics.Model) ([]float64, error) {
+		var out []float64
+		for _, ev := range evals {
+			r, err := ev(md)
 			if err != nil {
 				return nil, err
 			}
-			out = append(out, criticalRate(c, m.X))
-		}
-		if holdEval != nil {
-			h, _ := holdEval(md)
-			out = append(out, h...)
+			out = append(out, r...)
 		}
 		return out, nil
 	}
-	return heads, eval
+	return lines, heads, all
 }
 
 // rateText writes a cooling rate, K/s.
@@ -310,6 +405,14 @@ func (m *memo) write(b *bytes.Buffer, date, command string) {
 	}
 	if m.at > 0 {
 		fmt.Fprintf(b, "- How long can it be held at %.2f K (%.2f °C) before X = %s transforms?\n", m.at, m.at-273.15, X)
+	}
+	if m.V > 0 && m.cool != nil {
+		fmt.Fprintf(b, "- Where does the first nucleus appear in a sample of %.4g m³ cooled at the critical rate?\n", m.V)
+	}
+	if m.path != nil {
+		n := len(m.path.Time)
+		fmt.Fprintf(b, "- What did the measured cooling curve %s (%d points, %.2f to %.2f K over %s) do: the fraction at its end and the additivity sum?\n",
+			m.pathD.File, n, m.path.Temp[0], m.path.Temp[n-1], readableTime(m.path.Time[n-1]-m.path.Time[0]))
 	}
 	b.WriteString("\n## Material\n\n")
 	fmt.Fprintf(b, "Card: %s (%s)", c.Name, c.File)
@@ -389,53 +492,19 @@ func (m *memo) write(b *bytes.Buffer, date, command string) {
 
 // writeResults is the results table and the short TTT table.
 func (m *memo) writeResults(b *bytes.Buffer) {
-	mat := m.md.Material()
-	type line struct {
-		label string
-		value string
-		key   string // headline key, "" for none
-	}
-	noseT, noseTime := dash, dash
-	switch {
-	case m.nose.Inside():
-		t, _ := secondsOf(m.nose.LnTime)
-		noseT = fmt.Sprintf("%.2f K (%.2f °C)", m.nose.T, m.nose.T-273.15)
-		noseTime = readableTime(t)
-	case math.IsNaN(m.nose.T):
-		noseT, noseTime = "none: nothing transforms in the range", "never"
-	default:
-		noseT = "not inside the searched range"
-	}
-	lines := []line{
-		{"nose temperature", noseT, "nose_temperature_k"},
-		{"nose time to X", noseTime, "nose_time_s"},
-	}
-	if m.cool != nil {
-		qc := criticalRate(m.cool, m.X)
-		lines = append(lines, line{"critical cooling rate", rateText(qc), "critical_cooling_rate_k_per_s"})
-		if m.nose.Inside() {
-			t, _ := secondsOf(m.nose.LnTime)
-			est := kinetics.NoseEstimate(mat.Te, m.nose.T, t)
-			lines = append(lines, line{"nose estimate (T_e − T_nose)/t_nose (overstates the rate)", rateText(est), ""})
-		}
-	}
-	if m.at > 0 {
-		lines = append(lines, line{fmt.Sprintf("time to X at %.2f K (%.2f °C)", m.at, m.at-273.15), readableTime(m.holdT), "time_s"})
-	}
+	lines, _, _ := m.results()
 	cols := []column{{"result", "", nil}, {"value", "", nil}}
 	if m.u != nil {
 		cols = append(cols, column{"P5", "", nil}, column{"P50", "", nil}, column{"P95", "", nil})
 	}
 	var rows [][]any
 	for _, l := range lines {
-		row := []any{l.label, l.value}
+		row := []any{mdEscape(l.label), mdEscape(l.value)}
 		if m.u != nil {
 			p5, p50, p95 := "", "", ""
-			for k, h := range m.heads {
-				if h.key == l.key && l.key != "" {
-					bd := m.u.Bands[k]
-					p5, p50, p95 = h.text(bd.P5), h.text(bd.P50), h.text(bd.P95)
-				}
+			if l.head >= 0 {
+				h, bd := m.heads[l.head], m.u.Bands[l.head]
+				p5, p50, p95 = h.text(bd.P5), h.text(bd.P50), h.text(bd.P95)
 			}
 			row = append(row, p5, p50, p95)
 		}

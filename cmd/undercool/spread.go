@@ -581,7 +581,7 @@ func sig3(x float64) string { return sig(3)(x) }
 func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, kinetics.Eval) {
 	heads := []headline{{key: "fraction", label: "fraction at the end of the curve", log: true, text: sig3, row: -1}}
 	if V > 0 {
-		heads = append(heads, headline{key: "onset_undercooling_k", label: "onset undercooling", text: kelvin, row: -1})
+		heads = append(heads, headline{key: "onset_undercooling_k", label: "onset undercooling on the curve", text: kelvin, row: -1})
 	}
 	heads = append(heads, headline{key: "additivity_sum", label: "additivity sum", log: true, text: sig3, row: -1})
 	eval := func(md *kinetics.Model) ([]float64, error) {
