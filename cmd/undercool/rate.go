@@ -119,6 +119,7 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 			all |= s.Flags
 			r.rows = append(r.rows, rateRow(md, s))
 		}
+		addSupersaturationColumn(r, md, temps) // solution_flags.go
 		r.notes = flagNotes(all)
 		if !md.HasRate() {
 			r.notes = append(r.notes, "no rate: the material has no mobility law; give --mobility with its values, or --prefactor fixed with --j0")

@@ -65,3 +65,24 @@ func describeSolution(c *presets.Card, md *kinetics.Model, lines []string, input
 	inputs = append(inputs, kv{"solution", in})
 	return lines, inputs
 }
+
+// addSupersaturationColumn puts the supersaturation S(T) beside the
+// undercooling in a rate table of a solution (T_sat − T alone does not say
+// how supersaturated the solution is). The rows must be rateRow's.
+func addSupersaturationColumn(r *result, md *kinetics.Model, temps []float64) {
+	sol, ok := md.Solution()
+	if !ok || len(r.cols) < 3 {
+		return
+	}
+	const at = 3 // after T (K), T (°C), ΔT (K)
+	cols := make([]column, 0, len(r.cols)+1)
+	cols = append(cols, r.cols[:at]...)
+	cols = append(cols, column{"S", "supersaturation", sig(4)})
+	r.cols = append(cols, r.cols[at:]...)
+	for i, row := range r.rows {
+		out := make([]any, 0, len(row)+1)
+		out = append(out, row[:at]...)
+		out = append(out, math.Exp(sol.LnS(temps[i])))
+		r.rows[i] = append(out, row[at:]...)
+	}
+}
