@@ -51,6 +51,8 @@ func listMaterials(e *env, format string) error {
 		te := math.NaN()
 		if c.Has("te") {
 			te = c.SI("te")
+		} else if c.Driving == "solution" && c.Has("sat_temp") {
+			te = c.SI("sat_temp") // a solution's equilibrium is its saturation temperature
 		}
 		r.rows = append(r.rows, []any{c.Name, c.Kind, te, c.Description})
 	}
