@@ -32,6 +32,11 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 	if !sh.fs.Changed("volume") {
 		return false, nil
 	}
+	for _, n := range []string{"lag", "nuclei"} {
+		if sh.fs.Changed(n) {
+			return true, usagef("--%s and --volume: the induction time is for nuclei forming at the steady rate; give one or the other", n)
+		}
+	}
 	V, err := units.Parse(sh.volume, units.Volume)
 	if err != nil {
 		return true, usagef("--volume: %v", err)
@@ -144,6 +149,9 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 		r.notes = append(r.notes, fmt.Sprintf("the critical nucleus holds %.2g molecules: CNT is outside its range; with an apparent gamma and prefactor fitted to induction times the times are a correlation of those measurements, not a prediction", s.Nucleus.Size))
 	}
 	r.notes = append(r.notes, "induction times: mononuclear 1/(J V), polynuclear [3(-ln(1-X))/(pi J u^3)]^(1/4); the longer one dominates (Kashchiev and van Rosmalen, Cryst. Res. Technol. 38 (2003) 555)")
+	if len(c.Spreads) > 0 && !(sh.fs.Changed("no-spread")) {
+		r.notes = append(r.notes, "the card's [spread] table is not sampled for induction times: no uncertainty bands here")
+	}
 	r.notes = append(r.notes, caution)
 	return true, r.render(e.stdout, format)
 }
