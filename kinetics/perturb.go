@@ -13,6 +13,7 @@ import (
 var ParamKeys = []string{
 	"te", "dh", "dcp", "vm", "gamma", "theta", "sites", "j0",
 	"d0", "q", "vft_a", "vft_b", "vft_t0", "tg", "wlf_c1", "wlf_c2", "eta_g", "jump",
+	"supersaturation", "sat_temp", "dh_sol", "solvent_viscosity", "solute_diffusivity", "number_conc",
 }
 
 // paramRange is where a parameter may lie: lo < x ≤ hi, or lo ≤ x ≤ hi
@@ -53,15 +54,20 @@ func rangeOf(key string) paramRange {
 }
 
 // IsMultiplicative reports whether a parameter is strictly positive and
-// acts as a factor on a rate (d0, j0, sites, eta_g): its spread is
+// acts as a factor on a rate (d0, j0, sites, eta_g, and for solutions
+// solvent_viscosity, solute_diffusivity and number_conc): its spread is
 // log-normal. Every other parameter's spread is normal.
 func IsMultiplicative(key string) bool {
-	switch key {
-	case "d0", "j0", "sites", "eta_g":
-		return true
+	for _, k := range LogNormalKeys {
+		if k == key {
+			return true
+		}
 	}
 	return false
 }
+
+// LogNormalKeys are the parameters for which IsMultiplicative holds.
+var LogNormalKeys = []string{"d0", "j0", "sites", "eta_g", "solvent_viscosity", "solute_diffusivity", "number_conc"}
 
 func knownParam(key string) bool {
 	for _, k := range ParamKeys {
@@ -166,6 +172,38 @@ func (m Material) Param(key string) (float64, error) {
 			return m.Tg, nil
 		}
 		return missing("no glass transition given")
+	case "supersaturation":
+		d, ok := m.Driving.(cnt.Supersaturation)
+		if !ok {
+			return missing("the driving force " + drivingName(m) + " is not a fixed supersaturation")
+		}
+		return d.S, nil
+	case "sat_temp", "dh_sol":
+		d, ok := m.Driving.(cnt.VantHoff)
+		if !ok {
+			return missing("the driving force " + drivingName(m) + " is not the van 't Hoff solubility law")
+		}
+		if key == "sat_temp" {
+			return d.Tsat, nil
+		}
+		return d.DHsol, nil
+	case "solvent_viscosity":
+		v, ok := m.Mobility.(SolventViscosity)
+		if !ok {
+			return missing("mobility " + mobilityName(m) + ", not stokes-einstein")
+		}
+		return v.Eta, nil
+	case "solute_diffusivity":
+		v, ok := m.Mobility.(SoluteDiffusivity)
+		if !ok {
+			return missing("mobility " + mobilityName(m) + ", not diffusivity")
+		}
+		return v.D, nil
+	case "number_conc":
+		if m.Prefactor != PrefactorDiffusion {
+			return missing("number_conc is used only with prefactor diffusion")
+		}
+		return m.Conc, nil
 	default: // wlf_c1, wlf_c2, eta_g
 		w, ok := m.Mobility.(WLF)
 		if !ok {
@@ -253,7 +291,33 @@ func (m Material) WithParam(key string, x float64) Material {
 				mob.Jump = m.JumpDistance()
 			}
 			m.Mobility = mob
+		case SolventViscosity:
+			if mob.Jump == old {
+				mob.Jump = m.JumpDistance()
+			}
+			m.Mobility = mob
 		}
+	case "supersaturation":
+		m.Driving = cnt.Supersaturation{S: x}
+	case "sat_temp", "dh_sol":
+		d := m.Driving.(cnt.VantHoff)
+		if key == "sat_temp" {
+			if m.Te == d.Tsat {
+				m.Te = x
+			}
+			d.Tsat = x
+		} else {
+			d.DHsol = x
+		}
+		m.Driving = d
+	case "solvent_viscosity":
+		v := m.Mobility.(SolventViscosity)
+		v.Eta = x
+		m.Mobility = v
+	case "solute_diffusivity":
+		m.Mobility = SoluteDiffusivity{D: x}
+	case "number_conc":
+		m.Conc = x
 	case "gamma":
 		m.Gamma = x
 	case "theta":

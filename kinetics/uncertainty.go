@@ -7,6 +7,7 @@ import (
 	"math/rand/v2"
 	"runtime"
 	"sort"
+	"strings"
 	"sync"
 	"sync/atomic"
 
@@ -81,7 +82,7 @@ func NewSpread(m Material, key string, form SpreadForm, x float64) (Spread, erro
 		case Relative:
 			s.SD = x * math.Abs(base)
 		default:
-			return Spread{}, fmt.Errorf("%s: a factor spread (xF) is only for the log-normal parameters d0, j0, sites and eta_g; give an absolute value with its unit or a percentage", key)
+			return Spread{}, fmt.Errorf("%s: a factor spread (xF) is only for the log-normal parameters %s; give an absolute value with its unit or a percentage", key, strings.Join(LogNormalKeys, ", "))
 		}
 		return s, nil
 	}

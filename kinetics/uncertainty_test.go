@@ -360,6 +360,29 @@ func TestWithParam(t *testing.T) {
 	if got, want := w.Mobility.(VFT).Jump, 2*m.JumpDistance(); math.Abs(got-want) > 1e-12*want {
 		t.Errorf("vft jump %v after vm ×8, want %v", got, want)
 	}
+	// Solutions: the van 't Hoff law follows sat_temp, and T_e with it; a
+	// Stokes–Einstein solute's diameter follows vm.
+	sol := m
+	sol.Driving, sol.Te = cnt.VantHoff{Tsat: 320, DHsol: 25e3}, 320
+	sol.Mobility = SolventViscosity{Eta: 1e-3, Jump: m.JumpDistance()}
+	s2 := sol.WithParam("sat_temp", 330).WithParam("dh_sol", 30e3).WithParam("solvent_viscosity", 2e-3).WithParam("vm", 8*sol.Vm)
+	if d := s2.Driving.(cnt.VantHoff); d.Tsat != 330 || d.DHsol != 30e3 || s2.Te != 330 {
+		t.Errorf("van 't Hoff after WithParam: %+v, Te %v", d, s2.Te)
+	}
+	if v := s2.Mobility.(SolventViscosity); v.Eta != 2e-3 || math.Abs(v.Jump-2*m.JumpDistance()) > 1e-12*v.Jump {
+		t.Errorf("solvent viscosity after WithParam: %+v", v)
+	}
+	if s, err := NewSpread(sol, "solvent_viscosity", Relative, 0.1); err != nil || s.Dist != LogNormal {
+		t.Errorf("solvent_viscosity spread %+v, %v: want log-normal", s, err)
+	}
+	if _, err := NewSpread(sol, "supersaturation", Relative, 0.1); err == nil || !strings.Contains(err.Error(), "not a fixed supersaturation") {
+		t.Errorf("supersaturation on a van 't Hoff solution: %v", err)
+	}
+	fixed := sol
+	fixed.Driving = cnt.Supersaturation{S: 2}
+	if got := fixed.WithParam("supersaturation", 2.5).Driving.(cnt.Supersaturation).S; got != 2.5 {
+		t.Errorf("supersaturation %v, want 2.5", got)
+	}
 	cp := m
 	cp.Driving = cnt.ConstantCp{Te: 1150, DH: 14.2e3, DCp: 5}
 	if d := cp.WithParam("dcp", 7).Driving.(cnt.ConstantCp); d.DCp != 7 || d.Te != 1150 {

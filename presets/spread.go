@@ -87,7 +87,7 @@ func ParseSpread(key, text string) (SpreadSpec, error) {
 		return s, nil
 	case strings.HasPrefix(t, "x") || strings.HasPrefix(t, "×"):
 		if !kinetics.IsMultiplicative(key) {
-			return s, fmt.Errorf("%s: a factor spread (%s) is only for the log-normal parameters d0, j0, sites and eta_g; give a percentage or a value with its unit", key, t)
+			return s, fmt.Errorf("%s: a factor spread (%s) is only for the log-normal parameters %s; give a percentage or a value with its unit", key, t, strings.Join(kinetics.LogNormalKeys, ", "))
 		}
 		x, err := number(strings.TrimPrefix(strings.TrimPrefix(t, "x"), "×"))
 		if err != nil {

@@ -554,7 +554,7 @@ func (m *memo) writeUncertainty(b *bytes.Buffer) {
 		st.rows = append(st.rows, []any{s.Key, mdEscape(s.Text), su.Dist.String(), strings.TrimSpace(sd), fmt.Sprint(su.Redrawn), mdEscape(s.Source)})
 	}
 	_ = writeTable(b, st.cols, st.rows, true)
-	b.WriteString("\nLog-normal spreads (d0, j0, sites, eta_g) take the card value as the median; normal ones are centred on it. A draw outside a value's allowed range is drawn again.\n\n")
+	fmt.Fprintf(b, "\nLog-normal spreads (%s) take the card value as the median; normal ones are centred on it. A draw outside a value's allowed range is drawn again.\n\n", strings.Join(kinetics.LogNormalKeys, ", "))
 
 	scratch := &result{}
 	addUncertainty(scratch, m.plan, m.u, m.heads, nil)

@@ -38,7 +38,7 @@ type spreadFlags struct {
 // addSpreadFlags registers the uncertainty flags of a command.
 func addSpreadFlags(fs *pflag.FlagSet) *spreadFlags {
 	sf := &spreadFlags{fs: fs}
-	fs.StringArrayVar(&sf.given, "spread", nil, "standard deviation of an input, NAME=VALUE, repeatable: relative (gamma=2%), absolute with its unit (q=3kJ/mol, te=5K) or a factor (d0=x3); normal, log-normal for d0, j0, sites and eta_g")
+	fs.StringArrayVar(&sf.given, "spread", nil, "standard deviation of an input, NAME=VALUE, repeatable: relative (gamma=2%), absolute with its unit (q=3kJ/mol, te=5K) or a factor (d0=x3); normal, log-normal for "+strings.Join(kinetics.LogNormalKeys, ", "))
 	fs.IntVar(&sf.samples, "samples", defaultSamples, fmt.Sprintf("Monte Carlo samples for the uncertainty bands, 1 to %d", maxSamples))
 	fs.Uint64Var(&sf.seed, "seed", 1, "seed of the random draws, 0 to 2^64-1; the same seed gives the same bands on any number of cores")
 	fs.BoolVar(&sf.none, "no-spread", false, "ignore the [spread] table of the material card")
@@ -368,7 +368,7 @@ func addUncertainty(r *result, p *spreadPlan, u *kinetics.Uncertainty, heads []h
 		given = append(given, spreadDescription(s, u.Spreads[i]))
 	}
 	r.notes = append(r.notes, "spreads, drawn independently: "+strings.Join(given, "; "))
-	r.notes = append(r.notes, "normal spreads are absolute or relative to the value; log-normal ones (d0, j0, sites, eta_g) have the value as median; quantiles: "+kinetics.QuantileDefinition)
+	r.notes = append(r.notes, "normal spreads are absolute or relative to the value; log-normal ones ("+strings.Join(kinetics.LogNormalKeys, ", ")+") have the value as median; quantiles: "+kinetics.QuantileDefinition)
 	for _, su := range u.Spreads {
 		if su.Redrawn > 0 {
 			r.notes = append(r.notes, fmt.Sprintf("%s: %d draws fell outside %s and were drawn again (the distribution is truncated there)", su.Key, su.Redrawn, su.Range))
