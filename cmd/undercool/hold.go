@@ -45,6 +45,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 	sh := addSolutionHoldFlags(fs) // --volume: induction time (solution_hold.go)
 	ff := addFormatFlag(fs)
 	sf := addSpreadFlags(fs)
+	sh.sf = sf
 	return func(e *env, args []string) error {
 		if len(args) > 0 {
 			return usagef("hold: unexpected argument %q", args[0])

@@ -17,6 +17,7 @@ import (
 type solutionHoldFlags struct {
 	volume string
 	fs     *pflag.FlagSet
+	sf     *spreadFlags // the uncertainty flags of hold (spread.go)
 }
 
 func addSolutionHoldFlags(fs *pflag.FlagSet) *solutionHoldFlags {
@@ -47,10 +48,11 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 	if !md.HasRate() {
 		return true, usagef("the material has no nucleation rate, so no induction time: give --prefactor fixed with --j0 (the apparent A that fit induction gives), or a mobility law (--solvent-viscosity, --solute-diffusivity, --d0 and --q)")
 	}
-	lnU, growthFrom := math.NaN(), "model"
-	if c.Has("growth_rate") {
-		lnU, growthFrom = math.Log(c.SI("growth_rate")), "growth_rate"
-	} else if !md.HasGrowth() {
+	lnU, growthFrom := math.NaN(), "model" // NaN: the model's u(T), a measured growth_rate where given
+	switch {
+	case md.Material().Growth > 0:
+		growthFrom = "growth_rate"
+	case !md.HasGrowth():
 		growthFrom = "none"
 	}
 	in := md.InductionAt(T, V, X, lnU)
@@ -115,10 +117,7 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 			s.Nucleus.Radius*1e9, s.Nucleus.Size, s.Nucleus.Barrier, s.Nucleus.Barrier/kT))
 	}
 	r.summary = append(r.summary, "nucleation rate: log10 J = "+fixed(3)(none(s.Log10J(), true))+" (J in m^-3 s^-1)")
-	u := math.Exp(lnU)
-	if math.IsNaN(lnU) {
-		u = s.Growth
-	}
+	u := s.Growth
 	r.summary = append(r.summary, "growth rate: u = "+sig(4)(u)+" m/s ("+growthFrom+")")
 
 	polyJSON := poly
@@ -149,8 +148,11 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 		r.notes = append(r.notes, fmt.Sprintf("the critical nucleus holds %.2g molecules: CNT is outside its range; with an apparent gamma and prefactor fitted to induction times the times are a correlation of those measurements, not a prediction", s.Nucleus.Size))
 	}
 	r.notes = append(r.notes, "induction times: mononuclear 1/(J V), polynuclear [3(-ln(1-X))/(pi J u^3)]^(1/4); the longer one dominates (Kashchiev and van Rosmalen, Cryst. Res. Technol. 38 (2003) 555)")
-	if len(c.Spreads) > 0 && !(sh.fs.Changed("no-spread")) {
-		r.notes = append(r.notes, "the card's [spread] table is not sampled for induction times: no uncertainty bands here")
+	if sh.sf != nil {
+		heads, eval := inductionHeadlines(T, V, X, lnU)
+		if err := sh.sf.apply(e, r, c, md, heads, eval, nil); err != nil {
+			return true, err
+		}
 	}
 	r.notes = append(r.notes, caution)
 	return true, r.render(e.stdout, format)

@@ -602,3 +602,22 @@ func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, kinetics.E
 	}
 	return heads, eval
 }
+
+// inductionHeadlines is the band of the induction time of a volume V held
+// at T until X (hold --volume): the longer of the mononuclear and the
+// polynuclear time; lnU is the growth rate to use (NaN: the model's own).
+// For the solution hold to call as
+//
+//	heads, eval := inductionHeadlines(T, V, X, lnU)
+//	err := sf.apply(e, r, c, md, heads, eval, nil)
+func inductionHeadlines(T, V, X, lnU float64) ([]headline, kinetics.Eval) {
+	heads := []headline{{key: "induction_time_s", label: fmt.Sprintf("induction time at %.2f K", T), log: true, text: seconds, row: -1}}
+	eval := func(md *kinetics.Model) ([]float64, error) {
+		t := md.InductionAt(T, V, X, lnU).Time()
+		if math.IsNaN(t) {
+			t = math.Inf(1)
+		}
+		return []float64{t}, nil
+	}
+	return heads, eval
+}
