@@ -136,6 +136,9 @@ func (a Avrami) Fraction(t float64) float64 {
 //
 // −Inf without driving force or mobility, NaN without a mobility law.
 func (md *Model) lnGrowth(s State) float64 {
+	if md.m.Growth > 0 {
+		return math.Log(s.Growth) // a measured rate (solution.go); −Inf without driving force
+	}
 	if math.IsNaN(s.LnD) {
 		return math.NaN()
 	}

@@ -57,6 +57,7 @@ type Material struct {
 	Jump      float64   // jump distance λ, m (0: v^(1/3))
 	Tg        float64   // glass transition, K (0: none), for ranges and flags
 	Conc      float64   // solute molecules per m³ in solution, for PrefactorDiffusion
+	Growth    float64   // measured growth rate u, m/s, in place of the mobility law's (0: from the mobility law)
 }
 
 // MolecularVolume is v = V_m/N_A, m³.
@@ -125,7 +126,7 @@ func NewModel(m Material) (*Model, error) {
 	for _, c := range []struct {
 		name string
 		x    float64
-	}{{"sites", m.Sites}, {"jump", m.Jump}, {"tg", m.Tg}, {"j0", m.J0}} {
+	}{{"sites", m.Sites}, {"jump", m.Jump}, {"tg", m.Tg}, {"j0", m.J0}, {"growth_rate", m.Growth}} {
 		if c.x != 0 {
 			if err := positive(c.name, c.x); err != nil {
 				return nil, err
@@ -225,5 +226,6 @@ func (md *Model) HasRate() bool {
 	return md.m.Mobility != nil || md.m.Prefactor == PrefactorFixed
 }
 
-// HasGrowth reports whether the model can give a growth rate (it has a mobility law).
-func (md *Model) HasGrowth() bool { return md.m.Mobility != nil }
+// HasGrowth reports whether the model can give a growth rate (it has a
+// mobility law or a measured growth rate).
+func (md *Model) HasGrowth() bool { return md.m.Mobility != nil || md.m.Growth > 0 }

@@ -48,6 +48,19 @@ func (m SolventViscosity) LnDiffusivity(T float64) float64 {
 }
 func (SolventViscosity) Name() string { return "stokes-einstein" }
 
+// measuredGrowth is a measured growth rate u (m/s) used in place of the
+// mobility law's: u where there is a driving force, 0 where there is none
+// (a crystal does not grow from a solution that is not supersaturated).
+// Measured rates of crystals in solution are far below the interface-
+// controlled (D/λ)·[1 − exp(−Δμ/k_BT)] with the solvent's diffusivity, which
+// leaves out the integration of molecules into the crystal surface.
+func measuredGrowth(u, dmu float64) float64 {
+	if !(dmu > 0) {
+		return 0
+	}
+	return u
+}
+
 // checkDiffusion is the check NewModel makes of a material with the
 // diffusion-controlled prefactor.
 func checkDiffusion(m Material) error {

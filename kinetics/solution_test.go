@@ -195,3 +195,35 @@ func TestInductionAt(t *testing.T) {
 		t.Errorf("S = 1: times %g, %g, want +Inf", in.Mono(), in.PolyTime())
 	}
 }
+
+// A measured growth rate replaces the mobility law's u(T): the same u at
+// every supersaturated temperature, 0 without driving force, and the JMAK
+// time of Continuous with it (Johnson and Mehl 1939, as in jmak.go).
+func TestMeasuredGrowth(t *testing.T) {
+	m := testSolute(cnt.VantHoff{Tsat: 313.15, DHsol: 28e3}, 313.15)
+	m.Prefactor, m.J0, m.Growth = kinetics.PrefactorFixed, 1e3, 1e-8
+	md, err := kinetics.NewModel(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !md.HasGrowth() {
+		t.Fatal("a measured growth rate is a growth law")
+	}
+	for _, c := range []struct{ T, want float64 }{{298.15, 1e-8}, {283.15, 1e-8}, {313.15, 0}, {320, 0}} {
+		if got := md.GrowthRate(c.T); got != c.want {
+			t.Errorf("u(%g) = %g, want %g", c.T, got, c.want)
+		}
+	}
+	if got := md.LnGrowth(320); !math.IsInf(got, -1) {
+		t.Errorf("ln u above T_sat = %g, want −Inf", got)
+	}
+	s, a := md.Isothermal(298.15, kinetics.JMAK{})
+	want := math.Pow(3*-math.Log1p(-1e-6)/(math.Pi*math.Exp(s.LnJ)*1e-24), 0.25)
+	if got := a.Time(1e-6); !solClose(got, want, 1e-12) {
+		t.Errorf("t(X = 1e-6) = %g s, want %g s", got, want)
+	}
+	m.Growth = -1
+	if _, err := kinetics.NewModel(m); err == nil {
+		t.Errorf("negative growth rate accepted")
+	}
+}

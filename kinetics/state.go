@@ -139,6 +139,9 @@ func (md *Model) At(T float64) State {
 			}
 		}
 	}
+	if md.m.Growth > 0 {
+		s.Growth = measuredGrowth(md.m.Growth, s.Dmu) // solution.go
+	}
 	s.LnJ = md.lnRate(s, T)
 	return s
 }

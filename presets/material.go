@@ -97,6 +97,7 @@ func (c *Card) Material() (*kinetics.Model, error) {
 	m.J0 = c.orDefault("j0", 0)
 	m.Jump = c.orDefault("jump", 0)
 	m.Tg = c.orDefault("tg", 0)
+	m.Growth = c.orDefault("growth_rate", 0)
 	jump := m.JumpDistance()
 	switch c.Mobility {
 	case "arrhenius":

@@ -48,10 +48,11 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 	if !md.HasRate() {
 		return true, usagef("the material has no nucleation rate, so no induction time: give --prefactor fixed with --j0 (the apparent A that fit induction gives), or a mobility law (--solvent-viscosity, --solute-diffusivity, --d0 and --q)")
 	}
-	lnU, growthFrom := math.NaN(), "model"
-	if c.Has("growth_rate") {
-		lnU, growthFrom = math.Log(c.SI("growth_rate")), "growth_rate"
-	} else if !md.HasGrowth() {
+	lnU, growthFrom := math.NaN(), "model" // NaN: the model's u(T), a measured growth_rate where given
+	switch {
+	case md.Material().Growth > 0:
+		growthFrom = "growth_rate"
+	case !md.HasGrowth():
 		growthFrom = "none"
 	}
 	in := md.InductionAt(T, V, X, lnU)
@@ -116,10 +117,7 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 			s.Nucleus.Radius*1e9, s.Nucleus.Size, s.Nucleus.Barrier, s.Nucleus.Barrier/kT))
 	}
 	r.summary = append(r.summary, "nucleation rate: log10 J = "+fixed(3)(none(s.Log10J(), true))+" (J in m^-3 s^-1)")
-	u := math.Exp(lnU)
-	if math.IsNaN(lnU) {
-		u = s.Growth
-	}
+	u := s.Growth
 	r.summary = append(r.summary, "growth rate: u = "+sig(4)(u)+" m/s ("+growthFrom+")")
 
 	polyJSON := poly
