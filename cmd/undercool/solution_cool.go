@@ -17,17 +17,21 @@ const DefaultZoneEnd = 0.8
 // solutionCool answers cool --rate for a solution: the metastable zone
 // width, the onset of the first nucleus in --volume cooled at each rate
 // from the saturation temperature. It reports whether it handled the
-// command (false: not a solution, the ordinary cool goes on).
+// command (false: not a solution, or no --volume for a solution with a
+// growth rate: the ordinary cool, the transformed fraction, goes on).
 func solutionCool(e *env, cf *coolFlags, c *presets.Card, md *kinetics.Model, V float64, format string) (bool, error) {
 	sol, ok := md.Solution()
 	if !ok || !cf.set("rate") {
 		return false, nil
 	}
+	if !cf.set("volume") {
+		if md.HasGrowth() {
+			return false, nil // the transformed fraction on cooling, as for a melt
+		}
+		return true, usagef("--volume: required for a cooled solution: the metastable zone ends where the expected number of nuclei in the volume, V times the integral of J dt, reaches 1")
+	}
 	if _, fixed := sol.(cnt.Supersaturation); fixed {
 		return true, usagef("cool: a fixed supersaturation does not change on cooling; the metastable zone width needs a solubility law: --sat-temp with --dh-sol, or a solubility table (--solubility FILE.csv with --conc)")
-	}
-	if !cf.set("volume") {
-		return true, usagef("--volume: required for a cooled solution: the metastable zone ends where the expected number of nuclei in the volume, V times the integral of J dt, reaches 1")
 	}
 	if !md.HasRate() {
 		return true, usagef("the material has no nucleation rate, so no metastable zone: give --prefactor fixed with --j0 (the apparent A that fit induction gives), or a mobility law (--solvent-viscosity, --solute-diffusivity)")
