@@ -6,6 +6,8 @@ import (
 	"math"
 
 	"github.com/spf13/pflag"
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
 
 	"undercool/cnt"
 	"undercool/kinetics"
@@ -151,10 +153,16 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 	r.notes = append(r.notes, "induction taken as mononuclear (the wait for the first nucleus); where growth to a detectable amount dominates, the slope still gives gamma but A is not the nucleation prefactor")
 	r.notes = append(r.notes, notes...)
 	r.notes = append(r.notes, caution)
-	if f.cardOut != "" {
-		if !(V > 0) {
-			return usagef("--card-out: the card needs the prefactor A, so give --volume")
+	if f.cardOut != "" && !(V > 0) {
+		return usagef("--card-out: the card needs the prefactor A, so give --volume")
+	}
+	if f.pf.wanted() {
+		if err := inductionPlot(f.pf, dataName(d), ti, fit); err != nil {
+			return err
 		}
+		r.notes = append(r.notes, "plot written: "+f.pf.path)
+	}
+	if f.cardOut != "" {
 		c, header, err := inductionCard(card, d, fit)
 		if err != nil {
 			return err
@@ -206,4 +214,29 @@ func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionF
 		"Apparent values: they correlate these induction times; the critical nucleus they imply may hold only a few molecules.",
 	}
 	return &c, header, nil
+}
+
+// inductionPlot is the induction time on a log axis against 1/(T³·ln²S),
+// with the fitted straight line.
+func inductionPlot(pf *plotFlag, file string, t []float64, fit *kinetics.InductionFit) error {
+	pts := make(plotter.XYs, len(t))
+	for i := range t {
+		pts[i] = plotter.XY{X: fit.X[i] * 1e8, Y: t[i]}
+	}
+	lo, hi := span(fit.X)
+	line := fitPlot(lo, hi, 50, func(x float64) (float64, bool) { return math.Exp(fit.Line.At(x)), true })
+	for i := range line {
+		line[i].X *= 1e8
+	}
+	p := plot.New()
+	p.Title.Text = "induction times, " + file
+	p.X.Label.Text = "1/(T^3 ln^2 S) (1e-8 K^-3)"
+	p.Y.Label.Text = "induction time (s), log scale"
+	p.Y.Scale = plot.LogScale{}
+	p.Y.Tick.Marker = decadeTicks{}
+	p.X.Min, p.X.Max = lo*1e8, hi*1e8
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g mJ/m2", fit.Gamma*1e3)); err != nil {
+		return err
+	}
+	return savePlots(pf.path, pf.format, p)
 }
