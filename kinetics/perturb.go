@@ -36,8 +36,8 @@ func (r paramRange) contains(x float64) bool {
 
 var (
 	anyRange      = paramRange{math.Inf(-1), math.Inf(1), true, "any finite value"}
-	positiveRange = paramRange{0, math.Inf(1), false, "positive values"}
-	nonNegRange   = paramRange{0, math.Inf(1), true, "values >= 0"}
+	positiveRange = paramRange{0, math.Inf(1), false, "(0, ∞)"}
+	nonNegRange   = paramRange{0, math.Inf(1), true, "[0, ∞)"}
 	angleRange    = paramRange{0, 180, false, "(0, 180] degrees"}
 )
 

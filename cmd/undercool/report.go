@@ -442,7 +442,11 @@ func (m *memo) write(b *bytes.Buffer, date, command string) {
 	fmt.Fprintf(b, "- transformation: %s\n", m.j.Describe())
 	fmt.Fprintf(b, "- nose: searched between %.2f and %.2f K to %.2g K (a bracketing search, not read off the table)\n", m.lo, m.hi, kinetics.NoseTolerance)
 	if m.cool != nil {
-		fmt.Fprintf(b, "- critical cooling rate: linear cooling from T_e = %.2f K to %.2f K (%s), from the exact extended-volume integral, which scales as q⁻⁴\n", mat.Te, m.cool.End, m.cool.Reason)
+		lag := ""
+		if m.j.Lag {
+			lag = "; steady nucleation from the start, without the time lag of the TTT curve"
+		}
+		fmt.Fprintf(b, "- critical cooling rate: linear cooling from T_e = %.2f K to %.2f K (%s), from the exact extended-volume integral, which scales as q⁻⁴%s\n", mat.Te, m.cool.End, m.cool.Reason, lag)
 	} else if m.coolEr != nil {
 		fmt.Fprintf(b, "- critical cooling rate: not computed (%v)\n", m.coolEr)
 	}
