@@ -183,7 +183,7 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 		if err != nil {
 			return err
 		}
-		if done, err := solutionCool(e, cf, c, md, V, ff.value); done { // solution_cool.go
+		if done, err := solutionCool(e, cf, pf, c, md, V, ff.value); done { // solution_cool.go
 			return err
 		}
 		if err := coolError(md); err != nil {

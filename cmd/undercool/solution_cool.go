@@ -4,6 +4,9 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+
 	"undercool/cnt"
 	"undercool/kinetics"
 	"undercool/presets"
@@ -19,7 +22,7 @@ const DefaultZoneEnd = 0.8
 // from the saturation temperature. It reports whether it handled the
 // command (false: not a solution, or no --volume for a solution with a
 // growth rate: the ordinary cool, the transformed fraction, goes on).
-func solutionCool(e *env, cf *coolFlags, c *presets.Card, md *kinetics.Model, V float64, format string) (bool, error) {
+func solutionCool(e *env, cf *coolFlags, pf *plotFlag, c *presets.Card, md *kinetics.Model, V float64, format string) (bool, error) {
 	sol, ok := md.Solution()
 	if !ok || !cf.set("rate") {
 		return false, nil
@@ -114,7 +117,45 @@ func solutionCool(e *env, cf *coolFlags, c *presets.Card, md *kinetics.Model, V 
 	}
 	r.notes = append(r.notes, "this is the onset of the first nucleus; a measured width also needs the crystals to grow to a detectable amount, so it is wider (Kubota N., J. Cryst. Growth 310 (2008) 629)")
 	r.notes = append(r.notes, caution)
+	if pf.wanted() {
+		var pts plotter.XYs
+		for _, row := range r.rows {
+			if w, ok := row[4].(float64); ok && !math.IsNaN(w) {
+				pts = append(pts, plotter.XY{X: row[0].(float64), Y: w})
+			}
+		}
+		if len(pts) == 0 {
+			return true, usagef("--plot: no rate reaches an onset on this path; nothing to draw")
+		}
+		if err := zonePlot(pf, c.Name, pts); err != nil {
+			return true, err
+		}
+		r.notes = append(r.notes, "plot written: "+pf.path)
+	}
 	return true, r.render(e.stdout, format)
+}
+
+// zonePlot draws the metastable zone width against the cooling rate, the
+// rate on a log axis.
+func zonePlot(pf *plotFlag, name string, pts plotter.XYs) error {
+	l, s, err := plotter.NewLinePoints(pts)
+	if err != nil {
+		return fmt.Errorf("--plot: %v", err)
+	}
+	l.Color, s.Color = curveColor(0), curveColor(0)
+	p := plot.New()
+	p.Title.Text = "metastable zone width, " + name
+	p.X.Label.Text = "cooling rate (K/min), log scale"
+	p.Y.Label.Text = "width T_sat - T_onset (K)"
+	p.X.Scale = plot.LogScale{}
+	p.X.Tick.Marker = plot.LogTicks{}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, q := range pts {
+		lo, hi = math.Min(lo, q.X), math.Max(hi, q.X)
+	}
+	p.X.Min, p.X.Max = lo/1.5, hi*1.5 // room for the decade labels at the ends
+	p.Add(plotter.NewGrid(), l, s)
+	return savePlots(pf.path, pf.format, p)
 }
 
 // expectedText writes a small expected number of nuclei from its logarithm.
