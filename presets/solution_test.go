@@ -259,3 +259,29 @@ func checkSolution(t *testing.T, c *Card, m *kinetics.Model) {
 		t.Errorf("n* = %g not flagged", s.Nucleus.Size)
 	}
 }
+
+// Each family of concentration units reads, and the family is kept.
+func TestReadSolubilityFamilies(t *testing.T) {
+	for _, c := range []struct {
+		header string
+		si     float64 // of the value 2 in the file
+		family string
+	}{
+		{"solubility_mol_per_l", 2000, "molar concentration"},
+		{"solubility_g_per_l", 2, "mass concentration"},
+		{"solubility_mg_per_ml", 2, "mass concentration"},
+		{"solubility_g_per_kg", 0.002, "mass ratio"},
+		{"solubility_g_per_100g", 0.02, "mass ratio"},
+		{"solubility", 2, "number"},
+	} {
+		p := writeTemp(t, "s.csv", "temperature_k,"+c.header+"\n300,1\n310,2\n")
+		sol, err := ReadSolubility(p)
+		if err != nil {
+			t.Errorf("%s: %v", c.header, err)
+			continue
+		}
+		if math.Abs(sol.C[1]-c.si) > 1e-12*c.si || sol.Kind.Name != c.family {
+			t.Errorf("%s: value %g (%s), want %g (%s)", c.header, sol.C[1], sol.Kind.Name, c.si, c.family)
+		}
+	}
+}
