@@ -18,8 +18,8 @@ import (
 
 func init() {
 	commands["report"] = &command{
-		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate and a hold time, with uncertainty bands, the sensitivity ranking, the TTT plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
-		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
+		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve) and the onset in a sample (--volume), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
+		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
 		example: "undercool report --material demo-alloy --at 900K --spread gamma=2% --spread d0=x2 --out memo.md",
 		setup:   setupReport,
 	}
@@ -68,7 +68,7 @@ func setupReport(fs *pflag.FlagSet) func(*env, []string) error {
 	fs.StringVar(&rf.at, "at", "", "also answer for a hold (storage, anneal) at this temperature, K, C or F (bare = K)")
 	fs.StringVar(&rf.curve, "curve", "", "also answer for a measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c)")
 	fs.StringVar(&rf.volume, "volume", "", "sample volume for the onset of nucleation at the critical rate and on --curve, m3, mm3, uL, mL or L (> 0)")
-	fs.StringVar(&rf.plot, "plot", "", "the TTT plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
+	fs.StringVar(&rf.plot, "plot", "", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
 	fs.StringVar(&rf.date, "date", "", "the memo's date, YYYY-MM-DD (default: today, UTC)")
 	fs.StringVar(&rf.format, "format", "", "not used: the memo is always Markdown")
 	_ = fs.MarkHidden("format")
