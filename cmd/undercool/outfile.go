@@ -22,6 +22,11 @@ func writeFileAtomic(path string, write func(io.Writer) error) error {
 		tmp.Close()
 		return err
 	}
+	// CreateTemp makes the file private (0600); an output is an ordinary file.
+	if err := tmp.Chmod(0o644); err != nil {
+		tmp.Close()
+		return fmt.Errorf("cannot write %s: %v", path, err)
+	}
 	if err := tmp.Sync(); err != nil {
 		tmp.Close()
 		return fmt.Errorf("cannot write %s: %v", path, err)
