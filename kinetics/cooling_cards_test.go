@@ -5,23 +5,7 @@ import (
 	"testing"
 
 	"undercool/kinetics"
-	"undercool/presets"
 )
-
-// card returns the model of a shipped card, or skips the test if the card
-// is not shipped.
-func card(t testing.TB, name string) *kinetics.Model {
-	t.Helper()
-	c, err := presets.Preset(name)
-	if err != nil {
-		t.Skipf("card %s not shipped: %v", name, err)
-	}
-	md, err := c.Material()
-	if err != nil {
-		t.Fatalf("card %s: %v", name, err)
-	}
-	return md
-}
 
 // TestCriticalRateBMG: the Zr-based bulk metallic glass Vit1 forms a glass
 // at about 1 K/s: Kim Y.J., Busch R., Johnson W.L., Rulison A.J., Rhim W.K.,
@@ -29,7 +13,7 @@ func card(t testing.TB, name string) *kinetics.Model {
 // magnitude: within a factor of 10 either way, since γ enters cubed in an
 // exponent and the card's γ is uncertain by several per cent.
 func TestCriticalRateBMG(t *testing.T) {
-	md := card(t, "vit1")
+	md := shippedModel(t, "vit1")
 	c, err := md.LinearCooling(0)
 	if err != nil {
 		t.Fatal(err)
@@ -58,7 +42,7 @@ func TestCriticalRateBMG(t *testing.T) {
 // with the cards' interfacial energies puts Ag and Au near 4·10^11.
 func TestCriticalRateMetals(t *testing.T) {
 	for _, name := range []string{"ni", "cu", "al", "fe", "ag", "au"} {
-		md := card(t, name)
+		md := shippedModel(t, name)
 		c, err := md.LinearCooling(0)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
@@ -78,7 +62,7 @@ func TestCriticalRateMetals(t *testing.T) {
 func TestMaxUndercoolingMetals(t *testing.T) {
 	V := 4.0 / 3 * math.Pi * math.Pow(25e-6, 3)
 	for _, name := range []string{"ni", "cu", "al", "fe", "ag", "au"} {
-		md := card(t, name)
+		md := shippedModel(t, name)
 		c, err := md.LinearCooling(0)
 		if err != nil {
 			t.Fatal(err)
@@ -101,7 +85,7 @@ func TestMaxUndercoolingMetals(t *testing.T) {
 // card's γ is the low end of the measured range and a constant γ; 1 % in γ
 // moves the onset by about 1 K.
 func TestWaterDroplets(t *testing.T) {
-	md := card(t, "ice")
+	md := shippedModel(t, "ice")
 	c, err := md.LinearCooling(0)
 	if err != nil {
 		t.Fatal(err)
@@ -117,7 +101,7 @@ func TestWaterDroplets(t *testing.T) {
 // BenchmarkCritical is the work of `cool --critical`: the path integral and
 // the nose estimate, for the Vit1 card.
 func BenchmarkCritical(b *testing.B) {
-	md := card(b, "vit1")
+	md := shippedModel(b, "vit1")
 	for b.Loop() {
 		c, err := md.LinearCooling(0)
 		if err != nil {
@@ -133,7 +117,7 @@ func BenchmarkCritical(b *testing.B) {
 // BenchmarkCurve10k is the work of `cool --curve` on a 10,000-point
 // measured curve: fraction, onset and additivity sum.
 func BenchmarkCurve10k(b *testing.B) {
-	md := card(b, "demo-alloy")
+	md := shippedModel(b, "demo-alloy")
 	const n = 10000
 	tm, tp := make([]float64, n), make([]float64, n)
 	var t float64

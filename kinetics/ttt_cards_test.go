@@ -5,23 +5,7 @@ import (
 	"testing"
 
 	"undercool/kinetics"
-	"undercool/presets"
 )
-
-// shippedModel loads a shipped card, or skips the test when the card is
-// not (yet) shipped.
-func shippedModel(t *testing.T, name string) *kinetics.Model {
-	t.Helper()
-	c, err := presets.Preset(name)
-	if err != nil {
-		t.Skipf("card %s not shipped: %v", name, err)
-	}
-	md, err := c.Material()
-	if err != nil {
-		t.Fatalf("card %s: %v", name, err)
-	}
-	return md
-}
 
 // TestLithiumDisilicateNucleationMaximum is an order-of-magnitude check of
 // the shipped lithium-disilicate card against measurement.
@@ -70,23 +54,5 @@ func TestLithiumDisilicateNucleationMaximum(t *testing.T) {
 	}
 	if !(nose.T > Tj) {
 		t.Errorf("nose %.2f K not above the nucleation maximum %.2f K", nose.T, Tj)
-	}
-}
-
-// TestEutectoidSteelNose would check a eutectoid-steel card against the
-// common-practice C-curve nose near 540 °C at the order of a second; no
-// such card is shipped yet.
-func TestEutectoidSteelNose(t *testing.T) {
-	md := shippedModel(t, "eutectoid-steel")
-	lo, hi := 400.0, md.Material().Te
-	nose, err := md.Nose(lo, hi, 0.01, kinetics.JMAK{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	t.Logf("nose %.1f °C, %.3g s", nose.T-273.15, math.Exp(nose.LnTime))
-	// Common practice: nose near 540 °C, about 1 s; order of magnitude:
-	// within 100 K and within a factor of 100 in time.
-	if math.Abs(nose.T-(540+273.15)) > 100 || math.Abs(nose.LnTime/math.Ln10) > 2 {
-		t.Errorf("nose %.1f °C at %.3g s, want near 540 °C at the order of 1 s", nose.T-273.15, math.Exp(nose.LnTime))
 	}
 }
