@@ -92,6 +92,9 @@ type table struct {
 	rows  [][]any
 }
 
+// maxCellWidth is the widest a text cell of a terminal table grows before it wraps.
+const maxCellWidth = 56
+
 // dash stands in tables for a value that does not exist.
 const dash = "—"
 
@@ -242,6 +245,9 @@ func writeTable(b *bytes.Buffer, cols []column, rows [][]any, markdown bool) err
 	}
 	if markdown {
 		opts = append(opts, tablewriter.WithRenderer(renderer.NewMarkdown()))
+	} else {
+		// Long text (sources, descriptions) wraps in a terminal table.
+		opts = append(opts, tablewriter.WithRowAutoWrap(tw.WrapNormal), tablewriter.WithRowMaxWidth(maxCellWidth))
 	}
 	t := tablewriter.NewTable(b, opts...)
 	t.Header(r.heads())
