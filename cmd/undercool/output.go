@@ -99,21 +99,14 @@ const maxCellWidth = 56
 const dash = "—"
 
 // sig formats a float with n significant digits, or the dash.
-func sig(n int) func(any) string {
-	return func(v any) string {
-		x, ok := v.(float64)
-		if !ok {
-			return cellText(v)
-		}
-		if math.IsNaN(x) || math.IsInf(x, 0) {
-			return dash
-		}
-		return strconv.FormatFloat(x, 'g', n, 64)
-	}
-}
+func sig(n int) func(any) string { return floatCell('g', n) }
 
 // fixed formats a float with n decimals, or the dash.
-func fixed(n int) func(any) string {
+func fixed(n int) func(any) string { return floatCell('f', n) }
+
+// floatCell formats a float with strconv's format verb and precision n, the
+// dash for NaN and ±Inf, and any other cell as text.
+func floatCell(verb byte, n int) func(any) string {
 	return func(v any) string {
 		x, ok := v.(float64)
 		if !ok {
@@ -122,7 +115,7 @@ func fixed(n int) func(any) string {
 		if math.IsNaN(x) || math.IsInf(x, 0) {
 			return dash
 		}
-		return strconv.FormatFloat(x, 'f', n, 64)
+		return strconv.FormatFloat(x, verb, n, 64)
 	}
 }
 
