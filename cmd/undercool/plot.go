@@ -262,24 +262,15 @@ func (f *tttFigure) plot() (*plot.Plot, error) {
 			entries++
 		}
 	}
-	refs := []struct {
-		name string
-		T    float64
-	}{{"Te", f.te}, {"Tg", f.tg}}
-	for _, r := range refs {
-		if !(r.T > 0) {
-			continue
-		}
-		l, err := plotter.NewLine(plotter.XYs{{X: xmin, Y: r.T}, {X: xmax, Y: r.T}})
-		if err != nil {
-			return nil, fmt.Errorf("--plot: %v", err)
-		}
-		l.Color = grey
-		l.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
-		p.Add(l)
-		p.Legend.Add(fmt.Sprintf("%s = %.1f K", r.name, r.T), l)
+	drawn, err := addRefLines(p, f.te, f.tg, func(T float64) plotter.XYs {
+		return plotter.XYs{{X: xmin, Y: T}, {X: xmax, Y: T}}
+	})
+	if err != nil {
+		return nil, err
+	}
+	for _, T := range drawn {
 		entries++
-		Tmin, Tmax = math.Min(Tmin, r.T), math.Max(Tmax, r.T)
+		Tmin, Tmax = math.Min(Tmin, T), math.Max(Tmax, T)
 	}
 	// Set the axes last: Add widens them to the data, and the curves run
 	// off towards infinite time near T_e.
@@ -377,22 +368,14 @@ func (f *rateFigure) plots() ([]*plot.Plot, error) {
 	// Reference lines: T_e and T_g as vertical dashes on every panel.
 	for _, p := range out {
 		xmin, xmax := p.X.Min, p.X.Max
-		for _, r := range []struct {
-			name string
-			T    float64
-		}{{"Te", f.te}, {"Tg", f.tg}} {
-			if !(r.T > 0) {
-				continue
-			}
-			l, err := plotter.NewLine(plotter.XYs{{X: r.T, Y: p.Y.Min}, {X: r.T, Y: p.Y.Max}})
-			if err != nil {
-				return nil, fmt.Errorf("--plot: %v", err)
-			}
-			l.Color = grey
-			l.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
-			p.Add(l)
-			p.Legend.Add(fmt.Sprintf("%s = %.1f K", r.name, r.T), l)
-			xmin, xmax = math.Min(xmin, r.T), math.Max(xmax, r.T)
+		drawn, err := addRefLines(p, f.te, f.tg, func(T float64) plotter.XYs {
+			return plotter.XYs{{X: T, Y: p.Y.Min}, {X: T, Y: p.Y.Max}}
+		})
+		if err != nil {
+			return nil, err
+		}
+		for _, T := range drawn {
+			xmin, xmax = math.Min(xmin, T), math.Max(xmax, T)
 		}
 		p.X.Min, p.X.Max = xmin, xmax
 	}
@@ -473,4 +456,28 @@ func writeRatePlot(pf *plotFlag, name string, md *kinetics.Model, temps []float6
 		return err
 	}
 	return savePlots(pf.path, pf.format, ps...)
+}
+
+// addRefLines draws T_e and T_g, each where it is positive, as grey dashed
+// lines along seg(T) with a legend entry, and returns the temperatures drawn.
+func addRefLines(p *plot.Plot, te, tg float64, seg func(T float64) plotter.XYs) ([]float64, error) {
+	var drawn []float64
+	for _, r := range []struct {
+		name string
+		T    float64
+	}{{"Te", te}, {"Tg", tg}} {
+		if !(r.T > 0) {
+			continue
+		}
+		l, err := plotter.NewLine(seg(r.T))
+		if err != nil {
+			return nil, fmt.Errorf("--plot: %v", err)
+		}
+		l.Color = grey
+		l.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
+		p.Add(l)
+		p.Legend.Add(fmt.Sprintf("%s = %.1f K", r.name, r.T), l)
+		drawn = append(drawn, r.T)
+	}
+	return drawn, nil
 }
