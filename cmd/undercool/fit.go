@@ -207,3 +207,85 @@ func dataName(d *presets.Data) string {
 	}
 	return filepath.Base(d.File)
 }
+
+// dataLine is the about line naming the data file, its points and the
+// headers of the columns fitted.
+func dataLine(d *presets.Data, n int, w []float64, quantities ...string) string {
+	heads := make([]string, len(quantities))
+	for i, q := range quantities {
+		heads[i] = d.Headers[q]
+	}
+	return fmt.Sprintf("data: %s, %d points; columns %s%s", d.File, n, strings.Join(heads, ", "), weighted(w))
+}
+
+// aboveZero checks that every temperature of the data lies above absolute zero.
+func aboveZero(d *presets.Data, T []float64) error {
+	for i, t := range T {
+		if !(t > 0) {
+			return usagef("%s:%d: column %q: %s K is at or below absolute zero", d.File, d.Lines[i], d.Headers["temperature"], sig(6)(t))
+		}
+	}
+	return nil
+}
+
+// gammaText is the summary line of a fitted interfacial energy, in J/m2 and
+// in mJ/m2 with digits significant digits, with its spread.
+func gammaText(gamma, se float64, ci [2]float64, digits int) string {
+	mj := func(x float64) string { return fmt.Sprintf("%.*g", digits, x*1e3) }
+	return fmt.Sprintf("gamma = %.5g J/m2 (%s mJ/m2)%s", gamma, mj(gamma), spreadText(se, ci, mj, " mJ/m2"))
+}
+
+// gammaJSON are the JSON entries of a fitted interfacial energy.
+func gammaJSON(gamma, se float64, ci [2]float64) object {
+	return object{
+		{"gamma_j_per_m2", gamma},
+		{"gamma_se_j_per_m2", se},
+		{"gamma_ci95_j_per_m2", ciJSON(ci)},
+	}
+}
+
+// scatterJSON are the JSON entries of a fit's scatter; sdKey names the
+// residual standard deviation.
+func scatterJSON(sdKey string, r2, sd float64, dof int, t float64) object {
+	return object{
+		{"r2", r2},
+		{sdKey, sd},
+		{"degrees_of_freedom", dof},
+		{"student_t", t},
+	}
+}
+
+// intervalNote says how a fit's intervals are made: none for two points
+// (what, the line or the fit, passes through both), else estimate ± t·SE,
+// followed by how, which tells how the derived intervals follow.
+func intervalNote(exact bool, what string, t float64, dof int, how string) string {
+	if exact {
+		return "two points: the " + what + " passes through both; no standard errors or intervals"
+	}
+	return fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom)%s", t, dof, how)
+}
+
+// finish adds the data file's notes and the caution to r, writes the plot
+// and the card where they are asked for (each with its note), and renders
+// r. card is nil for a fit that writes none.
+func (f *fitFlags) finish(e *env, r *result, notes []string, plot func() error, card func() (*presets.Card, []string, error)) error {
+	r.notes = append(r.notes, notes...)
+	r.notes = append(r.notes, caution)
+	if f.pf.wanted() {
+		if err := plot(); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "plot written: "+f.pf.path)
+	}
+	if f.cardOut != "" && card != nil {
+		c, header, err := card()
+		if err != nil {
+			return err
+		}
+		if err := writeCard(f.cardOut, c, header); err != nil {
+			return err
+		}
+		r.notes = append(r.notes, "card written: "+f.cardOut)
+	}
+	return r.render(e.stdout, f.ff.value)
+}

@@ -70,10 +70,8 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 			y[i] = 1 / v
 		}
 	}
-	for i, t := range T {
-		if !(t > 0) {
-			return usagef("%s:%d: column %q: %s K is at or below absolute zero", d.File, d.Lines[i], d.Headers["temperature"], sig(6)(t))
-		}
+	if err := aboveZero(d, T); err != nil {
+		return err
 	}
 	fit, err := kinetics.FitArrhenius(T, y, w)
 	if err != nil {
@@ -88,7 +86,7 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 	r := &result{
 		title: "undercool fit arrhenius: ln y against 1/T by least squares",
 		about: []string{
-			fmt.Sprintf("data: %s, %d points; columns %s, %s%s", d.File, l.N, d.Headers["temperature"], d.Headers[q.col.Quantity], weighted(w)),
+			dataLine(d, l.N, w, "temperature", q.col.Quantity),
 			fmt.Sprintf("law: %s with y = %s in %s; R = %.9g J/(mol K)", law, q.symbol, q.unit, cnt.Gas),
 		},
 		inputs: object{{"data_file", d.File}, {"points", l.N}, {"temperature_column", d.Headers["temperature"]},
@@ -113,12 +111,9 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 		{"pre_exponential_ci95", ciJSON(fit.ACI)},
 		{"ln_pre_exponential", fit.LnA},
 		{"ln_pre_exponential_se", fit.LnASE},
-		{"r2", l.R2},
-		{"residual_sd_ln", l.ResidualSD},
-		{"degrees_of_freedom", l.DoF},
-		{"student_t", l.T},
-		{"warnings", warningsJSON(fit.Warnings)},
 	}
+	r.extra = append(r.extra, scatterJSON("residual_sd_ln", l.R2, l.ResidualSD, l.DoF, l.T)...)
+	r.extra = append(r.extra, kv{"warnings", warningsJSON(fit.Warnings)})
 	r.cols = []column{
 		{"line", "line", nil},
 		{"T (K)", "temperature_k", fixed(2)},
@@ -131,33 +126,15 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 	for i, t := range T {
 		r.rows = append(r.rows, []any{fmt.Sprint(d.Lines[i]), t, t - kinetics.CelsiusOffset, 1 / t, y[i], math.Exp(l.At(1 / t)), l.Residuals[i]})
 	}
-	if l.Exact() {
-		r.notes = append(r.notes, "two points: the line passes through both; no standard errors or intervals")
-	} else {
-		r.notes = append(r.notes, fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom); the pre-exponential's interval is exp of that of ln A", l.T, l.DoF))
-	}
-	r.notes = append(r.notes, notes...)
-	r.notes = append(r.notes, caution)
-	if f.pf.wanted() {
-		if err := arrheniusPlot(f.pf, dataName(d), q.symbol, q.unit, T, y, fit); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "plot written: "+f.pf.path)
-	}
-	if f.cardOut != "" {
-		if q.col.Quantity != "diffusivity" {
-			return usagef("--card-out: a card holds an Arrhenius diffusivity (d0, q); %s has a %s column", d.File, d.Headers[q.col.Quantity])
-		}
-		card, header, err := f.arrheniusCard(d, fit)
-		if err != nil {
-			return err
-		}
-		if err := writeCard(f.cardOut, card, header); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "card written: "+f.cardOut)
-	}
-	return r.render(e.stdout, f.ff.value)
+	r.notes = append(r.notes, intervalNote(l.Exact(), "line", l.T, l.DoF, "; the pre-exponential's interval is exp of that of ln A"))
+	return f.finish(e, r, notes,
+		func() error { return arrheniusPlot(f.pf, dataName(d), q.symbol, q.unit, T, y, fit) },
+		func() (*presets.Card, []string, error) {
+			if q.col.Quantity != "diffusivity" {
+				return nil, nil, usagef("--card-out: a card holds an Arrhenius diffusivity (d0, q); %s has a %s column", d.File, d.Headers[q.col.Quantity])
+			}
+			return f.arrheniusCard(d, fit)
+		})
 }
 
 func weighted(w []float64) string {
@@ -196,11 +173,10 @@ func (f *fitFlags) arrheniusCard(d *presets.Data, fit *kinetics.ArrheniusFit) (*
 		qs += ", exact line through two points"
 		ds = qs
 	}
-	if err := c.Set("q", fmt.Sprintf("%.7g kJ/mol", fit.Q/1e3), qs); err != nil {
-		return nil, nil, fmt.Errorf("card: %v", err)
-	}
-	if err := c.Set("d0", fmt.Sprintf("%.7g m2/s", fit.A), ds); err != nil {
-		return nil, nil, fmt.Errorf("card: %v", err)
+	if err := setValues(c,
+		[3]string{"q", fmt.Sprintf("%.7g kJ/mol", fit.Q/1e3), qs},
+		[3]string{"d0", fmt.Sprintf("%.7g m2/s", fit.A), ds}); err != nil {
+		return nil, nil, err
 	}
 	return c, header, nil
 }

@@ -89,12 +89,9 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		{"half_time_ci95_s", ciJSON(halfCI)},
 		{"time_to_95_percent_s", t95},
 		{"time_to_95_percent_ci95_s", ciJSON(t95CI)},
-		{"r2", l.R2},
-		{"residual_sd", l.ResidualSD},
-		{"degrees_of_freedom", l.DoF},
-		{"student_t", l.T},
-		{"left_out_lines", append([]int{}, leftLines...)},
 	}
+	r.extra = append(r.extra, scatterJSON("residual_sd", l.R2, l.ResidualSD, l.DoF, l.T)...)
+	r.extra = append(r.extra, kv{"left_out_lines", append([]int{}, leftLines...)})
 	r.cols = []column{
 		{"line", "line", nil},
 		{"t (s)", "time_s", sig(5)},
@@ -120,20 +117,8 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		}
 		r.rows = append(r.rows, []any{fmt.Sprint(d.Lines[i]), t[i], X[i], lnT, lnLn, fitted, res, u})
 	}
-	if l.Exact() {
-		r.notes = append(r.notes, "two points: the line passes through both; no standard errors or intervals")
-	} else {
-		r.notes = append(r.notes, fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom); those of k and the times are first-order (delta method) on their logarithms", l.T, l.DoF))
-	}
-	r.notes = append(r.notes, notes...)
-	r.notes = append(r.notes, caution)
-	if f.pf.wanted() {
-		if err := avramiPlot(f.pf, dataName(d), t, X, fit); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "plot written: "+f.pf.path)
-	}
-	return r.render(e.stdout, f.ff.value)
+	r.notes = append(r.notes, intervalNote(l.Exact(), "line", l.T, l.DoF, "; those of k and the times are first-order (delta method) on their logarithms"))
+	return f.finish(e, r, notes, func() error { return avramiPlot(f.pf, dataName(d), t, X, fit) }, nil)
 }
 
 // timeUnit returns the unit of a time header (time_min → "min") and its

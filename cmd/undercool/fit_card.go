@@ -97,3 +97,24 @@ func writeCard(path string, c *presets.Card, header []string) error {
 		return err
 	})
 }
+
+// copyCard is a copy of base with a map of values of its own, so that
+// setting a value leaves base as it was.
+func copyCard(base *presets.Card) *presets.Card {
+	c := *base
+	c.Values = map[string]presets.Value{}
+	for k, v := range base.Values {
+		c.Values[k] = v
+	}
+	return &c
+}
+
+// setValues sets each {key, text, source} on c, in order; an error is the card's.
+func setValues(c *presets.Card, values ...[3]string) error {
+	for _, v := range values {
+		if err := c.Set(v[0], v[1], v[2]); err != nil {
+			return fmt.Errorf("card: %v", err)
+		}
+	}
+	return nil
+}

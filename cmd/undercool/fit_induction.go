@@ -73,10 +73,9 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		return usagef("%s: %v", d.File, err)
 	}
 	line := fit.Line
-	mj := func(x float64) string { return fmt.Sprintf("%.4g", x*1e3) }
 	about := []string{
 		fmt.Sprintf("material: %s (%s); v = %.4g m3 per molecule (V_m = %.4g m3/mol), f(theta) = %.4g", card.Name, card.File, v, vm, shape),
-		fmt.Sprintf("data: %s, %d points; columns %s, %s, %s%s", d.File, line.N, d.Headers["temperature"], d.Headers["supersaturation"], d.Headers["induction_time"], weighted(w)),
+		dataLine(d, line.N, w, "temperature", "supersaturation", "induction_time"),
 		"fit: ln t_ind = -ln(A V) + B'/(T^3 ln^2 S), B' = 16 pi f gamma^3 v^2/(3 k_B^3); induction taken as mononuclear, t_ind = 1/(J V), J = A exp(-16 pi f gamma^3 v^2/(3 (k_B T)^3 ln^2 S))",
 	}
 	if V > 0 {
@@ -93,7 +92,7 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		inputs: inputs,
 	}
 	r.summary = []string{
-		fmt.Sprintf("gamma = %.5g J/m2 (%s mJ/m2)%s", fit.Gamma, mj(fit.Gamma), spreadText(fit.GammaSE, fit.GammaCI, mj, " mJ/m2")),
+		gammaText(fit.Gamma, fit.GammaSE, fit.GammaCI, 4),
 	}
 	if V > 0 {
 		r.summary = append(r.summary, fmt.Sprintf("A = %s m^-3 s^-1%s", sig(4)(fit.A), spreadText(math.NaN(), fit.ACI, g(4), " m^-3 s^-1"))+lnText("A", fit.LnA, fit.LnASE, [2]float64{-line.InterceptCI()[1] - math.Log(V), -line.InterceptCI()[0] - math.Log(V)}))
@@ -104,10 +103,8 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		fmt.Sprintf("slope B' = %.5g K^3, intercept %.5g (ln s)", fit.Slope, line.Intercept),
 		statsLine(line.N, line.DoF, line.R2, line.ResidualSD, "ln t"),
 		fmt.Sprintf("critical nucleus over the data with the fitted gamma: %.3g to %.3g molecules", fit.MinSize, fit.MaxSize))
-	r.extra = object{
-		{"gamma_j_per_m2", fit.Gamma},
-		{"gamma_se_j_per_m2", fit.GammaSE},
-		{"gamma_ci95_j_per_m2", ciJSON(fit.GammaCI)},
+	r.extra = gammaJSON(fit.Gamma, fit.GammaSE, fit.GammaCI)
+	r.extra = append(r.extra, object{
 		{"pre_exponential", fit.A},
 		{"pre_exponential_ci95", ciJSON(fit.ACI)},
 		{"ln_pre_exponential", fit.LnA},
@@ -115,14 +112,13 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		{"ln_rate_times_volume_per_s", fit.LnAV},
 		{"slope_k3", fit.Slope},
 		{"intercept_ln_s", line.Intercept},
-		{"r2", line.R2},
-		{"residual_sd_ln", line.ResidualSD},
-		{"degrees_of_freedom", line.DoF},
-		{"student_t", line.T},
+	}...)
+	r.extra = append(r.extra, scatterJSON("residual_sd_ln", line.R2, line.ResidualSD, line.DoF, line.T)...)
+	r.extra = append(r.extra, object{
 		{"critical_size_min", fit.MinSize},
 		{"critical_size_max", fit.MaxSize},
 		{"flags", nonNil(fit.Flags.Keys())},
-	}
+	}...)
 	r.cols = []column{
 		{"line", "line", nil},
 		{"T (K)", "temperature_k", fixed(2)},
@@ -141,38 +137,18 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 			line.At(fit.X[i]), line.Residuals[i], n.Size,
 		})
 	}
-	if line.Exact() {
-		r.notes = append(r.notes, "two points: the line passes through both; no standard errors or intervals")
-	} else {
-		r.notes = append(r.notes, fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom); gamma's interval is the slope's through the cube root, A's is exp of that of ln A", line.T, line.DoF))
-	}
+	r.notes = append(r.notes, intervalNote(line.Exact(), "line", line.T, line.DoF, "; gamma's interval is the slope's through the cube root, A's is exp of that of ln A"))
 	r.notes = append(r.notes, flagNotes(fit.Flags)...)
 	if fit.Flags&kinetics.FlagSmallNucleus != 0 {
 		r.notes = append(r.notes, "the fitted gamma gives a critical nucleus below 10 molecules: CNT is outside its range, and gamma and A are apparent values that correlate these data (common for crystallization from solution)")
 	}
 	r.notes = append(r.notes, "induction taken as mononuclear (the wait for the first nucleus); where growth to a detectable amount dominates, the slope still gives gamma but A is not the nucleation prefactor")
-	r.notes = append(r.notes, notes...)
-	r.notes = append(r.notes, caution)
 	if f.cardOut != "" && !(V > 0) {
 		return usagef("--card-out: the card needs the prefactor A, so give --volume")
 	}
-	if f.pf.wanted() {
-		if err := inductionPlot(f.pf, dataName(d), ti, fit); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "plot written: "+f.pf.path)
-	}
-	if f.cardOut != "" {
-		c, header, err := inductionCard(card, d, fit)
-		if err != nil {
-			return err
-		}
-		if err := writeCard(f.cardOut, c, header); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "card written: "+f.cardOut)
-	}
-	return r.render(e.stdout, f.ff.value)
+	return f.finish(e, r, notes,
+		func() error { return inductionPlot(f.pf, dataName(d), ti, fit) },
+		func() (*presets.Card, []string, error) { return inductionCard(card, d, fit) })
 }
 
 func nanIfZero(x float64) float64 {
@@ -185,11 +161,7 @@ func nanIfZero(x float64) float64 {
 // inductionCard is the material card with the fitted γ and A as a fixed
 // prefactor.
 func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionFit) (*presets.Card, []string, error) {
-	c := *base
-	c.Values = map[string]presets.Value{}
-	for k, v := range base.Values {
-		c.Values[k] = v
-	}
+	c := copyCard(base)
 	if c.File == "command line" {
 		c.Name, c.Kind, c.Driving = "fitted-solution", "solution", "solution"
 	}
@@ -202,18 +174,17 @@ func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionF
 		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", fit.GammaCI[0], fit.GammaCI[1])
 		as += fmt.Sprintf(", 95 %% interval %.4g to %.4g m^-3 s^-1", fit.ACI[0], fit.ACI[1])
 	}
-	if err := c.Set("gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs); err != nil {
-		return nil, nil, fmt.Errorf("card: %v", err)
-	}
-	if err := c.Set("j0", fmt.Sprintf("%.7g /m3/s", fit.A), as+"; apparent, belongs with the fitted gamma"); err != nil {
-		return nil, nil, fmt.Errorf("card: %v", err)
+	if err := setValues(c,
+		[3]string{"gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs},
+		[3]string{"j0", fmt.Sprintf("%.7g /m3/s", fit.A), as + "; apparent, belongs with the fitted gamma"}); err != nil {
+		return nil, nil, err
 	}
 	header := []string{
 		"Written by undercool fit induction: gamma and the apparent prefactor A (as j0, prefactor fixed)",
 		"fitted to " + dataName(d) + "; every other value as in " + base.File + ".",
 		"Apparent values: they correlate these induction times; the critical nucleus they imply may hold only a few molecules.",
 	}
-	return &c, header, nil
+	return c, header, nil
 }
 
 // inductionPlot is the induction time on a log axis against 1/(T³·ln²S),

@@ -37,10 +37,8 @@ func (f *fitFlags) iface(e *env, path string) error {
 		}
 		lnJ[i] = math.Log(j)
 	}
-	for i, t := range T {
-		if !(t > 0) {
-			return usagef("%s:%d: column %q: %s K is at or below absolute zero", d.File, d.Lines[i], d.Headers["temperature"], sig(6)(t))
-		}
+	if err := aboveZero(d, T); err != nil {
+		return err
 	}
 	fit, err := kinetics.FitInterface(model, T, lnJ, w)
 	if err != nil {
@@ -51,17 +49,16 @@ func (f *fitFlags) iface(e *env, path string) error {
 		return fmt.Errorf("%s: %v", d.File, err)
 	}
 	about, inputs := describeCard(card, model)
-	about = append(about, fmt.Sprintf("data: %s, %d points; columns %s, %s%s", d.File, fit.N, d.Headers["temperature"], d.Headers["rate"], weighted(w)))
+	about = append(about, dataLine(d, fit.N, w, "temperature", "rate"))
 	about = append(about, "fit: ln J_measured = ln A + ln J_model(T; gamma), least squares over gamma and A; every other value from the material (its gamma is only replaced)")
 	inputs = append(inputs, kv{"data_file", d.File}, kv{"points", fit.N}, kv{"weighted", w != nil})
-	mj := func(x float64) string { return fmt.Sprintf("%.5g", x*1e3) }
 	r := &result{
 		title:  "undercool fit interface: interfacial energy from measured nucleation rates",
 		about:  about,
 		inputs: inputs,
 	}
 	r.summary = []string{
-		fmt.Sprintf("gamma = %.5g J/m2 (%s mJ/m2)%s", fit.Gamma, mj(fit.Gamma), spreadText(fit.GammaSE, fit.GammaCI, mj, " mJ/m2")),
+		gammaText(fit.Gamma, fit.GammaSE, fit.GammaCI, 5),
 		fmt.Sprintf("prefactor scale A = %s (the model's rate times A)%s", sig(4)(fit.Scale), spreadText(math.NaN(), fit.ScaleCI, g(4), "")),
 		statsLine(fit.N, fit.DoF, fit.R2, fit.ResidualSD, "ln J") + residualDecades(fit),
 	}
@@ -81,24 +78,21 @@ func (f *fitFlags) iface(e *env, path string) error {
 		linSlope = fit.Linear.Slope
 	}
 	fitted := fit.Fitted()
-	r.extra = object{
-		{"gamma_j_per_m2", fit.Gamma},
-		{"gamma_se_j_per_m2", fit.GammaSE},
-		{"gamma_ci95_j_per_m2", ciJSON(fit.GammaCI)},
+	r.extra = gammaJSON(fit.Gamma, fit.GammaSE, fit.GammaCI)
+	r.extra = append(r.extra, object{
 		{"prefactor_scale", fit.Scale},
 		{"prefactor_scale_ci95", ciJSON(fit.ScaleCI)},
 		{"ln_prefactor_scale", fit.LnScale},
 		{"ln_prefactor_scale_se", fit.LnScaleSE},
-		{"r2", fit.R2},
-		{"residual_sd_ln", fit.ResidualSD},
-		{"degrees_of_freedom", fit.DoF},
-		{"student_t", fit.T},
+	}...)
+	r.extra = append(r.extra, scatterJSON("residual_sd_ln", fit.R2, fit.ResidualSD, fit.DoF, fit.T)...)
+	r.extra = append(r.extra, object{
 		{"classical_slope_k_j2_per_m6", linSlope},
 		{"classical_gamma_j_per_m2", fit.LinearGamma},
 		{"fitted_sites_per_m3", sitesOrNaN(fitted)},
 		{"fitted_j0_per_m3_s", j0OrNaN(fitted)},
 		{"flags", fit.Flags.Keys()},
-	}
+	}...)
 	r.cols = []column{
 		{"line", "line", nil},
 		{"T (K)", "temperature_k", fixed(2)},
@@ -119,31 +113,11 @@ func (f *fitFlags) iface(e *env, path string) error {
 			s.Nucleus.Size, fit.LinearX[i], fit.LinearY[i], s.Flags.Keys(),
 		})
 	}
-	if fit.Exact() {
-		r.notes = append(r.notes, "two points: the fit passes through both; no standard errors or intervals")
-	} else {
-		r.notes = append(r.notes, fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom), SE from the Jacobian at the minimum (linear approximation); A's interval is exp of that of ln A", fit.T, fit.DoF))
-	}
+	r.notes = append(r.notes, intervalNote(fit.Exact(), "fit", fit.T, fit.DoF, ", SE from the Jacobian at the minimum (linear approximation); A's interval is exp of that of ln A"))
 	r.notes = append(r.notes, flagNotes(fit.Flags)...)
-	r.notes = append(r.notes, notes...)
-	r.notes = append(r.notes, caution)
-	if f.pf.wanted() {
-		if err := interfacePlot(f.pf, dataName(d), T, lnJ, fit); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "plot written: "+f.pf.path)
-	}
-	if f.cardOut != "" {
-		c, header, err := interfaceCard(card, d, fit)
-		if err != nil {
-			return err
-		}
-		if err := writeCard(f.cardOut, c, header); err != nil {
-			return err
-		}
-		r.notes = append(r.notes, "card written: "+f.cardOut)
-	}
-	return r.render(e.stdout, f.ff.value)
+	return f.finish(e, r, notes,
+		func() error { return interfacePlot(f.pf, dataName(d), T, lnJ, fit) },
+		func() (*presets.Card, []string, error) { return interfaceCard(card, d, fit) })
 }
 
 func residualDecades(fit *kinetics.InterfaceFit) string {
@@ -180,11 +154,7 @@ func j0OrNaN(m kinetics.Material) float64 {
 // prefactor scale folded into the site density (or into j0 for a fixed
 // prefactor).
 func interfaceCard(base *presets.Card, d *presets.Data, fit *kinetics.InterfaceFit) (*presets.Card, []string, error) {
-	c := *base
-	c.Values = map[string]presets.Value{}
-	for k, v := range base.Values {
-		c.Values[k] = v
-	}
+	c := copyCard(base)
 	c.Name = base.Name + "-fit"
 	c.Description = fmt.Sprintf("%s (gamma and the prefactor scale fitted to %s)", base.Description, dataName(d))
 	src := fmt.Sprintf("undercool fit interface of %s, %d points, with the other values of %s", dataName(d), fit.N, base.File)
@@ -192,27 +162,22 @@ func interfaceCard(base *presets.Card, d *presets.Data, fit *kinetics.InterfaceF
 	if !fit.Exact() {
 		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", fit.GammaCI[0], fit.GammaCI[1])
 	}
-	if err := c.Set("gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs); err != nil {
-		return nil, nil, fmt.Errorf("card: %v", err)
-	}
 	m := fit.Fitted()
 	what := "the base site density"
 	if m.Prefactor == kinetics.PrefactorFixed {
 		what = "the base j0"
 	}
 	scale := fmt.Sprintf("%s times the prefactor scale A = %.5g fitted by undercool fit interface to %s", what, fit.Scale, dataName(d))
-	var err error
+	folded := [3]string{"sites", fmt.Sprintf("%.7g m-3", m.Sites), scale}
 	if m.Prefactor == kinetics.PrefactorFixed {
-		err = c.Set("j0", fmt.Sprintf("%.7g /m3/s", m.J0), scale)
-	} else {
-		err = c.Set("sites", fmt.Sprintf("%.7g m-3", m.Sites), scale)
+		folded = [3]string{"j0", fmt.Sprintf("%.7g /m3/s", m.J0), scale}
 	}
-	if err != nil {
-		return nil, nil, fmt.Errorf("card: %v", err)
+	if err := setValues(c, [3]string{"gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs}, folded); err != nil {
+		return nil, nil, err
 	}
 	header := []string{
 		fmt.Sprintf("%s with gamma fitted by undercool fit interface to %s.", base.Name, dataName(d)),
 		"The prefactor scale A is folded into the site density (or j0); every other value is the base card's.",
 	}
-	return &c, header, nil
+	return c, header, nil
 }
