@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
 	"strconv"
 	"strings"
@@ -93,25 +92,12 @@ func splitUnit(s string) (num, unit string) {
 
 // volumeValue parses --volume (m³).
 func (cf *coolFlags) volumeValue() (float64, error) {
-	v, err := units.Parse(cf.volume, units.Volume)
-	if err != nil {
-		return 0, usagef("--volume: %v", err)
-	}
-	if !(v > 0) {
-		return 0, usagef("--volume: %q must be positive (a sample volume)", cf.volume)
-	}
-	return v, nil
+	return parsePositive("volume", cf.volume, units.Volume, "a sample volume")
 }
 
+// bandValue parses --band (K).
 func (cf *coolFlags) bandValue() (float64, error) {
-	b, err := units.Parse(cf.band, units.TemperatureDifference)
-	if err != nil {
-		return 0, usagef("--band: %v", err)
-	}
-	if !(b > 0) {
-		return 0, usagef("--band: %q must be positive (a band width, K)", cf.band)
-	}
-	return b, nil
+	return parsePositive("band", cf.band, units.TemperatureDifference, "a band width, K")
 }
 
 // materialGiven reports whether the command line names a material or any
@@ -135,13 +121,7 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 	ff := addFormatFlag(fs)
 	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
-		if len(args) > 0 {
-			return usagef("cool: unexpected argument %q", args[0])
-		}
-		if err := ff.check(); err != nil {
-			return err
-		}
-		if err := sf.check(); err != nil {
+		if err := checkStart("cool", args, ff, sf); err != nil {
 			return err
 		}
 		X, err := cf.fractionValue()
@@ -218,17 +198,7 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {
 			return err
 		}
-		var out bytes.Buffer
-		if err := r.render(&out, ff.value); err != nil {
-			return err
-		}
-		if pf.wanted() {
-			if err := lc.plot(pf); err != nil {
-				return err
-			}
-		}
-		_, err = e.stdout.Write(out.Bytes())
-		return err
+		return renderWithPlot(e, r, ff.value, pf, func() error { return lc.plot(pf) })
 	}
 }
 

@@ -51,11 +51,8 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 	shape := cnt.ShapeFactor(theta)
 	V := 0.0
 	if fi.fs.Changed("volume") {
-		if V, err = units.Parse(fi.volume, units.Volume); err != nil {
-			return usagef("--volume: %v", err)
-		}
-		if !(V > 0) {
-			return usagef("--volume: %q must be positive", fi.volume)
+		if V, err = parsePositive("volume", fi.volume, units.Volume, ""); err != nil {
+			return err
 		}
 	}
 	d, w, notes, err := f.readFitData(e, path, inductionColumns)

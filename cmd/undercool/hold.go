@@ -47,13 +47,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 	sf := addSpreadFlags(fs)
 	sh.sf = sf
 	return func(e *env, args []string) error {
-		if len(args) > 0 {
-			return usagef("hold: unexpected argument %q", args[0])
-		}
-		if err := ff.check(); err != nil {
-			return err
-		}
-		if err := sf.check(); err != nil {
+		if err := checkStart("hold", args, ff, sf); err != nil {
 			return err
 		}
 		if !fs.Changed("at") {
@@ -63,15 +57,11 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		if err != nil {
 			return err
 		}
-		fractions, err := jf.fractions(false)
+		fractions, j, err := jf.law(false)
 		if err != nil {
 			return err
 		}
 		X := fractions[0]
-		j, err := jf.jmak()
-		if err != nil {
-			return err
-		}
 		c, md, err := mf.model()
 		if err != nil {
 			return err
@@ -98,11 +88,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 
 		about, inputs := describeCard(c, md)
-		about = append(about, "transformation: "+j.Describe())
-		inputs = append(inputs, kv{"transformation", j.Describe()}, kv{"time_lag", j.Lag})
-		if j.Nuclei > 0 {
-			inputs = append(inputs, kv{"nuclei_per_m3", j.Nuclei})
-		}
+		about, inputs = describeJMAK(about, inputs, j)
 		r := &result{
 			title:  "undercool hold: time to transform at one temperature",
 			about:  about,
@@ -156,7 +142,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 		r.notes = flagNotes(s.Flags)
 		if j.Lag {
-			r.notes = append(r.notes, "time lag: nucleation taken to start after tau = 1/(2 pi Z^2 beta*) and run at the steady rate after; other treatments differ by a factor of order one")
+			r.notes = append(r.notes, lagNote)
 		}
 		heads, eval := holdHeadlines(T, X, j)
 		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {

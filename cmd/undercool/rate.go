@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"fmt"
 	"math"
 
@@ -86,13 +87,7 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 	sf := addSpreadFlags(fs)
 	pf := addPlotFlag(fs, "draw log10 J and u against temperature")
 	return func(e *env, args []string) error {
-		if len(args) > 0 {
-			return usagef("rate: unexpected argument %q", args[0])
-		}
-		if err := ff.check(); err != nil {
-			return err
-		}
-		if err := sf.check(); err != nil {
+		if err := checkStart("rate", args, ff, sf); err != nil {
 			return err
 		}
 		if err := pf.check(); err != nil {
@@ -140,6 +135,34 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 		return r.render(e.stdout, ff.value)
 	}
+}
+
+// checkStart rejects arguments to a command that takes none, then checks
+// --format and the spread flags.
+func checkStart(name string, args []string, ff *formatFlag, sf *spreadFlags) error {
+	if len(args) > 0 {
+		return usagef("%s: unexpected argument %q", name, args[0])
+	}
+	if err := ff.check(); err != nil {
+		return err
+	}
+	return sf.check()
+}
+
+// renderWithPlot renders r, then writes the plot where one is asked for,
+// and only then prints r, so that a failed plot leaves no output.
+func renderWithPlot(e *env, r *result, format string, pf *plotFlag, plot func() error) error {
+	var out bytes.Buffer
+	if err := r.render(&out, format); err != nil {
+		return err
+	}
+	if pf.wanted() {
+		if err := plot(); err != nil {
+			return err
+		}
+	}
+	_, err := e.stdout.Write(out.Bytes())
+	return err
 }
 
 // caution is the one-line reminder every result carries.

@@ -90,11 +90,7 @@ func setupReport(fs *pflag.FlagSet) func(*env, []string) error {
 		if err := sf.check(); err != nil {
 			return err
 		}
-		fractions, err := jf.fractions(false)
-		if err != nil {
-			return err
-		}
-		j, err := jf.jmak()
+		fractions, j, err := jf.law(false)
 		if err != nil {
 			return err
 		}

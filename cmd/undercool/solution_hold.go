@@ -38,12 +38,9 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 			return true, usagef("--%s and --volume: the induction time is for nuclei forming at the steady rate; give one or the other", n)
 		}
 	}
-	V, err := units.Parse(sh.volume, units.Volume)
+	V, err := parsePositive("volume", sh.volume, units.Volume, "")
 	if err != nil {
-		return true, usagef("--volume: %v", err)
-	}
-	if !(V > 0) {
-		return true, usagef("--volume: %q must be positive", sh.volume)
+		return true, err
 	}
 	if !md.HasRate() {
 		return true, usagef("the material has no nucleation rate, so no induction time: give --prefactor fixed with --j0 (the apparent A that fit induction gives), or a mobility law (--solvent-viscosity, --solute-diffusivity, --d0 and --q)")

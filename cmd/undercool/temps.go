@@ -40,6 +40,22 @@ func parseTemp(flag, s string) (float64, error) {
 	return t, nil
 }
 
+// parsePositive reads the value of --flag as a quantity of kind and checks
+// that it is positive; what, if not empty, says in the error what it is.
+func parsePositive(flag, s string, kind units.Kind, what string) (float64, error) {
+	v, err := units.Parse(s, kind)
+	if err != nil {
+		return 0, usagef("--%s: %v", flag, err)
+	}
+	if !(v > 0) {
+		if what != "" {
+			return 0, usagef("--%s: %q must be positive (%s)", flag, s, what)
+		}
+		return 0, usagef("--%s: %q must be positive", flag, s)
+	}
+	return v, nil
+}
+
 // list returns the temperatures asked for, or the default range [lo, hi]
 // from hi down to lo when neither flag is given.
 func (tf *tempFlags) list(lo, hi float64) ([]float64, error) {

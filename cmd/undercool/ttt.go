@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
 	"math"
 	"strconv"
@@ -72,12 +71,9 @@ func (jf *jmakFlags) fractions(list bool) ([]float64, error) {
 func (jf *jmakFlags) jmak() (kinetics.JMAK, error) {
 	j := kinetics.JMAK{Lag: jf.lag}
 	if jf.fs.Changed("nuclei") {
-		n, err := units.Parse(jf.nuclei, units.NumberDensity)
+		n, err := parsePositive("nuclei", jf.nuclei, units.NumberDensity, "nuclei per m^3")
 		if err != nil {
-			return j, usagef("--nuclei: %v", err)
-		}
-		if !(n > 0) {
-			return j, usagef("--nuclei: %q must be positive (nuclei per m^3)", jf.nuclei)
+			return j, err
 		}
 		j.Nuclei = n
 	}
@@ -86,6 +82,34 @@ func (jf *jmakFlags) jmak() (kinetics.JMAK, error) {
 	}
 	return j, nil
 }
+
+// law parses --fraction (one value unless list is true), then the
+// transformation law.
+func (jf *jmakFlags) law(list bool) ([]float64, kinetics.JMAK, error) {
+	fractions, err := jf.fractions(list)
+	if err != nil {
+		return nil, kinetics.JMAK{}, err
+	}
+	j, err := jf.jmak()
+	if err != nil {
+		return nil, kinetics.JMAK{}, err
+	}
+	return fractions, j, nil
+}
+
+// describeJMAK adds the transformation law to a result's header lines and
+// JSON inputs.
+func describeJMAK(about []string, inputs object, j kinetics.JMAK) ([]string, object) {
+	about = append(about, "transformation: "+j.Describe())
+	inputs = append(inputs, kv{"transformation", j.Describe()}, kv{"time_lag", j.Lag})
+	if j.Nuclei > 0 {
+		inputs = append(inputs, kv{"nuclei_per_m3", j.Nuclei})
+	}
+	return about, inputs
+}
+
+// lagNote explains the time lag where --lag adds it.
+const lagNote = "time lag: nucleation taken to start after tau = 1/(2 pi Z^2 beta*) and run at the steady rate after; other treatments differ by a factor of order one"
 
 // transformError turns a model that cannot give times into a usage error
 // that says which values are missing.
@@ -193,20 +217,10 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 	ff := addFormatFlag(fs)
 	sf := addSpreadFlags(fs)
 	return func(e *env, args []string) error {
-		if len(args) > 0 {
-			return usagef("ttt: unexpected argument %q", args[0])
-		}
-		if err := ff.check(); err != nil {
+		if err := checkStart("ttt", args, ff, sf); err != nil {
 			return err
 		}
-		if err := sf.check(); err != nil {
-			return err
-		}
-		fractions, err := jf.fractions(true)
-		if err != nil {
-			return err
-		}
-		j, err := jf.jmak()
+		fractions, j, err := jf.law(true)
 		if err != nil {
 			return err
 		}
@@ -236,11 +250,7 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 
 		about, inputs := describeCard(c, md)
-		about = append(about, "transformation: "+j.Describe())
-		inputs = append(inputs, kv{"transformation", j.Describe()}, kv{"time_lag", j.Lag})
-		if j.Nuclei > 0 {
-			inputs = append(inputs, kv{"nuclei_per_m3", j.Nuclei})
-		}
+		about, inputs = describeJMAK(about, inputs, j)
 		several := len(fractions) > 1
 		r := &result{
 			title:  "undercool ttt: time to transform in an isothermal hold",
@@ -303,25 +313,16 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 			r.notes = append(r.notes, "never also stands for times beyond 1.8e308 s")
 		}
 		if j.Lag {
-			r.notes = append(r.notes, "time lag: nucleation taken to start after tau = 1/(2 pi Z^2 beta*) and run at the steady rate after; other treatments differ by a factor of order one")
+			r.notes = append(r.notes, lagNote)
 		}
 		heads, eval := tttHeadlines(fractions, j, lo, hi)
 		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {
 			return err
 		}
 		r.notes = append(r.notes, caution)
-
-		var out bytes.Buffer
-		if err := r.render(&out, ff.value); err != nil {
-			return err
-		}
-		if pf.wanted() {
-			if err := writeTTTPlot(pf, md, c.Name, fractions, j, lo, hi, ttt); err != nil {
-				return err
-			}
-		}
-		_, err = e.stdout.Write(out.Bytes())
-		return err
+		return renderWithPlot(e, r, ff.value, pf, func() error {
+			return writeTTTPlot(pf, md, c.Name, fractions, j, lo, hi, ttt)
+		})
 	}
 }
 
