@@ -104,30 +104,47 @@ func NewTable(T, g []float64, label string) (*Table, error) {
 			return nil, fmt.Errorf("temperatures must be strictly monotonic (row %d)", i+1)
 		}
 	}
-	ts := append([]float64(nil), T...)
-	gs := append([]float64(nil), g...)
-	if ts[0] > ts[len(ts)-1] {
-		for i, j := 0, len(ts)-1; i < j; i, j = i+1, j-1 {
-			ts[i], ts[j] = ts[j], ts[i]
-			gs[i], gs[j] = gs[j], gs[i]
-		}
-	}
+	ts, gs := ascending(T, g)
 	return &Table{T: ts, G: gs, Label: label}, nil
 }
 
-func (t *Table) PerMole(T float64) float64 {
-	n := len(t.T)
-	if !(T >= t.T[0] && T <= t.T[n-1]) {
-		return math.NaN()
+// ascending returns copies of a table's strictly monotonic temperatures and
+// its values, in ascending temperature.
+func ascending(T, y []float64) (ts, ys []float64) {
+	ts = append([]float64(nil), T...)
+	ys = append([]float64(nil), y...)
+	if ts[0] > ts[len(ts)-1] {
+		for i, j := 0, len(ts)-1; i < j; i, j = i+1, j-1 {
+			ts[i], ts[j] = ts[j], ts[i]
+			ys[i], ys[j] = ys[j], ys[i]
+		}
 	}
-	lo, hi := 0, n-1
+	return ts, ys
+}
+
+// bracket finds the rows lo and hi = lo+1 of ascending temperatures ts that
+// hold T, by bisection; false when T lies outside the table or is NaN.
+func bracket(ts []float64, T float64) (lo, hi int, ok bool) {
+	n := len(ts)
+	if !(T >= ts[0] && T <= ts[n-1]) {
+		return 0, 0, false
+	}
+	lo, hi = 0, n-1
 	for hi-lo > 1 {
 		mid := (lo + hi) / 2
-		if t.T[mid] <= T {
+		if ts[mid] <= T {
 			lo = mid
 		} else {
 			hi = mid
 		}
+	}
+	return lo, hi, true
+}
+
+func (t *Table) PerMole(T float64) float64 {
+	lo, hi, ok := bracket(t.T, T)
+	if !ok {
+		return math.NaN()
 	}
 	w := (T - t.T[lo]) / (t.T[hi] - t.T[lo])
 	return t.G[lo] + w*(t.G[hi]-t.G[lo])

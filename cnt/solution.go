@@ -144,14 +144,7 @@ func NewSolubilityTable(T, c []float64, conc float64, label string) (*Solubility
 			return nil, fmt.Errorf("row %d: temperatures must be strictly monotonic", i+1)
 		}
 	}
-	ts := append([]float64(nil), T...)
-	cs := append([]float64(nil), c...)
-	if desc {
-		for i, j := 0, n-1; i < j; i, j = i+1, j-1 {
-			ts[i], ts[j] = ts[j], ts[i]
-			cs[i], cs[j] = cs[j], cs[i]
-		}
-	}
+	ts, cs := ascending(T, c)
 	lnC := make([]float64, n)
 	for i := range cs {
 		lnC[i] = math.Log(cs[i])
@@ -161,18 +154,9 @@ func NewSolubilityTable(T, c []float64, conc float64, label string) (*Solubility
 
 // LnSolubility is ln c_sat(T), interpolated linearly in 1/T; NaN outside the table.
 func (t *SolubilityTable) LnSolubility(T float64) float64 {
-	n := len(t.T)
-	if !(T >= t.T[0] && T <= t.T[n-1]) {
+	lo, hi, ok := bracket(t.T, T)
+	if !ok {
 		return math.NaN()
-	}
-	lo, hi := 0, n-1
-	for hi-lo > 1 {
-		mid := (lo + hi) / 2
-		if t.T[mid] <= T {
-			lo = mid
-		} else {
-			hi = mid
-		}
 	}
 	if T == t.T[lo] {
 		return t.lnC[lo]
