@@ -66,13 +66,17 @@ func lineOf(data []byte, key string) int {
 		if s == "[values."+key+"]" {
 			return i + 1
 		}
-		if rest, ok := strings.CutPrefix(s, key); ok {
-			if r := strings.TrimSpace(rest); strings.HasPrefix(r, "=") {
-				return i + 1
-			}
+		if assigns(s, key) {
+			return i + 1
 		}
 	}
 	return 0
+}
+
+// assigns reports whether a trimmed TOML line sets key ("key = ...").
+func assigns(line, key string) bool {
+	rest, ok := strings.CutPrefix(line, key)
+	return ok && strings.HasPrefix(strings.TrimSpace(rest), "=")
 }
 
 func oneOf(s string, choices []string) bool {
@@ -133,12 +137,7 @@ func Parse(data []byte, file string) (*Card, error) {
 	if c.Driving == "table" && c.DrivingFile == "" {
 		return nil, fmt.Errorf("%s: driving \"table\" needs driving_table = \"FILE.csv\"", file)
 	}
-	keys := make([]string, 0, len(raw.Values))
-	for k := range raw.Values {
-		keys = append(keys, k)
-	}
-	sort.Strings(keys)
-	for _, key := range keys {
+	for _, key := range sortedKeys(raw.Values) {
 		rv := raw.Values[key]
 		line := lineOf(data, key)
 		where := fmt.Sprintf("%s:%d: key %q", file, line, key)
@@ -146,12 +145,9 @@ func Parse(data []byte, file string) (*Card, error) {
 		if !ok {
 			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(paramKeys(), ", "))
 		}
-		text, err := valueText(rv.Value)
+		text, err := sourcedText(rv, where)
 		if err != nil {
-			return nil, fmt.Errorf("%s: %v", where, err)
-		}
-		if strings.TrimSpace(rv.Source) == "" {
-			return nil, fmt.Errorf("%s: missing source (a publication, \"common practice\", \"from memory\" or \"invented for the demo\")", where)
+			return nil, err
 		}
 		v, err := ParseValue(p, text)
 		if err != nil {
@@ -164,6 +160,30 @@ func Parse(data []byte, file string) (*Card, error) {
 		return nil, err
 	}
 	return c, nil
+}
+
+// sortedKeys are the keys of a table of values in order, so that the first
+// error found is always the same.
+func sortedKeys(raw map[string]rawValue) []string {
+	keys := make([]string, 0, len(raw))
+	for k := range raw {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	return keys
+}
+
+// sourcedText is the text of a value that must carry a source; where (file,
+// line and key) begins its errors.
+func sourcedText(rv rawValue, where string) (string, error) {
+	text, err := valueText(rv.Value)
+	if err != nil {
+		return "", fmt.Errorf("%s: %v", where, err)
+	}
+	if strings.TrimSpace(rv.Source) == "" {
+		return "", fmt.Errorf("%s: missing source (a publication, \"common practice\", \"from memory\" or \"invented for the demo\")", where)
+	}
+	return text, nil
 }
 
 // valueText turns a TOML value (string with unit, or bare number) into text.

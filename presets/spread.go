@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"fmt"
 	"math"
-	"sort"
 	"strconv"
 	"strings"
 
@@ -144,7 +143,7 @@ func spreadLine(data []byte, key string) int {
 		if section != "spread" {
 			continue
 		}
-		if rest, ok := strings.CutPrefix(s, key); ok && strings.HasPrefix(strings.TrimSpace(rest), "=") {
+		if assigns(s, key) {
 			return i + 1
 		}
 	}
@@ -154,24 +153,16 @@ func spreadLine(data []byte, key string) int {
 // parseSpreads reads the [spread] table of a card.
 func parseSpreads(data []byte, file string, raw map[string]rawValue) (map[string]SpreadSpec, error) {
 	out := map[string]SpreadSpec{}
-	keys := make([]string, 0, len(raw))
-	for k := range raw {
-		keys = append(keys, k)
-	}
-	sort.Strings(keys)
-	for _, key := range keys {
+	for _, key := range sortedKeys(raw) {
 		rv := raw[key]
 		line := spreadLine(data, key)
 		where := fmt.Sprintf("%s:%d: [spread] key %q", file, line, key)
 		if !spreadKnown(key) {
 			return nil, fmt.Errorf("%s: unknown parameter (allowed: %s)", where, strings.Join(SpreadKeys(), ", "))
 		}
-		text, err := valueText(rv.Value)
+		text, err := sourcedText(rv, where)
 		if err != nil {
-			return nil, fmt.Errorf("%s: %v", where, err)
-		}
-		if strings.TrimSpace(rv.Source) == "" {
-			return nil, fmt.Errorf("%s: missing source (a publication, \"common practice\", \"from memory\" or \"invented for the demo\")", where)
+			return nil, err
 		}
 		s, err := ParseSpread(key, text)
 		if err != nil {
