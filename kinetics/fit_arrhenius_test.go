@@ -41,6 +41,12 @@ func TestFitArrheniusCallisterCuInAu(t *testing.T) {
 // arrheniusData makes n points of y = A·exp(−Q/RT) between T0 and T1 with a
 // deterministic ±noise on ln y (alternating sign, so it does not bias Q).
 func arrheniusData(A, Q, T0, T1 float64, n int, noise float64) (T, y []float64) {
+	return sampled(T0, T1, n, noise, func(t, e float64) float64 { return A * math.Exp(-Q/(cnt.Gas*t)+e) })
+}
+
+// sampled makes n points f(t, e) at even temperatures t from T0 to T1,
+// where e is the deterministic ±noise (alternating sign) to add to ln y.
+func sampled(T0, T1 float64, n int, noise float64, f func(t, e float64) float64) (T, y []float64) {
 	for i := range n {
 		t := T0 + (T1-T0)*float64(i)/float64(n-1)
 		e := noise
@@ -48,7 +54,7 @@ func arrheniusData(A, Q, T0, T1 float64, n int, noise float64) (T, y []float64) 
 			e = -noise
 		}
 		T = append(T, t)
-		y = append(y, A*math.Exp(-Q/(cnt.Gas*t)+e))
+		y = append(y, f(t, e))
 	}
 	return T, y
 }

@@ -18,26 +18,13 @@ func fitDemo(t testing.TB, pre Prefactor) *Model {
 	if pre == PrefactorFixed {
 		m.Mobility = nil
 	}
-	md, err := NewModel(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return md
+	return mustModel(t, m)
 }
 
 // rateData samples ln J of md (times scale) at n temperatures from T0 to
 // T1, with an alternating ±noise on ln J.
 func rateData(md *Model, scale, T0, T1 float64, n int, noise float64) (T, lnJ []float64) {
-	for i := range n {
-		t := T0 + (T1-T0)*float64(i)/float64(n-1)
-		e := noise
-		if i%2 == 1 {
-			e = -noise
-		}
-		T = append(T, t)
-		lnJ = append(lnJ, md.LnJ(t)+math.Log(scale)+e)
-	}
-	return T, lnJ
+	return sampled(T0, T1, n, noise, func(t, e float64) float64 { return md.LnJ(t) + math.Log(scale) + e })
 }
 
 func withGamma(t testing.TB, md *Model, g float64) *Model {

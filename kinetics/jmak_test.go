@@ -190,7 +190,7 @@ func TestJMAKCheck(t *testing.T) {
 // values of the common order for a melt: Thompson–Spaepen driving force,
 // Arrhenius mobility.
 func testAlloy(t testing.TB) *Model {
-	md, err := NewModel(Material{
+	return mustModel(t, Material{
 		Name:     "test alloy (invented)",
 		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
 		Te:       1150,
@@ -198,15 +198,11 @@ func testAlloy(t testing.TB) *Model {
 		Gamma:    0.118,
 		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
 	})
-	if err != nil {
-		t.Fatal(err)
-	}
-	return md
 }
 
 // testGlass is an invented oxide-glass-like material with a VFT viscosity.
 func testGlass(t testing.TB) *Model {
-	md, err := NewModel(Material{
+	return mustModel(t, Material{
 		Name:     "test glass (invented)",
 		Driving:  cnt.Hoffman{Te: 1300, DH: 55e3},
 		Te:       1300,
@@ -214,6 +210,12 @@ func testGlass(t testing.TB) *Model {
 		Gamma:    0.18,
 		Mobility: VFT{A: -3, B: 4500, T0: 500, Jump: math.Cbrt(60e-6 / cnt.Avogadro)},
 	})
+}
+
+// mustModel is NewModel for a material a test knows to be valid.
+func mustModel(t testing.TB, m Material) *Model {
+	t.Helper()
+	md, err := NewModel(m)
 	if err != nil {
 		t.Fatal(err)
 	}
