@@ -243,16 +243,11 @@ func TestNewTableErrors(t *testing.T) {
 		{"not monotonic", []float64{300, 500, 400}, []float64{1, 2, 3}, "row 3"},
 	} {
 		_, err := cnt.NewTable(c.T, c.g, "")
-		if err == nil || !strings.Contains(err.Error(), c.msg) {
+		if !errorWith(err, c.msg) {
 			t.Errorf("%s: NewTable error %v, want one containing %q", c.name, err, c.msg)
 		}
 	}
-	defer func() {
-		if r := recover(); r == nil {
-			t.Errorf("NewTable with columns of different length did not panic")
-		}
-	}()
-	cnt.NewTable([]float64{1, 2}, []float64{1}, "")
+	mustPanic(t, "NewTable with columns of different length", func() { cnt.NewTable([]float64{1, 2}, []float64{1}, "") })
 }
 
 // A table given hottest row first is reversed before it is checked; the row
