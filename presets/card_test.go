@@ -9,6 +9,16 @@ import (
 	"testing"
 )
 
+// mustParse is Parse for a card text a test knows to be valid.
+func mustParse(t testing.TB, text, file string) *Card {
+	t.Helper()
+	c, err := Parse([]byte(text), file)
+	if err != nil {
+		t.Fatalf("Parse %s: %v", file, err)
+	}
+	return c
+}
+
 // goodCard is a complete, valid card; the error cases below break one line of it.
 // Its numbers are invented for the tests.
 const goodCard = `# invented for the tests
@@ -46,10 +56,7 @@ func replaceLine(t *testing.T, card, prefix, repl string) string {
 }
 
 func TestParseGoodCard(t *testing.T) {
-	c, err := Parse([]byte(goodCard), "good.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, goodCard, "good.toml")
 	if c.Name != "test-card" || c.Kind != "demo" || c.Driving != "thompson-spaepen" || c.Mobility != "arrhenius" || c.Prefactor != "attachment" {
 		t.Errorf("header fields wrong: %+v", c)
 	}
@@ -146,10 +153,7 @@ func TestParseErrors(t *testing.T) {
 func TestParseValuesTableForm(t *testing.T) {
 	card := strings.Replace(goodCard, `te    = { value = "1150 K",      source = "invented for the tests" }`, "", 1) +
 		"\n[values.te]\nvalue = \"877 C\"\nsource = \"invented for the tests\"\n"
-	c, err := Parse([]byte(card), "t.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, card, "t.toml")
 	if v := c.Values["te"]; math.Abs(v.SI-1150.15) > 1e-9 || v.Line != 17 {
 		t.Errorf("te = %+v, want 1150.15 K with the line of [values.te], 17", v)
 	}
@@ -182,11 +186,8 @@ func TestMaterialErrors(t *testing.T) {
 			if tt.name == "turnbull-fisher without arrhenius" {
 				card = replaceLine(t, card, `prefactor = "attachment"`, "")
 			}
-			c, err := Parse([]byte(card), "bad.toml")
-			if err != nil {
-				t.Fatalf("Parse: %v", err)
-			}
-			_, err = c.Material()
+			c := mustParse(t, card, "bad.toml")
+			_, err := c.Material()
 			if err == nil {
 				t.Fatal("Material gave no error")
 			}
@@ -202,10 +203,7 @@ func TestMaterialErrors(t *testing.T) {
 // TestMobilityNone: a card without a mobility law gives the nucleus but no rate.
 func TestMobilityNone(t *testing.T) {
 	card := replaceLine(t, goodCard, "mobility", `mobility = "none"`)
-	c, err := Parse([]byte(card), "t.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, card, "t.toml")
 	m, err := c.Material()
 	if err != nil {
 		t.Fatal(err)
@@ -220,10 +218,7 @@ func TestMobilityNone(t *testing.T) {
 }
 
 func TestSet(t *testing.T) {
-	c, err := Parse([]byte(goodCard), "t.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, goodCard, "t.toml")
 	if err := c.Set("gamma", "132 erg/cm2", "command line"); err != nil {
 		t.Fatal(err)
 	}

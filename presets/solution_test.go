@@ -36,10 +36,7 @@ func writeTemp(t *testing.T, name, text string) string {
 
 func solutionModel(t *testing.T, set map[string]string, table string) (*kinetics.Model, error) {
 	t.Helper()
-	c, err := Parse([]byte(solutionCard), "test.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, solutionCard, "test.toml")
 	for k, v := range set {
 		if err := c.Set(k, v, "test"); err != nil {
 			t.Fatalf("Set(%s, %s): %v", k, v, err)

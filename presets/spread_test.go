@@ -18,10 +18,7 @@ d0    = { value = "x3",       source = "invented for the tests" }
 `
 
 func TestParseSpreadTable(t *testing.T) {
-	c, err := Parse([]byte(spreadCard), "s.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, spreadCard, "s.toml")
 	want := map[string]struct {
 		form kinetics.SpreadForm
 		x    float64
@@ -116,10 +113,7 @@ func TestParseSpread(t *testing.T) {
 // TestSpreadOfMaterial: a per-volume enthalpy spread is converted per mole;
 // a relative one needs no conversion.
 func TestSpreadOfMaterial(t *testing.T) {
-	c, err := Parse([]byte(goodCard), "g.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	c := mustParse(t, goodCard, "g.toml")
 	md, err := c.Material()
 	if err != nil {
 		t.Fatal(err)
