@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sync"
 )
 
 // EndReason says where a linear cooling stops.
@@ -40,8 +41,11 @@ const (
 // more than maxLnStep. The
 // exponential-trapezoid rule of the integrator is exact for ln J linear in a
 // step, so its error comes only from the curvature of ln J.
-// A crossing (a fraction or one nucleus reached) is then found by stepping
-// through its grid step again in crossSteps parts.
+// The totals at the end of the path (the critical rate, the fraction at a
+// rate) are computed without the farLnStep refinement, which changes them
+// by a few parts in 10⁹ (TestCoolingTotalsGrid); the crossings use the grid
+// with it. A crossing (a fraction or one nucleus reached) is then found by
+// stepping through its grid step again in crossSteps parts.
 const (
 	baseSteps  = 128
 	maxLnStep  = 0.5
@@ -66,12 +70,28 @@ type Cooling struct {
 	Te     float64   // K
 	End    float64   // K, the end of the path
 	Reason EndReason // why it ends there
-	Temp   []float64 // the grid, descending from T_e to the coldest point computed
-	Sums   Sums      // running integrals at q = 1 K/s (time τ = T_e − T)
-	endIdx int       // index into Temp and Sums of the end
+	// Temp is the grid of the totals, descending from T_e to the coldest
+	// point computed, refined where ln J is within spanLn of its largest
+	// value and where ln u changes fast (see coolingGrid); Sums are the
+	// running integrals on it at q = 1 K/s (time τ = T_e − T).
+	Temp   []float64
+	Sums   Sums
+	endIdx int // index into Temp and Sums of the end
 	md     *Model
-	lnJ, u []float64
-	states []accum
+	lo     float64 // K, the coldest point computed
+	// fine is the grid refined in the far part of ln J too, with the
+	// accumulator at every point, for the crossings (a small fraction at
+	// a slow rate, the first nucleus in a small volume); it is built on
+	// the first crossing asked for.
+	fine     *crossGrid
+	fineOnce sync.Once
+}
+
+// crossGrid is a cooling grid with ln J, u and the accumulator at every
+// point, for finding crossings.
+type crossGrid struct {
+	T, lnJ, u []float64
+	states    []accum
 }
 
 // ErrEndAboveTe is returned when the end of the path is not below T_e.
@@ -116,13 +136,20 @@ func (md *Model) LinearCooling(end float64) (*Cooling, error) {
 	if !(lo < te) || !(lo > 0) {
 		return nil, fmt.Errorf("%w (end %g K, equilibrium %g K)", ErrEndAboveTe, lo, te)
 	}
-	T, lnJ, u := md.coolingGrid(te, lo, maxLnStep, farLnStep)
+	c.lo = lo
+	// The totals (the critical rate, the fraction at the end, and the end
+	// where the rest is negligible) need no refinement in the far part of
+	// ln J: the nuclei born there add less than e^(−spanLn) of the extended
+	// volume, and the critical rate agrees with that on the grid refined
+	// there too to a few parts in 10⁹ on the shipped cards
+	// (TestCoolingTotalsGrid). The crossings refine it on demand.
+	T, lnJ, u := md.coolingGrid(te, lo, gridSpec{near: maxLnStep, far: math.Inf(1), u: maxLnStep})
 	tau := make([]float64, len(T))
 	for i := range T {
 		tau[i] = te - T[i]
 	}
-	c.Temp, c.lnJ, c.u = T, lnJ, u
-	c.Sums = integrate(tau, lnJ, u, &c.states)
+	c.Temp = T
+	c.Sums = integrate(tau, lnJ, u, nil)
 	last := len(T) - 1
 	c.End, c.endIdx = T[last], last
 	if c.Reason == EndNegligible {
@@ -136,17 +163,45 @@ func (md *Model) LinearCooling(end float64) (*Cooling, error) {
 	return c, nil
 }
 
+// crossGrid returns the grid for crossings, building it on first use:
+// the grid of the totals refined also where ln J changes by more than
+// farLnStep within farSpanLn of its largest value.
+func (c *Cooling) crossGrid() *crossGrid {
+	c.fineOnce.Do(c.buildCrossGrid)
+	return c.fine
+}
+
+func (c *Cooling) buildCrossGrid() {
+	T, lnJ, u := c.md.coolingGrid(c.Te, c.lo, gridSpec{near: maxLnStep, far: farLnStep, u: maxLnStep})
+	tau := make([]float64, len(T))
+	for i := range T {
+		tau[i] = c.Te - T[i]
+	}
+	g := &crossGrid{T: T, lnJ: lnJ, u: u}
+	integrate(tau, lnJ, u, &g.states)
+	c.fine = g
+}
+
+// gridSpec is how finely a cooling grid follows ln J and ln u: a step is
+// halved where ln J changes by more than near between its ends within
+// spanLn of the largest ln J, by more than far within farSpanLn of it
+// (+Inf: not at all), or where ln u changes by more than u.
+// At most max nodes (0: maxNodes).
+type gridSpec struct {
+	near, far, u float64
+	max          int
+}
+
 // coolingGrid returns temperatures from hi down to lo with ln J and u,
 // on a grid refined where ln J or ln u change fast in the part that
-// matters: by more than near within spanLn of the largest ln J, by more
-// than far within farSpanLn of it (see baseSteps).
-func (md *Model) coolingGrid(hi, lo, near, far float64) (T, lnJ, u []float64) {
-	type node struct{ T, lnJ, u, lnU float64 }
-	eval := func(t float64) node {
+// matters (see gridSpec and baseSteps).
+func (md *Model) coolingGrid(hi, lo float64, g gridSpec) (T, lnJ, u []float64) {
+	eval := func(t float64) gridNode {
 		lnJ, u := md.rateAndGrowth(t)
-		return node{t, lnJ, u, math.Log(u)}
+		return gridNode{t, lnJ, u, math.Log(u)}
 	}
-	base := make([]node, baseSteps+1)
+	work := gridWork.Get().(*gridBuffers)
+	base := work.base
 	maxJ, maxU := math.Inf(-1), 0.0
 	for i := range base {
 		t := hi - (hi-lo)*float64(i)/baseSteps
@@ -157,32 +212,36 @@ func (md *Model) coolingGrid(hi, lo, near, far float64) (T, lnJ, u []float64) {
 		maxJ = math.Max(maxJ, base[i].lnJ)
 		maxU = math.Max(maxU, base[i].u)
 	}
-	nodes := make([]node, 0, 4*len(base))
+	nodes := work.nodes[:0]
 	minStep := 1e-9 * hi
+	most := g.max
+	if most == 0 {
+		most = maxNodes
+	}
 	lnUMin := math.Log(uSpan * maxU)
 	// split reports whether the step from a to b needs a point between.
-	split := func(a, b node) bool {
-		if a.T-b.T <= minStep || len(nodes) >= maxNodes {
+	split := func(a, b gridNode) bool {
+		if a.T-b.T <= minStep || len(nodes) >= most {
 			return false
 		}
 		if top := math.Max(a.lnJ, b.lnJ); top > maxJ-farSpanLn {
-			step := near
+			step := g.near
 			if top < maxJ-spanLn {
-				step = far
+				step = g.far
 			}
 			if math.IsInf(a.lnJ, -1) || math.IsInf(b.lnJ, -1) || math.Abs(b.lnJ-a.lnJ) > step {
 				return true
 			}
 		}
 		if maxU > 0 && math.Max(a.lnU, b.lnU) > lnUMin {
-			if math.IsInf(a.lnU, -1) || math.IsInf(b.lnU, -1) || math.Abs(b.lnU-a.lnU) > near {
+			if math.IsInf(a.lnU, -1) || math.IsInf(b.lnU, -1) || math.Abs(b.lnU-a.lnU) > g.u {
 				return true
 			}
 		}
 		return false
 	}
-	var refine func(a, b node, depth int)
-	refine = func(a, b node, depth int) {
+	var refine func(a, b gridNode, depth int)
+	refine = func(a, b gridNode, depth int) {
 		if depth < 20 && split(a, b) {
 			m := eval((a.T + b.T) / 2)
 			refine(a, m, depth+1)
@@ -199,16 +258,31 @@ func (md *Model) coolingGrid(hi, lo, near, far float64) (T, lnJ, u []float64) {
 	} else {
 		nodes = append(nodes, base[1:]...)
 	}
-	T, lnJ, u = make([]float64, len(nodes)), make([]float64, len(nodes)), make([]float64, len(nodes))
+	n := len(nodes)
+	buf := make([]float64, 3*n) // one allocation for the three columns
+	T, lnJ, u = buf[:n:n], buf[n:2*n:2*n], buf[2*n:]
 	for i, n := range nodes {
 		T[i], lnJ[i], u[i] = n.T, n.lnJ, n.u
 	}
+	work.nodes = nodes[:0]
+	gridWork.Put(work)
 	return T, lnJ, u
 }
 
+// gridNode is a point of a cooling grid while it is built.
+type gridNode struct{ T, lnJ, u, lnU float64 }
+
+// gridBuffers are the working slices of coolingGrid, kept in gridWork
+// between calls: a Monte Carlo run builds a grid for every sample.
+type gridBuffers struct{ base, nodes []gridNode }
+
+var gridWork = sync.Pool{New: func() any {
+	return &gridBuffers{base: make([]gridNode, baseSteps+1), nodes: make([]gridNode, 0, 4*(baseSteps+1))}
+}}
+
 // rateAndGrowth is ln J and u ≥ 0 at T.
 func (md *Model) rateAndGrowth(T float64) (lnJ, u float64) {
-	s := md.At(T)
+	s := md.state(T)
 	u = s.Growth
 	if !(u > 0) {
 		u = 0
@@ -216,16 +290,16 @@ func (md *Model) rateAndGrowth(T float64) (lnJ, u float64) {
 	return s.LnJ, u
 }
 
-// refine steps through grid step i again in crossSteps parts and returns
-// the temperature where val first reaches level in it (the end of the step
-// if the finer sum stays just short of it).
-func (c *Cooling) refine(i int, level float64, val func(*accum) float64) float64 {
-	a := c.states[i]
-	Ta, Tb := c.Temp[i], c.Temp[i+1]
-	prevT, prevV, prevJ, prevU := Ta, val(&a), c.lnJ[i], c.u[i]
+// refine steps through step i of the crossing grid again in crossSteps
+// parts and returns the temperature where val first reaches level in it
+// (the end of the step if the finer sum stays just short of it).
+func (c *Cooling) refine(g *crossGrid, i int, level float64, val func(*accum) float64) float64 {
+	a := g.states[i]
+	Ta, Tb := g.T[i], g.T[i+1]
+	prevT, prevV, prevJ, prevU := Ta, val(&a), g.lnJ[i], g.u[i]
 	for k := 1; k <= crossSteps; k++ {
 		T := Ta + (Tb-Ta)*float64(k)/crossSteps
-		lnJ, u := c.lnJ[i+1], c.u[i+1]
+		lnJ, u := g.lnJ[i+1], g.u[i+1]
 		if k < crossSteps {
 			lnJ, u = c.md.rateAndGrowth(T)
 		}
@@ -242,15 +316,22 @@ func (c *Cooling) refine(i int, level float64, val func(*accum) float64) float64
 	return Tb
 }
 
-// cross returns the temperature where val (LnN or LnXext of the sums, with
-// the same quantity of an accumulator) first reaches level before the end
-// of the path, and false if it does not.
-func (c *Cooling) cross(y []float64, level float64, val func(*accum) float64) (float64, bool) {
-	i, _, ok := crossing(y, level)
-	if !ok {
+// cross returns the temperature where val (the lnN or lnXext of an
+// accumulator) first reaches level before the end of the path, and false
+// if it does not. It searches the crossing grid (see crossGrid).
+func (c *Cooling) cross(level float64, val func(*accum) float64) (float64, bool) {
+	g := c.crossGrid()
+	i := -1
+	for k := 1; k < len(g.states); k++ {
+		if val(&g.states[k]) >= level {
+			i = k - 1
+			break
+		}
+	}
+	if i < 0 {
 		return 0, false
 	}
-	T := c.refine(i, level, val)
+	T := c.refine(g, i, level, val)
 	if T < c.End {
 		return 0, false
 	}
@@ -293,10 +374,17 @@ func (c *Cooling) Reach(q, X float64) CCTPoint {
 	}
 	p := CCTPoint{Rate: q}
 	level := lnXextOf(X) + 4*math.Log(q)
-	T, ok := c.cross(c.Sums.LnXext, level, (*accum).lnXext)
-	if !ok && c.LnXextUnit() >= level-1e-9 {
-		// reached only at the end of the path (q is the critical rate)
-		T, ok = c.End, true
+	// At the critical rate (level within 1e-9 of the total) X is reached
+	// at the end of the path: near the end the extended volume can stay
+	// within parts in 10¹⁴ of its total over kelvins, so a crossing found
+	// on that plateau would be rounding noise.
+	T, ok := c.End, true
+	if total := c.LnXextUnit(); math.Abs(level-total) > 1e-9 {
+		T, ok = c.cross(level, (*accum).lnXext)
+		if !ok && total >= level-1e-9 {
+			// reached only at the end of the path
+			T, ok = c.End, true
+		}
 	}
 	if ok {
 		p.Reached, p.Temp, p.Time = true, T, (c.Te-T)/q

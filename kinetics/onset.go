@@ -31,7 +31,7 @@ func (c *Cooling) Onset(V, q float64) Onset {
 	}
 	shift := math.Log(V) - math.Log(q)
 	o := Onset{LnExpected: c.Sums.LnN[c.endIdx] + shift}
-	if T, ok := c.cross(c.Sums.LnN, -shift, (*accum).lnN); ok {
+	if T, ok := c.cross(-shift, (*accum).lnN); ok {
 		o.Reached, o.Temp, o.Time = true, T, (c.Te-T)/q
 	}
 	return o

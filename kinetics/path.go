@@ -141,7 +141,7 @@ func (md *Model) tabulate(p Path) table {
 		tab.T, tab.lnJ, tab.lnU = []float64{lo}, []float64{floorLn(lnJ)}, []float64{floorLn(math.Log(u))}
 		return tab
 	}
-	T, lnJ, u := md.coolingGrid(hi, lo, tabNear, tabFar)
+	T, lnJ, u := md.coolingGrid(hi, lo, gridSpec{near: tabNear, far: tabFar, u: tabNear})
 	n := len(T)
 	tab.T, tab.lnJ, tab.lnU = make([]float64, n), make([]float64, n), make([]float64, n)
 	for i := range T {
@@ -300,7 +300,8 @@ func (a *accum) lnXext() float64 {
 // the accumulator at every point, for refining a crossing later.
 func integrate(t, lnJ, u []float64, states *[]accum) Sums {
 	n := len(t)
-	s := Sums{L: make([]float64, n), LnN: make([]float64, n), LnXext: make([]float64, n)}
+	buf := make([]float64, 3*n) // one allocation for the three columns
+	s := Sums{L: buf[:n:n], LnN: buf[n : 2*n : 2*n], LnXext: buf[2*n:]}
 	a := newAccum()
 	if states != nil {
 		*states = make([]accum, n)

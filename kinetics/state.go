@@ -103,34 +103,25 @@ func (s State) TimeLag() float64 {
 
 // At evaluates the model at temperature T (K, > 0).
 func (md *Model) At(T float64) State {
+	s := md.state(T)
+	s.Flags = md.flags(s)
+	return s
+}
+
+// state is At without the validity flags, for the paths that need only
+// ln J and u (see rateAndGrowth).
+func (md *Model) state(T float64) State {
 	s := State{T: T, Undercooling: md.m.Te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
 	kT := cnt.Boltzmann * T
 	s.DrivingMole = md.m.Driving.PerMole(T)
 	if math.IsNaN(s.DrivingMole) {
-		s.Flags |= FlagOutsideTable
 		s.Nucleus = cnt.Critical(0, 0, 0, 0, T)
 		return s
 	}
 	s.Dmu = s.DrivingMole / cnt.Avogadro
 	s.Nucleus = cnt.Critical(s.Dmu, md.m.Gamma, md.v, md.f, T)
-	if !(s.Dmu > 0) {
-		s.Flags |= FlagNoDrivingForce
-	} else {
-		if s.Nucleus.Size < SmallNucleus {
-			s.Flags |= FlagSmallNucleus
-		}
-		if s.Nucleus.Barrier < LowBarrier*kT {
-			s.Flags |= FlagLowBarrier
-		}
-	}
 	if md.m.Mobility != nil {
 		s.LnD = md.m.Mobility.LnDiffusivity(T)
-		if math.IsInf(s.LnD, -1) {
-			s.Flags |= FlagNoMobility
-		}
-		if w, ok := md.m.Mobility.(WLF); ok && T > w.Tg+WLFRange {
-			s.Flags |= FlagWLFFarAboveTg
-		}
 		s.Growth = GrowthRate(s.LnD, md.jump, s.Dmu/kT)
 		if s.Dmu > 0 {
 			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
@@ -144,6 +135,33 @@ func (md *Model) At(T float64) State {
 	}
 	s.LnJ = md.lnRate(s, T)
 	return s
+}
+
+// flags are the validity flags of an evaluated state.
+func (md *Model) flags(s State) Flag {
+	var f Flag
+	if math.IsNaN(s.DrivingMole) {
+		return FlagOutsideTable
+	}
+	if !(s.Dmu > 0) {
+		f |= FlagNoDrivingForce
+	} else {
+		if s.Nucleus.Size < SmallNucleus {
+			f |= FlagSmallNucleus
+		}
+		if s.Nucleus.Barrier < LowBarrier*(cnt.Boltzmann*s.T) {
+			f |= FlagLowBarrier
+		}
+	}
+	if md.m.Mobility != nil {
+		if math.IsInf(s.LnD, -1) {
+			f |= FlagNoMobility
+		}
+		if w, ok := md.m.Mobility.(WLF); ok && s.T > w.Tg+WLFRange {
+			f |= FlagWLFFarAboveTg
+		}
+	}
+	return f
 }
 
 // lnRate applies the prefactor model to an evaluated state.
