@@ -148,13 +148,21 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 		}
 		return m / sumW
 	}
-	sse := func(lg float64) float64 {
-		mean := residuals(with(math.Exp(lg)))
-		var s float64
-		for i, ri := range r {
-			d := ri - mean
-			s += weight(i) * d * d
+	// centred is the weighted mean of x and the weighted sum of squares about it.
+	centred := func(x []float64) (mean, ss float64) {
+		for i := range x {
+			mean += weight(i) * x[i]
 		}
+		mean /= sumW
+		for i := range x {
+			d := x[i] - mean
+			ss += weight(i) * d * d
+		}
+		return mean, ss
+	}
+	sse := func(lg float64) float64 {
+		residuals(with(math.Exp(lg)))
+		_, s := centred(r)
 		return s
 	}
 	lo, hi := math.Log(GammaFitMin), math.Log(GammaFitMax)
@@ -170,18 +178,12 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 	f.LnScale = residuals(f.Model)
 	f.Scale = math.Exp(f.LnScale)
 	f.Residuals = make([]float64, n)
-	var ssr, mean float64
+	var ssr float64
 	for i := range r {
 		f.Residuals[i] = r[i] - f.LnScale
 		ssr += weight(i) * f.Residuals[i] * f.Residuals[i]
-		mean += weight(i) * lnJ[i]
 	}
-	mean /= sumW
-	var sst float64
-	for i := range lnJ {
-		d := lnJ[i] - mean
-		sst += weight(i) * d * d
-	}
+	_, sst := centred(lnJ)
 	f.R2 = 1
 	if ssr > 0 && sst > 0 {
 		f.R2 = 1 - ssr/sst
@@ -196,17 +198,10 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 		const h = 1e-4
 		up, down := with(f.Gamma*(1+h)), with(f.Gamma*(1-h))
 		g := make([]float64, n)
-		var gm float64
 		for i, t := range T {
 			g[i] = (up.LnJ(t) - down.LnJ(t)) / (2 * h * f.Gamma)
-			gm += weight(i) * g[i]
 		}
-		gm /= sumW
-		var sgg float64
-		for i := range g {
-			d := g[i] - gm
-			sgg += weight(i) * d * d
-		}
+		gm, sgg := centred(g)
 		s2 := ssr / float64(f.DoF)
 		f.ResidualSD = math.Sqrt(s2)
 		f.GammaSE = math.Sqrt(s2 / sgg)
