@@ -267,21 +267,26 @@ func intervalNote(exact bool, what string, t float64, dof int, how string) strin
 
 // finish adds the data file's notes and the caution to r, writes the plot
 // and the card where they are asked for (each with its note), and renders
-// r. card is nil for a fit that writes none.
+// r. card is nil for a fit that writes none. The card is built before any
+// file is written, so a card that cannot be made leaves no plot behind.
 func (f *fitFlags) finish(e *env, r *result, notes []string, plot func() error, card func() (*presets.Card, []string, error)) error {
 	r.notes = append(r.notes, notes...)
 	r.notes = append(r.notes, caution)
+	var c *presets.Card
+	var header []string
+	if f.cardOut != "" && card != nil {
+		var err error
+		if c, header, err = card(); err != nil {
+			return err
+		}
+	}
 	if f.pf.wanted() {
 		if err := plot(); err != nil {
 			return err
 		}
 		r.notes = append(r.notes, "plot written: "+f.pf.path)
 	}
-	if f.cardOut != "" && card != nil {
-		c, header, err := card()
-		if err != nil {
-			return err
-		}
+	if c != nil {
 		if err := writeCard(f.cardOut, c, header); err != nil {
 			return err
 		}
