@@ -12,8 +12,10 @@ import "math"
 // It is carried as a logarithm so that a vanishing mobility (ln D = −Inf)
 // or a huge one never under- or overflows.
 func LnAttachment(lnD, size, jump float64) float64 {
-	return math.Log(24) + lnD + 2.0/3*math.Log(size) - 2*math.Log(jump)
+	return ln24 + lnD + 2.0/3*math.Log(size) - 2*math.Log(jump)
 }
+
+const ln24 = 3.1780538303479456196 // ln 24, the attachment geometry factor
 
 // LnRate is the natural logarithm of the steady-state nucleation rate per
 // m³·s with the kinetic prefactor written out,
