@@ -28,8 +28,8 @@ func flagName(key string) string { return strings.ReplaceAll(key, "_", "-") }
 func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 	mf := &materialFlags{values: map[string]*string{}, fs: fs}
 	fs.StringVar(&mf.material, "material", "", "shipped card name or path to a .toml card (see undercool materials)")
-	fs.StringVar(&mf.driving, "driving", "", "driving force: linear, hoffman, thompson-spaepen, cp, solution, or FILE.csv with temperature_K and dg_J_per_mol columns")
-	fs.StringVar(&mf.mobility, "mobility", "", "mobility law: arrhenius, vft, wlf or none")
+	fs.StringVar(&mf.driving, "driving", "", "driving force: linear, hoffman, thompson-spaepen, cp, solution, or FILE.csv with temperature_k and dg_j_per_mol columns")
+	fs.StringVar(&mf.mobility, "mobility", "", "mobility law: "+strings.Join(presets.MobilityChoices, ", ")+" (stokes-einstein and diffusivity: a solute in a solvent)")
 	fs.StringVar(&mf.prefactor, "prefactor", "", "rate prefactor: attachment (default), turnbull-fisher, fixed or diffusion (solutions)")
 	fs.StringVar(&mf.solubility, "solubility", "", "solubility table FILE.csv (temperature_UNIT, solubility_UNIT) for driving solution, with --conc or --sat-temp")
 	for _, p := range presets.Params {
