@@ -128,7 +128,7 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 						return nil, fmt.Errorf("%s:%d: column %q: unit %q is not a unit of %s (use %s)", file, line, strings.TrimSpace(h), u, cols[i].Kind.Name, strings.Join(cols[i].Kind.Units(), ", "))
 					}
 				} else if !cols[i].Kind.Bare || len(cols[i].Kind.Units()) > 0 {
-					return nil, fmt.Errorf("%s:%d: column %q needs a unit, e.g. %s_%s", file, line, h, cols[i].Quantity, strings.ReplaceAll(cols[i].Kind.Units()[0], "/", "_per_"))
+					return nil, fmt.Errorf("%s:%d: column %q needs a unit, e.g. %s_%s", file, line, h, cols[i].Quantity, headerExample(cols[i].Kind))
 				}
 				index[j], unitsOf[j] = i, u
 				d.Headers[cols[i].Quantity] = strings.TrimSpace(h)
@@ -174,6 +174,18 @@ func blankOrComment(rec []string) bool {
 		}
 	}
 	return true
+}
+
+// headerExample is the unit part of a header for a kind's SI unit, or of
+// its first unit, as a header spells it (lower case, _per_ for /).
+func headerExample(k units.Kind) string {
+	u := k.Units()[0]
+	for _, x := range k.Units() {
+		if x == k.SI {
+			u = x
+		}
+	}
+	return strings.ReplaceAll(strings.ToLower(u), "/", "_per_")
 }
 
 func seenQuantity(h map[string]string, q string) bool { _, ok := h[q]; return ok }

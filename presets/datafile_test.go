@@ -102,8 +102,8 @@ func TestReadDataErrors(t *testing.T) {
 		name, file string
 		want       []string
 	}{
-		{"missing unit", "temperature,time_s\n300,1\n", []string{"d.csv:1:", `"temperature" needs a unit`, "temperature_c"}},
-		{"missing unit, not bare", "temperature_k,diffusivity\n300,1e-9\n", []string{"d.csv:1:", `"diffusivity" needs a unit`, "diffusivity_cm2_per_s"}},
+		{"missing unit", "temperature,time_s\n300,1\n", []string{"d.csv:1:", `"temperature" needs a unit`, "temperature_k"}},
+		{"missing unit, not bare", "temperature_k,diffusivity\n300,1e-9\n", []string{"d.csv:1:", `"diffusivity" needs a unit`, "diffusivity_m2_per_s"}},
 		{"unknown column", "temperature_k,pressure_pa\n300,1e5\n", []string{"d.csv:1:", `unknown column "pressure_pa"`, "accepted: temperature_UNIT", "time_UNIT", "diffusivity_UNIT", "rate_UNIT", "fraction"}},
 		{"unit of the wrong kind", "temperature_kg\n300\n", []string{"d.csv:1:", `"temperature_kg"`, `"kg"`, "not a unit of temperature"}},
 		{"missing required column", "time_s,fraction\n1,0.5\n", []string{"d.csv:1:", "missing column for temperature", "accepted:"}},

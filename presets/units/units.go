@@ -19,10 +19,11 @@ type unit struct {
 
 // Kind is a physical quantity with the units it may be written in.
 type Kind struct {
-	Name  string          // what it is, for messages ("molar volume")
-	SI    string          // the SI unit, for messages and output
-	Bare  bool            // a number without a unit is taken in SI
-	units map[string]unit // accepted spellings, normalised
+	Name  string            // what it is, for messages ("molar volume")
+	SI    string            // the SI unit, for messages and output
+	Bare  bool              // a number without a unit is taken in SI
+	units map[string]unit   // accepted spellings, in their proper case
+	fold  map[string]string // lower-case spelling → proper spelling
 }
 
 const (
@@ -32,42 +33,70 @@ const (
 )
 
 func k(name, si string, bare bool, u map[string]unit) Kind {
-	return Kind{Name: name, SI: si, Bare: bare, units: u}
+	fold := make(map[string]string, len(u))
+	for spelling := range u {
+		low := strings.ToLower(spelling)
+		if _, dup := fold[low]; dup {
+			panic("units: two spellings of " + name + " fold to " + low)
+		}
+		fold[low] = spelling
+	}
+	return Kind{Name: name, SI: si, Bare: bare, units: u, fold: fold}
 }
 
-// The kinds of quantity undercool reads.
+// lookup finds the unit written as u (already normalised): in any case,
+// except that every m or M must stand as in the proper spelling, so that
+// milli and mega are never confused.
+func (k Kind) lookup(u string) (unit, bool) {
+	proper, ok := k.fold[strings.ToLower(u)]
+	if !ok {
+		return unit{}, false
+	}
+	for i := 0; i < len(u); i++ {
+		if (u[i] == 'm' || u[i] == 'M') && u[i] != proper[i] {
+			return unit{}, false
+		}
+	}
+	return k.units[proper], true
+}
+
+// The kinds of quantity undercool reads. Each unit is written in its
+// proper case; input may be in any case (data-file headers are lower case)
+// except that m and M must be as written here: lower-case m is milli (or
+// metre, minute, mole), upper-case M is mega, and the two never stand for
+// each other.
 var (
 	Temperature = k("temperature", "K", true, map[string]unit{
-		"k": {1, 0}, "c": {1, 273.15}, "°c": {1, 273.15}, "degc": {1, 273.15},
-		"f": {5.0 / 9, 459.67}, "°f": {5.0 / 9, 459.67}, "degf": {5.0 / 9, 459.67},
+		"K": {1, 0}, "C": {1, 273.15}, "°C": {1, 273.15}, "degC": {1, 273.15},
+		"F": {5.0 / 9, 459.67}, "°F": {5.0 / 9, 459.67}, "degF": {5.0 / 9, 459.67},
 	})
 	TemperatureDifference = k("temperature difference", "K", true, map[string]unit{
-		"k": {1, 0}, "c": {1, 0}, "°c": {1, 0}, "degc": {1, 0}, "f": {5.0 / 9, 0}, "°f": {5.0 / 9, 0}, "degf": {5.0 / 9, 0},
+		"K": {1, 0}, "C": {1, 0}, "°C": {1, 0}, "degC": {1, 0}, "F": {5.0 / 9, 0}, "°F": {5.0 / 9, 0}, "degF": {5.0 / 9, 0},
 	})
 	MolarEnergy = k("molar energy", "J/mol", false, map[string]unit{
-		"j/mol": {1, 0}, "kj/mol": {1e3, 0}, "ev": {eV * avog, 0},
+		"J/mol": {1, 0}, "kJ/mol": {1e3, 0}, "eV": {eV * avog, 0},
 		"cal/mol": {calorie, 0}, "kcal/mol": {calorie * 1e3, 0},
 	})
 	EnergyDensity = k("energy per volume", "J/m3", false, map[string]unit{
-		"j/m3": {1, 0}, "kj/m3": {1e3, 0}, "mj/m3": {1e6, 0}, "gj/m3": {1e9, 0}, "j/cm3": {1e6, 0},
+		"J/m3": {1, 0}, "kJ/m3": {1e3, 0}, "MJ/m3": {1e6, 0}, "GJ/m3": {1e9, 0}, "J/cm3": {1e6, 0},
 	})
 	MolarHeatCapacity = k("molar heat capacity", "J/(mol K)", false, map[string]unit{
-		"j/mol/k": {1, 0}, "j/(mol*k)": {1, 0}, "j/(molk)": {1, 0}, "j/molk": {1, 0}, "j/k/mol": {1, 0},
+		"J/mol/K": {1, 0}, "J/(mol*K)": {1, 0}, "J/(molK)": {1, 0}, "J/molK": {1, 0}, "J/K/mol": {1, 0},
 	})
 	InterfacialEnergy = k("interfacial energy", "J/m2", false, map[string]unit{
-		"j/m2": {1, 0}, "mj/m2": {1e-3, 0}, "erg/cm2": {1e-3, 0},
+		"J/m2": {1, 0}, "mJ/m2": {1e-3, 0}, "erg/cm2": {1e-3, 0},
 	})
 	MolarVolume = k("molar volume", "m3/mol", false, map[string]unit{
-		"m3/mol": {1, 0}, "cm3/mol": {1e-6, 0}, "l/mol": {1e-3, 0},
+		"m3/mol": {1, 0}, "cm3/mol": {1e-6, 0}, "L/mol": {1e-3, 0},
 	})
 	Diffusivity = k("diffusivity", "m2/s", false, map[string]unit{
 		"m2/s": {1, 0}, "cm2/s": {1e-4, 0}, "mm2/s": {1e-6, 0}, "um2/s": {1e-12, 0},
 	})
 	Length = k("length", "m", false, map[string]unit{
-		"m": {1, 0}, "cm": {1e-2, 0}, "mm": {1e-3, 0}, "um": {1e-6, 0}, "nm": {1e-9, 0}, "a": {1e-10, 0}, "å": {1e-10, 0}, "pm": {1e-12, 0},
+		"m": {1, 0}, "cm": {1e-2, 0}, "mm": {1e-3, 0}, "um": {1e-6, 0}, "nm": {1e-9, 0}, "A": {1e-10, 0}, "Å": {1e-10, 0}, "pm": {1e-12, 0},
 	})
 	Viscosity = k("viscosity", "Pa s", false, map[string]unit{
-		"pa*s": {1, 0}, "pas": {1, 0}, "mpa*s": {1e-3, 0}, "mpas": {1e-3, 0}, "p": {0.1, 0}, "poise": {0.1, 0}, "cp": {1e-3, 0},
+		"Pa*s": {1, 0}, "Pas": {1, 0}, "mPa*s": {1e-3, 0}, "mPas": {1e-3, 0}, "P": {0.1, 0}, "poise": {0.1, 0}, "cP": {1e-3, 0},
 	})
 	Angle = k("angle", "deg", true, map[string]unit{
 		"deg": {1, 0}, "°": {1, 0}, "rad": {180 / math.Pi, 0},
@@ -80,11 +109,11 @@ var (
 	})
 	Dimensionless = k("number", "", true, map[string]unit{})
 	CoolingRate   = k("cooling rate", "K/s", false, map[string]unit{
-		"k/s": {1, 0}, "c/s": {1, 0}, "°c/s": {1, 0}, "k/min": {1.0 / 60, 0}, "c/min": {1.0 / 60, 0}, "°c/min": {1.0 / 60, 0},
-		"k/h": {1.0 / 3600, 0}, "c/h": {1.0 / 3600, 0}, "°c/h": {1.0 / 3600, 0},
+		"K/s": {1, 0}, "C/s": {1, 0}, "°C/s": {1, 0}, "K/min": {1.0 / 60, 0}, "C/min": {1.0 / 60, 0}, "°C/min": {1.0 / 60, 0},
+		"K/h": {1.0 / 3600, 0}, "C/h": {1.0 / 3600, 0}, "°C/h": {1.0 / 3600, 0},
 	})
 	Volume = k("volume", "m3", false, map[string]unit{
-		"m3": {1, 0}, "l": {1e-3, 0}, "ml": {1e-6, 0}, "cm3": {1e-6, 0}, "ul": {1e-9, 0}, "mm3": {1e-9, 0}, "nl": {1e-12, 0}, "pl": {1e-15, 0}, "um3": {1e-18, 0},
+		"m3": {1, 0}, "L": {1e-3, 0}, "mL": {1e-6, 0}, "cm3": {1e-6, 0}, "uL": {1e-9, 0}, "mm3": {1e-9, 0}, "nL": {1e-12, 0}, "pL": {1e-15, 0}, "um3": {1e-18, 0},
 	})
 	Time = k("time", "s", true, map[string]unit{
 		"s": {1, 0}, "ms": {1e-3, 0}, "us": {1e-6, 0}, "min": {60, 0}, "h": {3600, 0}, "d": {86400, 0}, "day": {86400, 0}, "days": {86400, 0},
@@ -98,13 +127,13 @@ var (
 		"kg/mol": {1, 0}, "g/mol": {1e-3, 0},
 	})
 	Density = k("density", "kg/m3", false, map[string]unit{
-		"kg/m3": {1, 0}, "g/cm3": {1e3, 0}, "g/ml": {1e3, 0}, "g/l": {1, 0},
+		"kg/m3": {1, 0}, "g/cm3": {1e3, 0}, "g/mL": {1e3, 0}, "g/L": {1, 0},
 	})
 	AmountConcentration = k("molar concentration", "mol/m3", false, map[string]unit{
-		"mol/m3": {1, 0}, "mol/l": {1e3, 0}, "mol/dm3": {1e3, 0}, "mmol/l": {1, 0}, "mmol/ml": {1e3, 0},
+		"mol/m3": {1, 0}, "mol/L": {1e3, 0}, "mol/dm3": {1e3, 0}, "mmol/L": {1, 0}, "mmol/mL": {1e3, 0},
 	})
 	MassConcentration = k("mass concentration", "kg/m3", false, map[string]unit{
-		"kg/m3": {1, 0}, "g/l": {1, 0}, "mg/ml": {1, 0}, "g/ml": {1e3, 0}, "mg/l": {1e-3, 0}, "g/dm3": {1, 0},
+		"kg/m3": {1, 0}, "g/L": {1, 0}, "mg/mL": {1, 0}, "g/mL": {1e3, 0}, "mg/L": {1e-3, 0}, "g/dm3": {1, 0},
 	})
 	MassRatio = k("mass ratio", "kg/kg", false, map[string]unit{
 		"kg/kg": {1, 0}, "g/kg": {1e-3, 0}, "g/g": {1, 0}, "mg/g": {1e-3, 0}, "g/100g": {1e-2, 0}, "wt%": {1e-2, 0},
@@ -133,9 +162,10 @@ func (k Kind) allowed() string {
 	return strings.Join(k.Units(), ", ")
 }
 
-// normalise folds the ways people write a unit into one spelling.
+// normalise folds the ways people write a unit into one spelling (case is
+// kept: lookup decides what case may mean).
 func normalise(u string) string {
-	return strings.ToLower(unitSpelling.Replace(u))
+	return unitSpelling.Replace(u)
 }
 
 // unitSpelling is built once: a data file of 10,000 rows parses 20,000 values.
@@ -180,7 +210,7 @@ func Parse(s string, k Kind) (float64, error) {
 		}
 		return x, nil
 	}
-	conv, ok := k.units[u]
+	conv, ok := k.lookup(u)
 	if !ok {
 		return 0, fmt.Errorf("unit %q in %q is not a unit of %s (use %s)", strings.TrimSpace(rest), s, k.Name, k.allowed())
 	}

@@ -49,7 +49,10 @@ func TestParse(t *testing.T) {
 		{"1 kcal/mol", MolarEnergy, 4184},
 		{"1 cal/mol", MolarEnergy, 4.184},
 		{"1.2e3 J/mol", MolarEnergy, 1200},
-		{"13.26 KJ/MOL", MolarEnergy, 13260}, // case does not matter
+		{"13.26 KJ/mol", MolarEnergy, 13260}, // case does not matter but for m and M
+		{"13.26 kj/mol", MolarEnergy, 13260}, // data-file headers are lower case
+		{"5 ml", Volume, 5e-6},               // lower-case m is milli
+		{"2 MJ/m3", EnergyDensity, 2e6},      // upper-case M is mega
 		// Energy per volume.
 		{"1.16e9 J/m3", EnergyDensity, 1.16e9},
 		{"1.16 GJ/m3", EnergyDensity, 1.16e9},
@@ -136,6 +139,13 @@ func TestParseErrors(t *testing.T) {
 		{"13 kJ", MolarEnergy, "not a unit of molar energy"},
 		{"1 m2/s", MolarVolume, "not a unit"},
 		{"3 K", Dimensionless, "a plain number"},
+		// m is milli and M mega: one never stands for the other.
+		{"13.26 KJ/MOL", MolarEnergy, "not a unit of molar energy"},
+		{"140MJ/m2", InterfacialEnergy, "not a unit of interfacial energy"},
+		{"1.16e12mJ/m3", EnergyDensity, "not a unit of energy per volume"},
+		{"1e10MPa.s", Viscosity, "not a unit of viscosity"},
+		{"1Mm", Length, "not a unit of length"},
+		{"1ML", Volume, "not a unit of volume"},
 	}
 	for _, tt := range tests {
 		got, err := Parse(tt.in, tt.kind)
