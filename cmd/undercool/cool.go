@@ -171,7 +171,7 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 		end := 0.0
 		if cf.set("end") {
-			if end, err = parseTemp("end", cf.end); err != nil {
+			if end, err = parseTemp(e, "end", cf.end); err != nil {
 				return err
 			}
 			if !(end < md.Material().Te) {

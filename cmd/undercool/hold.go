@@ -53,7 +53,7 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		if !fs.Changed("at") {
 			return usagef("--at: required: the hold temperature, e.g. --at 700K or --at 450C")
 		}
-		T, err := parseTemp("at", at)
+		T, err := parseTemp(e, "at", at)
 		if err != nil {
 			return err
 		}

@@ -21,6 +21,12 @@ type env struct {
 	stdout, stderr io.Writer
 }
 
+// note prints a one-line remark on stderr: the result stands, but the
+// user may have meant something else.
+func (e *env) note(format string, a ...any) {
+	fmt.Fprintf(e.stderr, "undercool: note: "+format+"\n", a...)
+}
+
 // command is one subcommand: its flags are set up by setup, its work done by run.
 type command struct {
 	summary string

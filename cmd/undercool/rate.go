@@ -97,7 +97,8 @@ func setupRate(fs *pflag.FlagSet) func(*env, []string) error {
 		if err != nil {
 			return err
 		}
-		temps, err := tf.list(defaultSpan(md))
+		lo, hi := defaultSpan(md)
+		temps, err := tf.list(e, lo, hi)
 		if err != nil {
 			return err
 		}

@@ -96,7 +96,7 @@ func setupReport(fs *pflag.FlagSet) func(*env, []string) error {
 		}
 		m := &memo{X: fractions[0], j: j}
 		if fs.Changed("at") {
-			if m.at, err = parseTemp("at", rf.at); err != nil {
+			if m.at, err = parseTemp(e, "at", rf.at); err != nil {
 				return err
 			}
 		}

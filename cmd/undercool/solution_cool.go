@@ -46,7 +46,7 @@ func solutionCool(e *env, cf *coolFlags, pf *plotFlag, c *presets.Card, md *kine
 	}
 	if cf.set("end") {
 		var err error
-		if end, err = parseTemp("end", cf.end); err != nil {
+		if end, err = parseTemp(e, "end", cf.end); err != nil {
 			return true, err
 		}
 		if !(end < tsat) {

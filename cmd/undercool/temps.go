@@ -28,16 +28,34 @@ func addTempFlags(fs *pflag.FlagSet, points int) *tempFlags {
 	return tf
 }
 
+// coldBare is the temperature below which a bare number (kelvin) is more
+// likely meant in degrees Celsius, and earns a note on stderr.
+const coldBare = 150.0 // K
+
 // parseTemp reads one temperature and checks it is above absolute zero.
-func parseTemp(flag, s string) (float64, error) {
+// A bare number is kelvin; one that looks like Celsius gets a note.
+func parseTemp(e *env, flag, s string) (float64, error) {
 	t, err := units.Parse(s, units.Temperature)
 	if err != nil {
 		return 0, usagef("--%s: %v", flag, err)
 	}
+	bare := isBare(s)
 	if !(t > 0) {
+		if bare {
+			return 0, usagef("--%s: %q is at or below absolute zero (a bare number is kelvin; write %sC for Celsius)", flag, s, strings.TrimSpace(s))
+		}
 		return 0, usagef("--%s: %q is at or below absolute zero", flag, s)
 	}
+	if bare && t < coldBare {
+		e.note("--%s %s is read as %g K (a bare number is kelvin); write %sC for Celsius", flag, strings.TrimSpace(s), t, strings.TrimSpace(s))
+	}
 	return t, nil
+}
+
+// isBare reports whether a quantity is written without a unit.
+func isBare(s string) bool {
+	s = strings.TrimSpace(s)
+	return s != "" && strings.IndexFunc(s, func(r rune) bool { return !strings.ContainsRune("0123456789.+-eE", r) }) < 0
 }
 
 // parsePositive reads the value of --flag as a quantity of kind and checks
@@ -58,14 +76,14 @@ func parsePositive(flag, s string, kind units.Kind, what string) (float64, error
 
 // list returns the temperatures asked for, or the default range [lo, hi]
 // from hi down to lo when neither flag is given.
-func (tf *tempFlags) list(lo, hi float64) ([]float64, error) {
+func (tf *tempFlags) list(e *env, lo, hi float64) ([]float64, error) {
 	if tf.fs.Changed("temps") && tf.fs.Changed("range") {
 		return nil, usagef("--temps and --range: give one or the other")
 	}
 	if tf.fs.Changed("temps") {
 		var out []float64
 		for _, s := range strings.Split(tf.temps, ",") {
-			t, err := parseTemp("temps", s)
+			t, err := parseTemp(e, "temps", s)
 			if err != nil {
 				return nil, err
 			}
@@ -78,11 +96,11 @@ func (tf *tempFlags) list(lo, hi float64) ([]float64, error) {
 		if len(parts) < 2 || len(parts) > 3 {
 			return nil, usagef("--range: %q is not FROM:TO:STEP or FROM:TO", tf.span)
 		}
-		from, err := parseTemp("range", parts[0])
+		from, err := parseTemp(e, "range", parts[0])
 		if err != nil {
 			return nil, err
 		}
-		to, err := parseTemp("range", parts[1])
+		to, err := parseTemp(e, "range", parts[1])
 		if err != nil {
 			return nil, err
 		}

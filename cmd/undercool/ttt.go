@@ -234,12 +234,13 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 		if err := transformError(md, j); err != nil {
 			return err
 		}
-		temps, err := tf.list(defaultSpan(md))
+		lo, hi := defaultSpan(md)
+		temps, err := tf.list(e, lo, hi)
 		if err != nil {
 			return err
 		}
 		given := fs.Changed("temps") || fs.Changed("range")
-		lo, hi := noseSpan(temps, given, md)
+		lo, hi = noseSpan(temps, given, md)
 		if !(lo < hi) {
 			// One temperature: no curve to find a nose on; search the default range.
 			lo, hi = defaultSpan(md)
