@@ -328,3 +328,43 @@ func (r *result) renderJSON(w io.Writer) error {
 	_, err = w.Write(b)
 	return err
 }
+
+// readableTime writes a time in seconds in the unit a person would use:
+// s, min, h, days or years, with three significant digits; "never" for
+// +Inf or NaN.
+func readableTime(t float64) string {
+	const (
+		minute = 60.0
+		hour   = 3600.0
+		day    = 86400.0
+		year   = 365.25 * day // Julian year
+	)
+	switch {
+	case math.IsNaN(t) || math.IsInf(t, 1):
+		return "never"
+	case t < minute:
+		return threeSig(t) + " s"
+	case t < hour:
+		return threeSig(t/minute) + " min"
+	case t < day:
+		return threeSig(t/hour) + " h"
+	case t < year:
+		return threeSig(t/day) + " days"
+	default:
+		return threeSig(t/year) + " years"
+	}
+}
+
+// threeSig formats with three significant digits, trailing zeros kept
+// ("1.00", "59.9", "123"), in exponent form below 1e-3 and from 1000 up
+// ("3.60e+04"), so no more than three digits are ever shown.
+func threeSig(x float64) string {
+	if x != 0 && (math.Abs(x) < 1e-3 || math.Abs(x) >= 1e3) {
+		return strconv.FormatFloat(x, 'e', 2, 64)
+	}
+	if x == 0 {
+		return "0"
+	}
+	decimals := max(0, 2-int(math.Floor(math.Log10(math.Abs(x)))))
+	return strconv.FormatFloat(x, 'f', decimals, 64)
+}

@@ -129,7 +129,8 @@ func TestReadableTime(t *testing.T) {
 		{7200, "2.00 h"},
 		{86400 * 3.5, "3.50 days"},
 		{365.25 * 86400 * 5.34, "5.34 years"},
-		{365.25 * 86400 * 1.23e5, "123000 years"},
+		{365.25 * 86400 * 1.23e5, "1.23e+05 years"},
+		{365.25 * 86400 * 36036, "3.60e+04 years"}, // never more than three digits
 		{365.25 * 86400 * 3.97e73, "3.97e+73 years"},
 	} {
 		if got := readableTime(tc.s); got != tc.want {
