@@ -84,6 +84,9 @@ type Model struct {
 	q      float64 // Arrhenius Q for Turnbull–Fisher, J/mol
 }
 
+// minMolecularVolume is the least volume per molecule accepted, m³.
+const minMolecularVolume = 1e-33
+
 // ErrNoMobility is returned for a Turnbull–Fisher prefactor without an
 // Arrhenius mobility law.
 var ErrNoMobility = errors.New("the turnbull-fisher prefactor needs an arrhenius mobility law (d0 and q)")
@@ -134,6 +137,11 @@ func NewModel(m Material) (*Model, error) {
 		}
 	}
 	md := &Model{m: m, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
+	// A molecule smaller than 1e-33 m³ (a thousandth of a nucleon's) is a
+	// unit mistake, and would make v, λ and every nucleus underflow.
+	if !(md.v > minMolecularVolume) || !(md.jump > 0) || math.IsInf(md.jump, 0) {
+		return nil, fmt.Errorf("vm: %g m3/mol gives a molecular volume of %g m3, not a molecule (check the unit)", m.Vm, md.v)
+	}
 	md.lnJump = math.Log(md.jump)
 	if m.Sites > 0 {
 		md.lnN = math.Log(m.Sites)

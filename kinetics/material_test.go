@@ -223,3 +223,14 @@ func TestNewModelViscosityJump(t *testing.T) {
 		t.Errorf("bug: kinetics/material.go NewModel accepts a viscosity law with Jump = 0: %s", strings.Join(bad, "; "))
 	}
 }
+
+// A molar volume so small that the molecule underflows is a unit mistake,
+// not a material: refused, naming vm.
+func TestNewModelTinyMolarVolume(t *testing.T) {
+	m := testMetal()
+	m.Vm = 1e-300
+	_, err := kinetics.NewModel(m)
+	if err == nil || !strings.HasPrefix(err.Error(), "vm:") {
+		t.Errorf("Vm = 1e-300 m3/mol: err = %v, want an error naming vm", err)
+	}
+}
