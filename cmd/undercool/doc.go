@@ -13,7 +13,7 @@ Commands:
 	ttt        TTT curve for a transformed fraction, with its nose
 	hold       time to a fraction at one temperature (storage, anneal)
 	cool       cooling paths: fraction, critical cooling rate, onset, quench factor
-	fit        fit Arrhenius, interfacial-energy or Avrami models to measurements
+	fit        fit Arrhenius, interfacial-energy, Avrami or induction-time models to measurements
 	materials  list the shipped material cards, or show one
 	report     a Markdown memo for a material and a question
 

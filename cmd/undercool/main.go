@@ -77,6 +77,10 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	name := args[0]
 	switch name {
 	case "-h", "--help", "help":
+		if len(args) > 1 && commands[args[1]] != nil {
+			// "undercool help rate" is "undercool rate --help".
+			return run([]string{args[1], "--help"}, stdin, stdout, stderr)
+		}
 		fmt.Fprint(stdout, manual())
 		return 0
 	}

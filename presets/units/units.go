@@ -242,8 +242,12 @@ func ParseAny(s string, kinds ...Kind) (float64, int, error) {
 	for i, k := range kinds {
 		names[i] = k.Name + " (" + k.allowed() + ")"
 	}
-	if _, rest := splitNumber(strings.TrimSpace(s)); strings.TrimSpace(rest) == "" {
-		return 0, 0, first
+	num, rest := splitNumber(strings.TrimSpace(s))
+	if x, err := strconv.ParseFloat(num, 64); err != nil || math.IsInf(x, 0) {
+		return 0, 0, first // not a number at all
+	}
+	if strings.TrimSpace(rest) == "" {
+		return 0, 0, fmt.Errorf("%q needs a unit of %s", s, strings.Join(names, " or "))
 	}
 	return 0, 0, fmt.Errorf("%q is not a %s", s, strings.Join(names, " or "))
 }
