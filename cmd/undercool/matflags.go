@@ -154,7 +154,7 @@ func describeCard(c *presets.Card, md *kinetics.Model) ([]string, object) {
 	}
 	pre := m.Prefactor.String()
 	lines := []string{
-		fmt.Sprintf("material: %s (%s)", c.Name, c.File),
+		materialLine(c),
 		fmt.Sprintf("models: driving force %s; mobility %s; prefactor %s; %s", driving, mob, pre, nucleationSite(m)),
 	}
 	var vals []string
@@ -183,6 +183,14 @@ func describeCard(c *presets.Card, md *kinetics.Model) ([]string, object) {
 	}
 	lines, inputs = describeSolution(c, md, lines, inputs)
 	return lines, inputs
+}
+
+// materialLine names the material and where its card came from.
+func materialLine(c *presets.Card) string {
+	if c.File == c.Name {
+		return "material: " + c.Name
+	}
+	return fmt.Sprintf("material: %s (%s)", c.Name, c.File)
 }
 
 func nucleationSite(m kinetics.Material) string {

@@ -309,7 +309,7 @@ func setupTTT(fs *pflag.FlagSet) func(*env, []string) error {
 			r.rows = append(r.rows, row)
 		}
 		r.notes = flagNotes(all)
-		r.notes = append(r.notes, fmt.Sprintf("nose searched between %.2f and %.2f K to %.2g K; never: nothing transforms (no driving force or no mobility)", lo, hi, kinetics.NoseTolerance))
+		r.notes = append(r.notes, fmt.Sprintf("nose searched between %.2f and %.2f K to %.2g K; \"never\" in the table means nothing transforms there (no driving force or no mobility)", lo, hi, kinetics.NoseTolerance))
 		if overflow {
 			r.notes = append(r.notes, "never also stands for times beyond 1.8e308 s")
 		}
