@@ -171,6 +171,9 @@ func fuzzSeeds() []fuzzInput {
 		seed("report", "demo-alloy", 0, 1, "", "plot=ttt.svg", "fraction=1e-300"),
 		seed("help", "", 3, 0, ""),
 		seed("frobnicate", "", 0, 0, ""),
+
+		// Found by the fuzzer.
+		seed("hold", "demo-alloy", 0, 0, "", "at=1e-100", "fraction=0"), // a note, then the error: two lines
 	}
 }
 

@@ -19,12 +19,14 @@ func main() {
 type env struct {
 	stdin          io.Reader
 	stdout, stderr io.Writer
+	notes          []string // printed on stderr once the command succeeds
 }
 
-// note prints a one-line remark on stderr: the result stands, but the
-// user may have meant something else.
+// note keeps a one-line remark for stderr: the result stands, but the
+// user may have meant something else. A command that fails prints only
+// its error line, so notes appear only with a result.
 func (e *env) note(format string, a ...any) {
-	fmt.Fprintf(e.stderr, "undercool: note: "+format+"\n", a...)
+	e.notes = append(e.notes, fmt.Sprintf("undercool: note: "+format+"\n", a...))
 }
 
 // command is one subcommand: its flags are set up by setup, its work done by run.
@@ -102,6 +104,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	e := &env{stdin: stdin, stdout: stdout, stderr: stderr}
 	if err := do(e, fs.Args()); err != nil {
 		return fail(err)
+	}
+	for _, n := range e.notes {
+		fmt.Fprint(stderr, n)
 	}
 	return 0
 }
