@@ -413,7 +413,7 @@ type CurveAnalysis struct {
 // AnalyzeCurve is AlongPath and Additivity on one tabulation of the model:
 // the fraction along the path (target 0 < X < 1), and the additivity sum for
 // the same fraction with bands of width bandK. Errors: ErrNoRate,
-// ErrNoGrowth, ErrBandWidth.
+// ErrNoGrowth, ErrBandWidth, ErrTooManyBands.
 func (md *Model) AnalyzeCurve(p Path, X, bandK float64) (CurveAnalysis, error) {
 	if !(X > 0 && X < 1) {
 		panic("kinetics: AnalyzeCurve: fraction must be in (0, 1)")

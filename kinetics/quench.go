@@ -6,6 +6,8 @@ import (
 	"math"
 	"sort"
 
+	"gonum.org/v1/gonum/floats"
+
 	"undercool/cnt"
 )
 
@@ -125,6 +127,15 @@ var ErrQuenchOverflow = errors.New("the quench factor overflows: the C-curve giv
 // ErrBandWidth is returned for a non-positive or non-finite band width.
 var ErrBandWidth = errors.New("band width must be positive and finite")
 
+// MaxBands is the most bands a quench is split into: a band width far
+// narrower than the path's span would exhaust memory.
+const MaxBands = 100000
+
+// ErrTooManyBands is returned for a band width that would give more than
+// MaxBands bands over the path, or band numbers past the exact integers of
+// a float64.
+var ErrTooManyBands = fmt.Errorf("band width too narrow for the path: more than %d bands", MaxBands)
+
 // Quench computes the quench factor of a path against a C-curve,
 //
 //	Q = ∫ dt/C(T(t))
@@ -134,10 +145,16 @@ var ErrBandWidth = errors.New("band width must be positive and finite")
 // taken linear in time between points. The bands are of width bandK
 // kelvin (> 0), aligned on multiples of it; each step's share is split
 // between the bands it crosses in proportion to the temperature it spends
-// in each.
+// in each. Errors: ErrBandWidth, ErrTooManyBands, ErrQuenchOverflow.
 func Quench(p Path, c CCurve, bandK float64) (QuenchResult, error) {
 	if !(bandK > 0) || math.IsInf(bandK, 0) {
 		return QuenchResult{}, ErrBandWidth
+	}
+	if len(p.Temp) > 0 {
+		lo, hi := floats.Min(p.Temp), floats.Max(p.Temp)
+		if (hi-lo)/bandK+2 > MaxBands || math.Max(math.Abs(lo), math.Abs(hi))/bandK >= 1<<53 {
+			return QuenchResult{}, ErrTooManyBands
+		}
 	}
 	n := len(p.Time)
 	lnf := make([]float64, n)

@@ -1,6 +1,7 @@
 package kinetics
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -127,6 +128,25 @@ func TestQuenchBadBand(t *testing.T) {
 		if _, err := Quench(p, esTest, w); err == nil {
 			t.Errorf("band width %g: no error", w)
 		}
+	}
+}
+
+// TestQuenchTooManyBands: a band width far below the span of the path, or
+// so narrow that band numbers pass 2^53, is an error, not a loop over
+// billions of bands or a band at a wrapped-around number.
+func TestQuenchTooManyBands(t *testing.T) {
+	p := LinearPath(750, 300, 20, 10)
+	for _, w := range []float64{1e-3, 1e-7, 1e-300, 5e-324} {
+		if _, err := Quench(p, esTest, w); !errors.Is(err, ErrTooManyBands) {
+			t.Errorf("band width %g over 450 K: error %v, want ErrTooManyBands", w, err)
+		}
+	}
+	hold := Path{Time: []float64{0, 10}, Temp: []float64{600, 600}}
+	if _, err := Quench(hold, esTest, 1e-300); !errors.Is(err, ErrTooManyBands) {
+		t.Errorf("band width 1e-300 K at 600 K: error %v, want ErrTooManyBands", err)
+	}
+	if r, err := Quench(p, esTest, 0.005); err != nil || len(r.Bands) > MaxBands {
+		t.Errorf("band width 0.005 K over 450 K: %d bands, error %v", len(r.Bands), err)
 	}
 }
 

@@ -117,6 +117,15 @@ func bandRows(q kinetics.QuenchResult) [][]any {
 	return rows
 }
 
+// bandError is the error of the curve's quench factor: a --band too
+// narrow for the curve is bad input, anything else a failed computation.
+func bandError(err error, band, span float64) error {
+	if errors.Is(err, kinetics.ErrTooManyBands) {
+		return usagef("--band: %g K over a curve spanning %.2f K gives more than %d bands; use a wider band", band, span, kinetics.MaxBands)
+	}
+	return fmt.Errorf("cool: %v", err)
+}
+
 func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, format string, X, V, band float64, sf *spreadFlags) error {
 	var es *kinetics.EvanchoStaley
 	if cf.set("c-curve") {
@@ -164,7 +173,7 @@ func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, forma
 		r.about, inputs = about, in
 		a, err := md.AnalyzeCurve(p, X, band)
 		if err != nil {
-			return fmt.Errorf("cool: %v", err)
+			return bandError(err, band, Tmax-Tmin)
 		}
 		te := md.Material().Te
 		line := fmt.Sprintf("fraction at the end of the curve: %.4g (exact path integral)", a.Path.Fraction)
@@ -216,7 +225,7 @@ func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, forma
 	if es != nil {
 		q, err := kinetics.Quench(p, *es, band)
 		if err != nil {
-			return fmt.Errorf("cool: %v", err)
+			return bandError(err, band, Tmax-Tmin)
 		}
 		quench, k1 = &q, es.K1
 		cc = fmt.Sprintf("Evancho-Staley, k1 = %g, k2 = %g s, k3 = %g J/mol, k4 = %g K, k5 = %g J/mol", es.K1, es.K2, es.K3, es.K4, es.K5)
