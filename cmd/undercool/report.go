@@ -515,8 +515,9 @@ func (m *memo) writeResults(b *bytes.Buffer) {
 		b.WriteString("\nThe nose estimate assumes the whole path is spent at the nose; a real path spends only part of its time there, so the exact critical rate is lower.\n")
 	}
 	if m.at > 0 && m.hold.Dmu > 0 {
-		fmt.Fprintf(b, "\nAt %.2f K: undercooling %.2f K, log10 J = %.3f (J in m⁻³ s⁻¹), growth rate u = %.4g m/s, critical nucleus %.4g molecules.\n",
-			m.at, m.hold.Undercooling, m.hold.Log10J(), m.hold.Growth, m.hold.Nucleus.Size)
+		// No mobility (below the VFT T0) gives log10 J = −Inf: the dash, as in the tables.
+		fmt.Fprintf(b, "\nAt %.2f K: undercooling %.2f K, log10 J = %s (J in m⁻³ s⁻¹), growth rate u = %s m/s, critical nucleus %s molecules.\n",
+			m.at, m.hold.Undercooling, fixed(3)(m.hold.Log10J()), sig(4)(m.hold.Growth), sig(4)(m.hold.Nucleus.Size))
 	}
 
 	fmt.Fprintf(b, "\nTTT table for X = %s:\n\n", fracLabel(m.X))
