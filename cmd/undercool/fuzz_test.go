@@ -173,9 +173,10 @@ func fuzzSeeds() []fuzzInput {
 		seed("frobnicate", "", 0, 0, ""),
 
 		// Found by the fuzzer.
-		seed("hold", "demo-alloy", 0, 0, "", "at=1e-100", "fraction=0"), // a note, then the error: two lines
-		seed("cool", "demo-alloy", 0, 1, curve, "curve=-", "band=1e-3"), // 900 000 bands: seconds, 1e-7 K runs out of memory
-		seed("report", "vit1", 0, 1, "", "at=1"),                        // below the VFT T0: log10 J = -Inf in the memo
+		seed("hold", "demo-alloy", 0, 0, "", "at=1e-100", "fraction=0"),  // a note, then the error: two lines
+		seed("cool", "demo-alloy", 0, 1, curve, "curve=-", "band=1e-3"),  // 900 000 bands: seconds, 1e-7 K runs out of memory
+		seed("report", "vit1", 0, 1, "", "at=1"),                         // below the VFT T0: log10 J = -Inf in the memo
+		seed("hold", "demo-alloy", 0, 1, "", "at=1e-100", "fraction=.1"), // nucleus of +Inf molecules, +Inf kT
 	}
 }
 

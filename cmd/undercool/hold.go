@@ -107,8 +107,9 @@ func setupHold(fs *pflag.FlagSet) func(*env, []string) error {
 		if drives {
 			r.summary = append(r.summary,
 				fmt.Sprintf("undercooling %.2f K; driving force %.4g J/mol", s.Undercooling, s.DrivingMole),
-				fmt.Sprintf("critical nucleus: radius %.4g nm, %.4g molecules, barrier %.4g J (%.4g kT)",
-					s.Nucleus.Radius*1e9, s.Nucleus.Size, s.Nucleus.Barrier, s.Nucleus.Barrier/kT))
+				// near absolute zero the size and barrier/kT overflow: the dash, as in the tables
+				fmt.Sprintf("critical nucleus: radius %s nm, %s molecules, barrier %s J (%s kT)",
+					sig(4)(s.Nucleus.Radius*1e9), sig(4)(s.Nucleus.Size), sig(4)(s.Nucleus.Barrier), sig(4)(s.Nucleus.Barrier/kT)))
 		} else {
 			r.summary = append(r.summary, fmt.Sprintf("undercooling %.2f K: no driving force, no nucleus", s.Undercooling))
 		}
