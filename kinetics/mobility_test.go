@@ -57,10 +57,11 @@ func (r refRow) float(t *testing.T, i int) float64 {
 	return x
 }
 
-// Arrhenius D = D0·exp(−Qd/RT) against the diffusion table of Callister,
-// Materials Science and Engineering: An Introduction, Table 5.2 and Example
-// Problem 5.4 (testdata/ref/diffusion-arrhenius.txt, from memory; see the
-// file). Tolerance per row: half a unit in the last printed digit (values
+// Arrhenius D = D0·exp(−Qd/RT) against ten rows of the diffusion-data table
+// of Callister and Rethwisch, Materials Science and Engineering: An
+// Introduction, Table 5.2, whose D0 and Qd come from Smithells Metals
+// Reference Book, 7th ed. (1992) (testdata/ref/diffusion-arrhenius.txt, from
+// memory; see the file). Tolerance per row: half a unit in the last printed digit (values
 // have 2 figures) plus 2 % for the book's R = 8.31 J/(mol·K) and 273-K offset
 // against our exact R and the same offset.
 func TestArrheniusCallisterTable(t *testing.T) {
