@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"undercool/cnt"
+	"undercool/kinetics/internal/bracket"
 )
 
 // Search range of the interfacial-energy fit, J/m²: from well below any
@@ -166,7 +167,7 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 		return s
 	}
 	lo, hi := math.Log(GammaFitMin), math.Log(GammaFitMax)
-	lg, _, err := MinimizeScan(sse, lo, hi, 48, 1e-9)
+	lg, _, err := bracket.MinimizeScan(sse, lo, hi, 48, 1e-9)
 	if err != nil {
 		return nil, fmt.Errorf("fitting gamma: %v", err)
 	}

@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"undercool/kinetics"
+	"undercool/kinetics/internal/bracket"
 )
 
 // TestLithiumDisilicateNucleationMaximum is an order-of-magnitude check of
@@ -32,7 +33,7 @@ func TestLithiumDisilicateNucleationMaximum(t *testing.T) {
 	md := shippedModel(t, "lithium-disilicate")
 	m := md.Material()
 	lo, hi := 600.0, m.Te
-	Tj, negLnJ, err := kinetics.MinimizeScan(func(T float64) float64 { return -md.LnJ(T) }, lo, hi, 48, kinetics.NoseTolerance)
+	Tj, negLnJ, err := bracket.MinimizeScan(func(T float64) float64 { return -md.LnJ(T) }, lo, hi, 48, kinetics.NoseTolerance)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -1,24 +1,23 @@
-package kinetics
+// Package bracket holds the one-dimensional searches of the project, once:
+// a bracketing minimizer and a bracketing root finder, both after Brent.
+// gonum has neither; every package under kinetics that needs one uses these.
+//
+// Brent R.P., Algorithms for Minimization without Derivatives, Prentice-Hall
+// (1973), ch. 4 (zero) and ch. 5 (localmin).
+package bracket
 
 import (
 	"errors"
 	"math"
 )
 
-// The one-dimensional searches of the project live here, once: a bracketing
-// minimizer and a bracketing root finder, both after Brent. gonum has
-// neither; every package that needs one uses these.
-//
-// Brent R.P., Algorithms for Minimization without Derivatives, Prentice-Hall
-// (1973), ch. 4 (zero) and ch. 5 (localmin).
-
 var (
 	// ErrNoBracket is returned by Root when f does not change sign on the interval.
-	ErrNoBracket = errors.New("kinetics: the function does not change sign on the interval")
+	ErrNoBracket = errors.New("bracket: the function does not change sign on the interval")
 	// ErrNoConvergence is returned when a search runs out of its iteration budget.
-	ErrNoConvergence = errors.New("kinetics: search did not converge")
+	ErrNoConvergence = errors.New("bracket: search did not converge")
 	// ErrNotFinite is returned by Root when f is NaN on the interval.
-	ErrNotFinite = errors.New("kinetics: the function is NaN on the interval")
+	ErrNotFinite = errors.New("bracket: the function is NaN on the interval")
 )
 
 const (
@@ -30,10 +29,10 @@ const (
 
 func checkInterval(name string, lo, hi, tol float64) {
 	if !(lo < hi) || math.IsInf(lo, 0) || math.IsInf(hi, 0) {
-		panic("kinetics: " + name + ": need finite lo < hi")
+		panic("bracket: " + name + ": need finite lo < hi")
 	}
 	if !(tol > 0) {
-		panic("kinetics: " + name + ": need tol > 0")
+		panic("bracket: " + name + ": need tol > 0")
 	}
 }
 
@@ -147,7 +146,7 @@ func Minimize(f func(float64) float64, lo, hi, tol float64) (x, fx float64, err 
 func MinimizeScan(f func(float64) float64, lo, hi float64, n int, tol float64) (x, fx float64, err error) {
 	checkInterval("MinimizeScan", lo, hi, tol)
 	if n < 3 {
-		panic("kinetics: MinimizeScan: need n >= 3")
+		panic("bracket: MinimizeScan: need n >= 3")
 	}
 	best, fbest := -1, math.Inf(1)
 	step := (hi - lo) / float64(n-1)
