@@ -8,8 +8,10 @@ import (
 	"strings"
 
 	"github.com/spf13/pflag"
+	"gonum.org/v1/gonum/floats"
 
 	"undercool/kinetics"
+	"undercool/kinetics/fit"
 	"undercool/presets"
 	"undercool/presets/units"
 )
@@ -140,7 +142,7 @@ func fitError(d *presets.Data, err error) error {
 	if errors.As(err, &pe) && pe.Index >= 0 && pe.Index < len(d.Lines) {
 		return usagef("%s:%d: %s", d.File, d.Lines[pe.Index], pe.Msg)
 	}
-	if errors.Is(err, kinetics.ErrFewPoints) {
+	if errors.Is(err, fit.ErrFewPoints) {
 		return usagef("%s: %d data rows; a fit of 2 parameters needs at least 2", d.File, len(d.Lines))
 	}
 	return usagef("%s: %v", d.File, err)
@@ -190,8 +192,37 @@ func statsLine(n, dof int, r2, sd float64, of string) string {
 	return fmt.Sprintf("points: %d, %d degrees of freedom; R2 = %.5f; residual SD = %.3g in %s", n, dof, r2, sd, of)
 }
 
+// fitWarning is a remark on the data that does not stop the fit.
+type fitWarning struct {
+	Key  string // snake_case name, for JSON
+	Text string // one sentence
+}
+
+// coldLimit is the temperature below which a whole Arrhenius data set is
+// suspected of being degrees Celsius written as kelvin: diffusion or
+// annealing data of a metal all below 250 K is rare (common practice).
+const coldLimit = 250.0 // K
+
+// celsiusWarnings applies two rules of thumb for a temperature column in
+// the wrong scale (common practice): every temperature below coldLimit, or
+// a fit that is much straighter with every temperature shifted by ±273.15 K.
+func celsiusWarnings(T []float64, f *fit.ArrheniusFit) []fitWarning {
+	var out []fitWarning
+	if floats.Max(T) < coldLimit {
+		out = append(out, fitWarning{"all_below_250_k", fmt.Sprintf(
+			"every temperature is below %g K; if they are degrees Celsius, name the column temperature_c", coldLimit)})
+	}
+	if f.Straighter(units.CelsiusOffset) {
+		out = append(out, fitWarning{"straighter_if_celsius", "the temperatures look like degrees Celsius read as kelvin: the points lie on a much straighter line 273.15 K higher; name the column temperature_c if so"})
+	}
+	if f.Straighter(-units.CelsiusOffset) {
+		out = append(out, fitWarning{"straighter_if_kelvin", "the temperatures look like kelvin read as degrees Celsius: the points lie on a much straighter line 273.15 K lower; name the column temperature_k if so"})
+	}
+	return out
+}
+
 // warningsJSON lists fit warnings for JSON.
-func warningsJSON(ws []kinetics.FitWarning) []object {
+func warningsJSON(ws []fitWarning) []object {
 	out := []object{}
 	for _, w := range ws {
 		out = append(out, object{{"key", w.Key}, {"text", w.Text}})

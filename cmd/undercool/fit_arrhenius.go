@@ -9,7 +9,7 @@ import (
 	"gonum.org/v1/gonum/unit/constant"
 
 	"undercool/cnt"
-	"undercool/kinetics"
+	"undercool/kinetics/fit"
 	"undercool/presets"
 	"undercool/presets/units"
 )
@@ -73,11 +73,12 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 	if err := aboveZero(d, T); err != nil {
 		return err
 	}
-	fit, err := kinetics.FitArrhenius(T, y, w)
+	res, err := fit.Arrhenius(T, y, w)
 	if err != nil {
 		return fitError(d, err)
 	}
-	l := fit.Line
+	l := res.Line
+	warnings := celsiusWarnings(T, res)
 	kj := func(x float64) string { return fmt.Sprintf("%.4g", x/1e3) }
 	law := fmt.Sprintf("%s = A exp(-Q/RT)", q.symbol)
 	if q.symbol == "D" {
@@ -92,28 +93,28 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 		inputs: object{{"data_file", d.File}, {"points", l.N}, {"temperature_column", d.Headers["temperature"]},
 			{"value_column", d.Headers[q.col.Quantity]}, {"quantity", q.symbol}, {"weighted", w != nil}},
 	}
-	for _, wn := range fit.Warnings {
+	for _, wn := range warnings {
 		r.summary = append(r.summary, "warning: "+wn.Text)
 	}
 	r.summary = append(r.summary,
-		fmt.Sprintf("Q = %s kJ/mol (%.0f J/mol, %.4g eV)%s", kj(fit.Q), fit.Q, fit.Q/(cnt.Avogadro*electronVolt), spreadText(fit.QSE, fit.QCI, kj, " kJ/mol")),
-		fmt.Sprintf("pre-exponential = %s %s%s%s", sig(4)(fit.A), q.unit, spreadText(math.NaN(), fit.ACI, g(4), ""), lnText("A", fit.LnA, fit.LnASE, fit.Line.InterceptCI())),
+		fmt.Sprintf("Q = %s kJ/mol (%.0f J/mol, %.4g eV)%s", kj(res.Q), res.Q, res.Q/(cnt.Avogadro*electronVolt), spreadText(res.QSE, res.QCI, kj, " kJ/mol")),
+		fmt.Sprintf("pre-exponential = %s %s%s%s", sig(4)(res.A), q.unit, spreadText(math.NaN(), res.ACI, g(4), ""), lnText("A", res.LnA, res.LnASE, res.Line.InterceptCI())),
 		statsLine(l.N, l.DoF, l.R2, l.ResidualSD, "ln y"),
 	)
 	r.extra = object{
-		{"activation_energy_j_per_mol", fit.Q},
-		{"activation_energy_se_j_per_mol", fit.QSE},
-		{"activation_energy_ci95_j_per_mol", ciJSON(fit.QCI)},
-		{"activation_energy_kj_per_mol", fit.Q / 1e3},
-		{"activation_energy_ev", fit.Q / (cnt.Avogadro * electronVolt)},
-		{"pre_exponential", fit.A},
+		{"activation_energy_j_per_mol", res.Q},
+		{"activation_energy_se_j_per_mol", res.QSE},
+		{"activation_energy_ci95_j_per_mol", ciJSON(res.QCI)},
+		{"activation_energy_kj_per_mol", res.Q / 1e3},
+		{"activation_energy_ev", res.Q / (cnt.Avogadro * electronVolt)},
+		{"pre_exponential", res.A},
 		{"pre_exponential_unit", q.unit},
-		{"pre_exponential_ci95", ciJSON(fit.ACI)},
-		{"ln_pre_exponential", fit.LnA},
-		{"ln_pre_exponential_se", fit.LnASE},
+		{"pre_exponential_ci95", ciJSON(res.ACI)},
+		{"ln_pre_exponential", res.LnA},
+		{"ln_pre_exponential_se", res.LnASE},
 	}
 	r.extra = append(r.extra, scatterJSON("residual_sd_ln", l.R2, l.ResidualSD, l.DoF, l.T)...)
-	r.extra = append(r.extra, kv{"warnings", warningsJSON(fit.Warnings)})
+	r.extra = append(r.extra, kv{"warnings", warningsJSON(warnings)})
 	r.cols = []column{
 		{"line", "line", nil},
 		{"T (K)", "temperature_k", fixed(2)},
@@ -124,16 +125,16 @@ func (f *fitFlags) arrhenius(e *env, path string) error {
 		{"residual (ln)", "residual_ln", fixed(4)},
 	}
 	for i, t := range T {
-		r.rows = append(r.rows, []any{fmt.Sprint(d.Lines[i]), t, t - kinetics.CelsiusOffset, 1 / t, y[i], math.Exp(l.At(1 / t)), l.Residuals[i]})
+		r.rows = append(r.rows, []any{fmt.Sprint(d.Lines[i]), t, t - units.CelsiusOffset, 1 / t, y[i], math.Exp(l.At(1 / t)), l.Residuals[i]})
 	}
 	r.notes = append(r.notes, intervalNote(l.Exact(), "line", l.T, l.DoF, "; the pre-exponential's interval is exp of that of ln A"))
 	return f.finish(e, r, notes,
-		func() error { return arrheniusPlot(f.pf, dataName(d), q.symbol, q.unit, T, y, fit) },
+		func() error { return arrheniusPlot(f.pf, dataName(d), q.symbol, q.unit, T, y, res) },
 		func() (*presets.Card, []string, error) {
 			if q.col.Quantity != "diffusivity" {
 				return nil, nil, usagef("--card-out: a card holds an Arrhenius diffusivity (d0, q); %s has a %s column", d.File, d.Headers[q.col.Quantity])
 			}
-			return f.arrheniusCard(d, fit)
+			return f.arrheniusCard(d, res)
 		})
 }
 
@@ -146,7 +147,7 @@ func weighted(w []float64) string {
 
 // arrheniusCard is the card --card-out writes: the --material card with d0
 // and q replaced, or a card holding only them.
-func (f *fitFlags) arrheniusCard(d *presets.Data, fit *kinetics.ArrheniusFit) (*presets.Card, []string, error) {
+func (f *fitFlags) arrheniusCard(d *presets.Data, res *fit.ArrheniusFit) (*presets.Card, []string, error) {
 	var c *presets.Card
 	header := []string{fmt.Sprintf("d0 and q fitted by undercool fit arrhenius to %s.", dataName(d))}
 	if f.materialGiven() != "" {
@@ -164,18 +165,18 @@ func (f *fitFlags) arrheniusCard(d *presets.Data, fit *kinetics.ArrheniusFit) (*
 	}
 	c.Mobility = "arrhenius"
 	c.Description = strings.TrimSpace(c.Description + " (d0 and q fitted to " + dataName(d) + ")")
-	src := fmt.Sprintf("undercool fit arrhenius of %s, %d points", dataName(d), fit.Line.N)
+	src := fmt.Sprintf("undercool fit arrhenius of %s, %d points", dataName(d), res.Line.N)
 	qs, ds := src, src
-	if !fit.Line.Exact() {
-		qs += fmt.Sprintf(", 95 %% interval %.5g to %.5g kJ/mol", fit.QCI[0]/1e3, fit.QCI[1]/1e3)
-		ds += fmt.Sprintf(", 95 %% interval %.4g to %.4g m2/s", fit.ACI[0], fit.ACI[1])
+	if !res.Line.Exact() {
+		qs += fmt.Sprintf(", 95 %% interval %.5g to %.5g kJ/mol", res.QCI[0]/1e3, res.QCI[1]/1e3)
+		ds += fmt.Sprintf(", 95 %% interval %.4g to %.4g m2/s", res.ACI[0], res.ACI[1])
 	} else {
 		qs += ", exact line through two points"
 		ds = qs
 	}
 	if err := setValues(c,
-		[3]string{"q", fmt.Sprintf("%.7g kJ/mol", fit.Q/1e3), qs},
-		[3]string{"d0", fmt.Sprintf("%.7g m2/s", fit.A), ds}); err != nil {
+		[3]string{"q", fmt.Sprintf("%.7g kJ/mol", res.Q/1e3), qs},
+		[3]string{"d0", fmt.Sprintf("%.7g m2/s", res.A), ds}); err != nil {
 		return nil, nil, err
 	}
 	return c, header, nil

@@ -5,7 +5,7 @@ import (
 	"math"
 	"strings"
 
-	"undercool/kinetics"
+	"undercool/kinetics/fit"
 	"undercool/presets"
 	"undercool/presets/units"
 )
@@ -31,11 +31,11 @@ func (f *fitFlags) avrami(e *env, path string) error {
 			return usagef("%s:%d: column \"fraction\": %s lies outside [0, 1] (a transformed fraction; points at 0 and 1 are left out of the fit)", d.File, d.Lines[i], sig(6)(x))
 		}
 	}
-	fit, err := kinetics.FitAvrami(t, X, w)
+	res, err := fit.Avrami(t, X, w)
 	if err != nil {
 		return fitError(d, err)
 	}
-	l := fit.Line
+	l := res.Line
 	unit, factor := timeUnit(d.Headers["time"])
 	inUnit := func(s float64) string {
 		if factor == 1 {
@@ -43,10 +43,10 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		}
 		return fmt.Sprintf("%s s (%s %s)", sig(4)(s), sig(4)(s/factor), unit)
 	}
-	half, t95 := fit.HalfTime(), fit.TimeTo(0.95)
-	halfCI, t95CI := fit.TimeToCI(0.5), fit.TimeToCI(0.95)
+	half, t95 := res.HalfTime(), res.TimeTo(0.95)
+	halfCI, t95CI := res.TimeToCI(0.5), res.TimeToCI(0.95)
 	var leftLines []int
-	for _, i := range fit.Skipped {
+	for _, i := range res.Skipped {
 		leftLines = append(leftLines, d.Lines[i])
 	}
 	r := &result{
@@ -58,11 +58,11 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		inputs: object{{"data_file", d.File}, {"rows", len(t)}, {"points_used", l.N}, {"time_column", d.Headers["time"]}, {"weighted", w != nil}},
 	}
 	r.summary = []string{
-		fmt.Sprintf("n = %.4g%s", fit.N, spreadText(fit.NSE, fit.NCI, g(4), "")),
-		fmt.Sprintf("k = %s s^-%.4g%s%s", sig(4)(fit.K), fit.N, spreadText(math.NaN(), fit.KCI, g(4), ""), lnText("k", fit.LnK, fit.LnKSE, fit.Line.InterceptCI())),
+		fmt.Sprintf("n = %.4g%s", res.N, spreadText(res.NSE, res.NCI, g(4), "")),
+		fmt.Sprintf("k = %s s^-%.4g%s%s", sig(4)(res.K), res.N, spreadText(math.NaN(), res.KCI, g(4), ""), lnText("k", res.LnK, res.LnKSE, res.Line.InterceptCI())),
 	}
 	if factor != 1 {
-		r.summary = append(r.summary, fmt.Sprintf("k = %s %s^-%.4g with t in %s", sig(4)(fit.K*math.Pow(factor, fit.N)), unit, fit.N, unit))
+		r.summary = append(r.summary, fmt.Sprintf("k = %s %s^-%.4g with t in %s", sig(4)(res.K*math.Pow(factor, res.N)), unit, res.N, unit))
 	}
 	r.summary = append(r.summary,
 		fmt.Sprintf("half time = %s%s", inUnit(half), spreadText(math.NaN(), halfCI, g(4), " s")),
@@ -77,14 +77,14 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		r.summary = append(r.summary, fmt.Sprintf("left out: %d rows with X = 0 or 1 (lines %s)", len(leftLines), strings.Join(s, ", ")))
 	}
 	r.extra = object{
-		{"avrami_exponent", fit.N},
-		{"avrami_exponent_se", fit.NSE},
-		{"avrami_exponent_ci95", ciJSON(fit.NCI)},
-		{"rate_constant", fit.K},
+		{"avrami_exponent", res.N},
+		{"avrami_exponent_se", res.NSE},
+		{"avrami_exponent_ci95", ciJSON(res.NCI)},
+		{"rate_constant", res.K},
 		{"rate_constant_unit", "s^-n"},
-		{"rate_constant_ci95", ciJSON(fit.KCI)},
-		{"ln_rate_constant", fit.LnK},
-		{"ln_rate_constant_se", fit.LnKSE},
+		{"rate_constant_ci95", ciJSON(res.KCI)},
+		{"ln_rate_constant", res.LnK},
+		{"ln_rate_constant_se", res.LnKSE},
 		{"half_time_s", half},
 		{"half_time_ci95_s", ciJSON(halfCI)},
 		{"time_to_95_percent_s", t95},
@@ -103,11 +103,11 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		{"used", "used", nil},
 	}
 	used := map[int]int{}
-	for j, i := range fit.Used {
+	for j, i := range res.Used {
 		used[i] = j
 	}
 	for i := range t {
-		fitted := -math.Expm1(-fit.K * math.Pow(t[i], fit.N))
+		fitted := -math.Expm1(-res.K * math.Pow(t[i], res.N))
 		lnT, lnLn, res, u := math.NaN(), math.NaN(), math.NaN(), "left out"
 		if t[i] > 0 {
 			lnT = math.Log(t[i])
@@ -118,7 +118,7 @@ func (f *fitFlags) avrami(e *env, path string) error {
 		r.rows = append(r.rows, []any{fmt.Sprint(d.Lines[i]), t[i], X[i], lnT, lnLn, fitted, res, u})
 	}
 	r.notes = append(r.notes, intervalNote(l.Exact(), "line", l.T, l.DoF, "; those of k and the times are first-order (delta method) on their logarithms"))
-	return f.finish(e, r, notes, func() error { return avramiPlot(f.pf, dataName(d), t, X, fit) }, nil)
+	return f.finish(e, r, notes, func() error { return avramiPlot(f.pf, dataName(d), t, X, res) }, nil)
 }
 
 // timeUnit returns the unit of a time header (time_min → "min") and its

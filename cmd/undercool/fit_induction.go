@@ -11,6 +11,7 @@ import (
 
 	"undercool/cnt"
 	"undercool/kinetics"
+	"undercool/kinetics/fit"
 	"undercool/presets"
 	"undercool/presets/units"
 )
@@ -61,15 +62,15 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 	}
 	T, S, ti := d.Columns["temperature"], d.Columns["supersaturation"], d.Columns["induction_time"]
 	v := vm / cnt.Avogadro
-	fit, err := kinetics.FitInduction(T, S, ti, w, v, shape, V)
+	res, err := fit.Induction(T, S, ti, w, v, shape, V)
 	if err != nil {
 		var pe *kinetics.PointError
-		if errors.As(err, &pe) || errors.Is(err, kinetics.ErrFewPoints) || errors.Is(err, kinetics.ErrSameX) {
+		if errors.As(err, &pe) || errors.Is(err, fit.ErrFewPoints) || errors.Is(err, fit.ErrSameX) {
 			return fitError(d, err)
 		}
 		return usagef("%s: %v", d.File, err)
 	}
-	line := fit.Line
+	line := res.Line
 	about := []string{
 		fmt.Sprintf("material: %s (%s); v = %.4g m3 per molecule (V_m = %.4g m3/mol), f(theta) = %.4g", card.Name, card.File, v, vm, shape),
 		dataLine(d, line.N, w, "temperature", "supersaturation", "induction_time"),
@@ -89,32 +90,32 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		inputs: inputs,
 	}
 	r.summary = []string{
-		gammaText(fit.Gamma, fit.GammaSE, fit.GammaCI, 4),
+		gammaText(res.Gamma, res.GammaSE, res.GammaCI, 4),
 	}
 	if V > 0 {
-		r.summary = append(r.summary, fmt.Sprintf("A = %s m^-3 s^-1%s", sig(4)(fit.A), spreadText(math.NaN(), fit.ACI, g(4), " m^-3 s^-1"))+lnText("A", fit.LnA, fit.LnASE, [2]float64{-line.InterceptCI()[1] - math.Log(V), -line.InterceptCI()[0] - math.Log(V)}))
+		r.summary = append(r.summary, fmt.Sprintf("A = %s m^-3 s^-1%s", sig(4)(res.A), spreadText(math.NaN(), res.ACI, g(4), " m^-3 s^-1"))+lnText("A", res.LnA, res.LnASE, [2]float64{-line.InterceptCI()[1] - math.Log(V), -line.InterceptCI()[0] - math.Log(V)}))
 	} else {
-		r.summary = append(r.summary, fmt.Sprintf("A·V = %s s^-1 (give --volume for A itself)", sig(4)(math.Exp(fit.LnAV))))
+		r.summary = append(r.summary, fmt.Sprintf("A·V = %s s^-1 (give --volume for A itself)", sig(4)(math.Exp(res.LnAV))))
 	}
 	r.summary = append(r.summary,
-		fmt.Sprintf("slope B' = %.5g K^3, intercept %.5g (ln s)", fit.Slope, line.Intercept),
+		fmt.Sprintf("slope B' = %.5g K^3, intercept %.5g (ln s)", res.Slope, line.Intercept),
 		statsLine(line.N, line.DoF, line.R2, line.ResidualSD, "ln t"),
-		fmt.Sprintf("critical nucleus over the data with the fitted gamma: %.3g to %.3g molecules", fit.MinSize, fit.MaxSize))
-	r.extra = gammaJSON(fit.Gamma, fit.GammaSE, fit.GammaCI)
+		fmt.Sprintf("critical nucleus over the data with the fitted gamma: %.3g to %.3g molecules", res.MinSize, res.MaxSize))
+	r.extra = gammaJSON(res.Gamma, res.GammaSE, res.GammaCI)
 	r.extra = append(r.extra, object{
-		{"pre_exponential", fit.A},
-		{"pre_exponential_ci95", ciJSON(fit.ACI)},
-		{"ln_pre_exponential", fit.LnA},
-		{"ln_pre_exponential_se", fit.LnASE},
-		{"ln_rate_times_volume_per_s", fit.LnAV},
-		{"slope_k3", fit.Slope},
+		{"pre_exponential", res.A},
+		{"pre_exponential_ci95", ciJSON(res.ACI)},
+		{"ln_pre_exponential", res.LnA},
+		{"ln_pre_exponential_se", res.LnASE},
+		{"ln_rate_times_volume_per_s", res.LnAV},
+		{"slope_k3", res.Slope},
 		{"intercept_ln_s", line.Intercept},
 	}...)
 	r.extra = append(r.extra, scatterJSON("residual_sd_ln", line.R2, line.ResidualSD, line.DoF, line.T)...)
 	r.extra = append(r.extra, object{
-		{"critical_size_min", fit.MinSize},
-		{"critical_size_max", fit.MaxSize},
-		{"flags", nonNil(fit.Flags.Keys())},
+		{"critical_size_min", res.MinSize},
+		{"critical_size_max", res.MaxSize},
+		{"flags", nonNil(res.Flags.Keys())},
 	}...)
 	r.cols = []column{
 		{"line", "line", nil},
@@ -128,15 +129,15 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		{"n*", "critical_size", sig(4)},
 	}
 	for i := range T {
-		n := cnt.Critical(cnt.Boltzmann*T[i]*math.Log(S[i]), fit.Gamma, v, shape, T[i])
+		n := cnt.Critical(cnt.Boltzmann*T[i]*math.Log(S[i]), res.Gamma, v, shape, T[i])
 		r.rows = append(r.rows, []any{
-			fmt.Sprint(d.Lines[i]), T[i], S[i], ti[i], fit.X[i], math.Log(ti[i]),
-			line.At(fit.X[i]), line.Residuals[i], n.Size,
+			fmt.Sprint(d.Lines[i]), T[i], S[i], ti[i], res.X[i], math.Log(ti[i]),
+			line.At(res.X[i]), line.Residuals[i], n.Size,
 		})
 	}
 	r.notes = append(r.notes, intervalNote(line.Exact(), "line", line.T, line.DoF, "; gamma's interval is the slope's through the cube root, A's is exp of that of ln A"))
-	r.notes = append(r.notes, flagNotes(fit.Flags)...)
-	if fit.Flags&kinetics.FlagSmallNucleus != 0 {
+	r.notes = append(r.notes, flagNotes(res.Flags)...)
+	if res.Flags&kinetics.FlagSmallNucleus != 0 {
 		r.notes = append(r.notes, "the fitted gamma gives a critical nucleus below 10 molecules: CNT is outside its range, and gamma and A are apparent values that correlate these data (common for crystallization from solution)")
 	}
 	r.notes = append(r.notes, "induction taken as mononuclear (the wait for the first nucleus); where growth to a detectable amount dominates, the slope still gives gamma but A is not the nucleation prefactor")
@@ -144,8 +145,8 @@ func (f *fitFlags) induction(e *env, path string, fi *fitInductionFlags) error {
 		return usagef("--card-out: the card needs the prefactor A, so give --volume")
 	}
 	return f.finish(e, r, notes,
-		func() error { return inductionPlot(f.pf, dataName(d), ti, fit) },
-		func() (*presets.Card, []string, error) { return inductionCard(card, d, fit) })
+		func() error { return inductionPlot(f.pf, dataName(d), ti, res) },
+		func() (*presets.Card, []string, error) { return inductionCard(card, d, res) })
 }
 
 func nanIfZero(x float64) float64 {
@@ -157,7 +158,7 @@ func nanIfZero(x float64) float64 {
 
 // inductionCard is the material card with the fitted γ and A as a fixed
 // prefactor.
-func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionFit) (*presets.Card, []string, error) {
+func inductionCard(base *presets.Card, d *presets.Data, res *fit.InductionFit) (*presets.Card, []string, error) {
 	c := copyCard(base)
 	if c.File == "command line" {
 		c.Name, c.Kind, c.Driving = "fitted-solution", "solution", "solution"
@@ -165,15 +166,15 @@ func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionF
 	c.Name += "-fit"
 	c.Description = fmt.Sprintf("%s (gamma and the apparent prefactor A fitted to the induction times of %s)", base.Description, dataName(d))
 	c.Prefactor = "fixed"
-	src := fmt.Sprintf("undercool fit induction of %s, %d points", dataName(d), fit.Line.N)
+	src := fmt.Sprintf("undercool fit induction of %s, %d points", dataName(d), res.Line.N)
 	gs, as := src, src
-	if !fit.Line.Exact() {
-		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", fit.GammaCI[0], fit.GammaCI[1])
-		as += fmt.Sprintf(", 95 %% interval %.4g to %.4g m^-3 s^-1", fit.ACI[0], fit.ACI[1])
+	if !res.Line.Exact() {
+		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", res.GammaCI[0], res.GammaCI[1])
+		as += fmt.Sprintf(", 95 %% interval %.4g to %.4g m^-3 s^-1", res.ACI[0], res.ACI[1])
 	}
 	if err := setValues(c,
-		[3]string{"gamma", fmt.Sprintf("%.7g J/m2", fit.Gamma), gs},
-		[3]string{"j0", fmt.Sprintf("%.7g /m3/s", fit.A), as + "; apparent, belongs with the fitted gamma"}); err != nil {
+		[3]string{"gamma", fmt.Sprintf("%.7g J/m2", res.Gamma), gs},
+		[3]string{"j0", fmt.Sprintf("%.7g /m3/s", res.A), as + "; apparent, belongs with the fitted gamma"}); err != nil {
 		return nil, nil, err
 	}
 	header := []string{
@@ -186,13 +187,13 @@ func inductionCard(base *presets.Card, d *presets.Data, fit *kinetics.InductionF
 
 // inductionPlot is the induction time on a log axis against 1/(T³·ln²S),
 // with the fitted straight line.
-func inductionPlot(pf *plotFlag, file string, t []float64, fit *kinetics.InductionFit) error {
+func inductionPlot(pf *plotFlag, file string, t []float64, res *fit.InductionFit) error {
 	pts := make(plotter.XYs, len(t))
 	for i := range t {
-		pts[i] = plotter.XY{X: fit.X[i] * 1e8, Y: t[i]}
+		pts[i] = plotter.XY{X: res.X[i] * 1e8, Y: t[i]}
 	}
-	lo, hi := span(fit.X)
-	line := fitPlot(lo, hi, 50, func(x float64) (float64, bool) { return math.Exp(fit.Line.At(x)), true })
+	lo, hi := span(res.X)
+	line := fitPlot(lo, hi, 50, func(x float64) (float64, bool) { return math.Exp(res.Line.At(x)), true })
 	for i := range line {
 		line[i].X *= 1e8
 	}
@@ -203,7 +204,7 @@ func inductionPlot(pf *plotFlag, file string, t []float64, fit *kinetics.Inducti
 	p.Y.Scale = plot.LogScale{}
 	p.Y.Tick.Marker = decadeTicks{}
 	p.X.Min, p.X.Max = lo*1e8, hi*1e8
-	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g mJ/m2", fit.Gamma*1e3)); err != nil {
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g mJ/m2", res.Gamma*1e3)); err != nil {
 		return err
 	}
 	return savePlots(pf.path, pf.format, p)

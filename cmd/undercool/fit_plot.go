@@ -10,7 +10,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
-	"undercool/kinetics"
+	"undercool/kinetics/fit"
 )
 
 // inverseTempTicks label an axis of 1000/T (1/K) with the value and the
@@ -70,7 +70,7 @@ func span(xs []float64) (lo, hi float64) {
 
 // arrheniusPlot is y on a log axis against 1000/T, with the temperature in
 // kelvin under each tick.
-func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit *kinetics.ArrheniusFit) error {
+func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, res *fit.ArrheniusFit) error {
 	x := make([]float64, len(T))
 	pts := make(plotter.XYs, len(T))
 	for i, t := range T {
@@ -79,7 +79,7 @@ func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit 
 	}
 	lo, hi := span(x)
 	line := fitPlot(lo, hi, 50, func(x float64) (float64, bool) {
-		return math.Exp(fit.Line.At(x / 1000)), true
+		return math.Exp(res.Line.At(x / 1000)), true
 	})
 	p := plot.New()
 	p.Title.Text = "Arrhenius fit, " + file
@@ -89,29 +89,29 @@ func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit 
 	p.Y.Scale = plot.LogScale{}
 	p.Y.Tick.Marker = decadeTicks{}
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", fit.Q/1e3)); err != nil {
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", res.Q/1e3)); err != nil {
 		return err
 	}
 	return savePlots(pf.path, pf.format, p)
 }
 
 // avramiPlot is the linearized plot, ln(−ln(1−X)) against ln t, of the points used.
-func avramiPlot(pf *plotFlag, file string, t, X []float64, fit *kinetics.AvramiFit) error {
+func avramiPlot(pf *plotFlag, file string, t, X []float64, res *fit.AvramiFit) error {
 	var pts plotter.XYs
 	var xs []float64
-	for _, i := range fit.Used {
+	for _, i := range res.Used {
 		lx := math.Log(t[i])
 		pts = append(pts, plotter.XY{X: lx, Y: math.Log(-math.Log1p(-X[i]))})
 		xs = append(xs, lx)
 	}
 	lo, hi := span(xs)
-	line := fitPlot(lo, hi, 2, func(x float64) (float64, bool) { return fit.Line.At(x), true })
+	line := fitPlot(lo, hi, 2, func(x float64) (float64, bool) { return res.Line.At(x), true })
 	p := plot.New()
 	p.Title.Text = "Avrami fit, " + file
 	p.X.Label.Text = "ln(t / 1 s)"
 	p.Y.Label.Text = "ln(-ln(1 - X))"
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data used", fmt.Sprintf("fit, n = %.4g", fit.N)); err != nil {
+	if err := dataAndLine(p, pts, line, "data used", fmt.Sprintf("fit, n = %.4g", res.N)); err != nil {
 		return err
 	}
 	return savePlots(pf.path, pf.format, p)
@@ -119,15 +119,15 @@ func avramiPlot(pf *plotFlag, file string, t, X []float64, fit *kinetics.AvramiF
 
 // interfacePlot is two panels: log10 J measured and fitted against T, and
 // the classical straight line.
-func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.InterfaceFit) error {
+func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, res *fit.InterfaceFit) error {
 	pts := make(plotter.XYs, len(T))
 	for i, t := range T {
 		pts[i] = plotter.XY{X: t, Y: lnJ[i] / math.Ln10}
 	}
 	lo, hi := span(T)
 	line := fitPlot(lo, hi, 60, func(t float64) (float64, bool) {
-		l := fit.Model.LnJ(t)
-		return (l + fit.LnScale) / math.Ln10, !math.IsInf(l, 0)
+		l := res.Model.LnJ(t)
+		return (l + res.LnScale) / math.Ln10, !math.IsInf(l, 0)
 	})
 	p := plot.New()
 	p.Title.Text = "interfacial energy fit, " + file
@@ -135,17 +135,17 @@ func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.In
 	p.Y.Label.Text = "log10 J (m^-3 s^-1)"
 	p.X.Tick.Marker = plainTicks{}
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g J/m2", fit.Gamma)); err != nil {
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g J/m2", res.Gamma)); err != nil {
 		return err
 	}
 	plots := []*plot.Plot{p}
-	if fit.Linear != nil {
+	if res.Linear != nil {
 		cp := make(plotter.XYs, len(T))
 		for i := range T {
-			cp[i] = plotter.XY{X: fit.LinearX[i] * 1e20, Y: fit.LinearY[i]}
+			cp[i] = plotter.XY{X: res.LinearX[i] * 1e20, Y: res.LinearY[i]}
 		}
-		xlo, xhi := span(fit.LinearX)
-		cl := fitPlot(xlo, xhi, 2, func(x float64) (float64, bool) { return fit.Linear.At(x), true })
+		xlo, xhi := span(res.LinearX)
+		cl := fitPlot(xlo, xhi, 2, func(x float64) (float64, bool) { return res.Linear.At(x), true })
 		for i := range cl {
 			cl[i].X *= 1e20
 		}
@@ -153,13 +153,13 @@ func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.In
 		q.Title.Text = "classical plot (for comparison)"
 		q.X.Label.Text = "1e20/(T dg_v^2) (m6/(J2 K))"
 		q.Y.Label.Text = "ln J - ln D"
-		if fit.Model.Material().Mobility == nil {
+		if res.Model.Material().Mobility == nil {
 			q.Y.Label.Text = "ln J"
 		}
 		q.X.Min, q.X.Max = xlo*1e20, xhi*1e20
 		name := "straight line"
-		if !math.IsNaN(fit.LinearGamma) {
-			name = fmt.Sprintf("straight line, gamma = %.4g J/m2", fit.LinearGamma)
+		if !math.IsNaN(res.LinearGamma) {
+			name = fmt.Sprintf("straight line, gamma = %.4g J/m2", res.LinearGamma)
 		}
 		if err := dataAndLine(q, cp, cl, "data", name); err != nil {
 			return err

@@ -9,6 +9,7 @@ import (
 
 	"undercool/cnt"
 	"undercool/kinetics"
+	"undercool/kinetics/fit"
 	"undercool/presets"
 )
 
@@ -106,7 +107,7 @@ func solutionCool(e *env, cf *coolFlags, pf *plotFlag, c *presets.Card, md *kine
 		r.extra = object{{"onset_temperature_k", row[2]}, {"onset_undercooling_k", row[4]}, {"supersaturation_at_onset", row[5]}, {"cooling_rate_k_per_s", row[1]}}
 	}
 	if len(lnW) >= 2 {
-		if l, err := kinetics.FitLine(lnW, lnQ, nil); err == nil {
+		if l, err := fit.Line(lnW, lnQ, nil); err == nil {
 			r.summary = append(r.summary, fmt.Sprintf("rate against width: ln q = %.4g + %.4g ln ΔT_max (the apparent order m of Nyvlt's relation q ∝ ΔT_max^m)", l.Intercept, l.Slope))
 			r.extra = append(r.extra, kv{"nyvlt_order", l.Slope})
 		}

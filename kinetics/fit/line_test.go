@@ -1,9 +1,11 @@
-package kinetics
+package fit
 
 import (
 	"errors"
 	"math"
 	"testing"
+
+	"undercool/kinetics"
 )
 
 func relClose(got, want, tol float64) bool {
@@ -34,7 +36,7 @@ func TestFitLineNorris(t *testing.T) {
 	for i, p := range norris {
 		y[i], x[i] = p[0], p[1]
 	}
-	l, err := FitLine(x, y, nil)
+	l, err := Line(x, y, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -67,7 +69,7 @@ func TestFitLineWeighted(t *testing.T) {
 	x := []float64{1, 2, 3, 4, 5, 6}
 	y := []float64{1.1, 1.9, 3.2, 3.9, 5.1, 5.8}
 	w := []float64{1, 2, 1, 0.5, 1, 1.5}
-	l, err := FitLine(x, y, w)
+	l, err := Line(x, y, w)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -92,7 +94,7 @@ func TestFitLineWeighted(t *testing.T) {
 	for i := range w {
 		w10[i] = 10 * w[i]
 	}
-	l10, _ := FitLine(x, y, w10)
+	l10, _ := Line(x, y, w10)
 	if !relClose(l10.SlopeSE, l.SlopeSE, 1e-12) || !relClose(l10.InterceptSE, l.InterceptSE, 1e-12) {
 		t.Errorf("scaled weights changed the errors: %g %g vs %g %g", l10.SlopeSE, l10.InterceptSE, l.SlopeSE, l.InterceptSE)
 	}
@@ -122,7 +124,7 @@ func TestStudentT95(t *testing.T) {
 
 func TestFitLineSpecial(t *testing.T) {
 	// Two points: the exact line, no scatter, no intervals.
-	l, err := FitLine([]float64{1, 3}, []float64{2, 6}, nil)
+	l, err := Line([]float64{1, 3}, []float64{2, 6}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -134,21 +136,21 @@ func TestFitLineSpecial(t *testing.T) {
 			t.Errorf("two points: want NaN for intervals, got %g", v)
 		}
 	}
-	if _, err := FitLine([]float64{1}, []float64{1}, nil); !errors.Is(err, ErrFewPoints) {
+	if _, err := Line([]float64{1}, []float64{1}, nil); !errors.Is(err, ErrFewPoints) {
 		t.Errorf("one point: %v", err)
 	}
-	if _, err := FitLine([]float64{2, 2, 2}, []float64{1, 2, 3}, nil); !errors.Is(err, ErrSameX) {
+	if _, err := Line([]float64{2, 2, 2}, []float64{1, 2, 3}, nil); !errors.Is(err, ErrSameX) {
 		t.Errorf("same x: %v", err)
 	}
-	var pe *PointError
-	if _, err := FitLine([]float64{1, 2, 3}, []float64{1, 2, 3}, []float64{1, 0, 1}); !errors.As(err, &pe) || pe.Index != 1 {
+	var pe *kinetics.PointError
+	if _, err := Line([]float64{1, 2, 3}, []float64{1, 2, 3}, []float64{1, 0, 1}); !errors.As(err, &pe) || pe.Index != 1 {
 		t.Errorf("zero weight: %v", err)
 	}
-	if _, err := FitLine([]float64{1, 2, 3}, []float64{1, 2, 3}, []float64{1, math.NaN(), 1}); !errors.As(err, &pe) {
+	if _, err := Line([]float64{1, 2, 3}, []float64{1, 2, 3}, []float64{1, math.NaN(), 1}); !errors.As(err, &pe) {
 		t.Errorf("NaN weight: %v", err)
 	}
 	// A perfect line with scatter-free points: zero errors, R² = 1.
-	l, _ = FitLine([]float64{1, 2, 3, 4}, []float64{3, 5, 7, 9}, nil)
+	l, _ = Line([]float64{1, 2, 3, 4}, []float64{3, 5, 7, 9}, nil)
 	if l.SlopeSE != 0 || l.R2 != 1 || l.Slope != 2 {
 		t.Errorf("perfect line: %+v", l)
 	}

@@ -1,10 +1,11 @@
-package kinetics
+package fit
 
 import (
 	"fmt"
 	"math"
 
 	"undercool/cnt"
+	"undercool/kinetics"
 )
 
 // InductionFit is the interfacial energy γ and the apparent prefactor A
@@ -26,52 +27,52 @@ import (
 // below zero gives a lower bound of 0); SE(γ) = γ·SE(β)/(3β) to first order.
 // The interval of A is the exponent of that of ln A, so it is not symmetric.
 type InductionFit struct {
-	Line             *LineFit   // ln t_ind (s) against 1/(T³·ln²S) (K⁻³)
-	X                []float64  // the abscissae 1/(T³·ln²S), K⁻³
-	Slope            float64    // β, K³
-	Gamma, GammaSE   float64    // J/m²
-	GammaCI          [2]float64 // 95 % interval, J/m²
-	LnA, LnASE       float64    // ln A, A in m⁻³·s⁻¹; NaN without a volume
-	A                float64    // apparent prefactor, m⁻³·s⁻¹ (NaN without a volume)
-	ACI              [2]float64 // 95 % interval of A
-	LnAV             float64    // ln(A·V), A·V in s⁻¹: −intercept
-	MinSize, MaxSize float64    // n* over the data with the fitted γ, molecules
-	Flags            Flag       // small-nucleus and low-barrier flags over the data
+	Line             *LineFit      // ln t_ind (s) against 1/(T³·ln²S) (K⁻³)
+	X                []float64     // the abscissae 1/(T³·ln²S), K⁻³
+	Slope            float64       // β, K³
+	Gamma, GammaSE   float64       // J/m²
+	GammaCI          [2]float64    // 95 % interval, J/m²
+	LnA, LnASE       float64       // ln A, A in m⁻³·s⁻¹; NaN without a volume
+	A                float64       // apparent prefactor, m⁻³·s⁻¹ (NaN without a volume)
+	ACI              [2]float64    // 95 % interval of A
+	LnAV             float64       // ln(A·V), A·V in s⁻¹: −intercept
+	MinSize, MaxSize float64       // n* over the data with the fitted γ, molecules
+	Flags            kinetics.Flag // small-nucleus and low-barrier flags over the data
 }
 
-// FitInduction fits γ and A to induction times t (s) measured at
+// Induction fits γ and A to induction times t (s) measured at
 // temperatures T (K) and supersaturations S, for a crystal of molecular
 // volume v (m³), shape factor f (1 for homogeneous) and vessel volume V
 // (m³; 0 when unknown: A is then not given, only A·V), with optional
 // relative weights w on ln t (nil: equal). It returns a
-// *PointError for a temperature or time that is not positive and finite or
+// *kinetics.PointError for a temperature or time that is not positive and finite or
 // an S ≤ 1 (no driving force: no induction time to fit), ErrFewPoints for
 // fewer than two points, ErrSameX when every point has the same
 // 1/(T³·ln²S), and an error when the times do not grow as S falls (slope
 // ≤ 0: no interfacial energy).
-func FitInduction(T, S, t, w []float64, v, f, V float64) (*InductionFit, error) {
+func Induction(T, S, t, w []float64, v, f, V float64) (*InductionFit, error) {
 	if len(T) != len(S) || len(T) != len(t) || (w != nil && len(w) != len(T)) {
-		panic("kinetics: FitInduction: slices differ in length")
+		panic("fit: Induction: slices differ in length")
 	}
 	if !(v > 0) || !(f > 0 && f <= 1) || !(V >= 0) {
-		panic("kinetics: FitInduction: need v > 0, 0 < f ≤ 1 and V ≥ 0")
+		panic("fit: Induction: need v > 0, 0 < f ≤ 1 and V ≥ 0")
 	}
 	x := make([]float64, len(T))
 	y := make([]float64, len(T))
 	for i := range T {
 		switch {
 		case !(T[i] > 0) || math.IsInf(T[i], 1):
-			return nil, &PointError{i, fmt.Sprintf("temperature must be above absolute zero, got %g K", T[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("temperature must be above absolute zero, got %g K", T[i])}
 		case !(S[i] > 1) || math.IsInf(S[i], 1):
-			return nil, &PointError{i, fmt.Sprintf("supersaturation must be above 1 (S <= 1 is no driving force, no nucleation), got %g", S[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("supersaturation must be above 1 (S <= 1 is no driving force, no nucleation), got %g", S[i])}
 		case !(t[i] > 0) || math.IsInf(t[i], 1):
-			return nil, &PointError{i, fmt.Sprintf("induction time must be positive and finite, got %g s", t[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("induction time must be positive and finite, got %g s", t[i])}
 		}
 		ls := math.Log(S[i])
 		x[i] = 1 / (T[i] * T[i] * T[i] * ls * ls)
 		y[i] = math.Log(t[i])
 	}
-	line, err := FitLine(x, y, w)
+	line, err := Line(x, y, w)
 	if err != nil {
 		return nil, err
 	}
@@ -108,11 +109,11 @@ func FitInduction(T, S, t, w []float64, v, f, V float64) (*InductionFit, error) 
 		n := cnt.Critical(kT*math.Log(S[i]), fit.Gamma, v, f, T[i])
 		fit.MinSize = math.Min(fit.MinSize, n.Size)
 		fit.MaxSize = math.Max(fit.MaxSize, n.Size)
-		if n.Size < SmallNucleus {
-			fit.Flags |= FlagSmallNucleus
+		if n.Size < kinetics.SmallNucleus {
+			fit.Flags |= kinetics.FlagSmallNucleus
 		}
-		if n.Barrier < LowBarrier*kT {
-			fit.Flags |= FlagLowBarrier
+		if n.Barrier < kinetics.LowBarrier*kT {
+			fit.Flags |= kinetics.FlagLowBarrier
 		}
 	}
 	return fit, nil

@@ -1,4 +1,4 @@
-package kinetics
+package fit
 
 import (
 	"errors"
@@ -7,6 +7,8 @@ import (
 
 	"gonum.org/v1/gonum/stat"
 	"gonum.org/v1/gonum/stat/distuv"
+
+	"undercool/kinetics"
 )
 
 // Confidence is the two-sided coverage of every interval the fits report.
@@ -105,14 +107,14 @@ func StudentT95(dof int) float64 {
 	return distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(dof)}.Quantile(0.5 + Confidence/2)
 }
 
-// FitLine fits y = a + b·x by least squares. w may be nil (equal weights);
+// Line fits y = a + b·x by least squares. w may be nil (equal weights);
 // otherwise every weight must be positive and finite. x and y must be
 // finite and of equal length (a programming mistake otherwise).
 // It returns ErrFewPoints for fewer than two points, ErrSameX when all x
-// are equal, and a *PointError for a bad weight.
-func FitLine(x, y, w []float64) (*LineFit, error) {
+// are equal, and a *kinetics.PointError for a bad weight.
+func Line(x, y, w []float64) (*LineFit, error) {
 	if len(x) != len(y) || (w != nil && len(w) != len(x)) {
-		panic("kinetics: FitLine: slices differ in length")
+		panic("fit: Line: slices differ in length")
 	}
 	n := len(x)
 	if n < 2 {
@@ -120,7 +122,7 @@ func FitLine(x, y, w []float64) (*LineFit, error) {
 	}
 	for i, wi := range w {
 		if !(wi > 0) || math.IsInf(wi, 1) {
-			return nil, &PointError{i, fmt.Sprintf("weight must be positive and finite, got %g", wi)}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("weight must be positive and finite, got %g", wi)}
 		}
 	}
 	l := &LineFit{N: n, DoF: n - 2, Weighted: w != nil}

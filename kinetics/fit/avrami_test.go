@@ -1,10 +1,12 @@
-package kinetics
+package fit
 
 import (
 	"errors"
 	"fmt"
 	"math"
 	"testing"
+
+	"undercool/kinetics"
 )
 
 // Callister W.D., Rethwisch D.G., Materials Science and Engineering: An
@@ -16,7 +18,7 @@ import (
 // misprinted there as 4.64e-4; with its own n and k the formula gives
 // 36.3 s, which is what is checked (to 0.3 %).
 func TestFitAvramiCallisterPearlite(t *testing.T) {
-	f, err := FitAvrami([]float64{12.6, 28.2}, []float64{0.2, 0.8}, nil)
+	f, err := Avrami([]float64{12.6, 28.2}, []float64{0.2, 0.8}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -58,7 +60,7 @@ func TestFitAvramiRoundTrip(t *testing.T) {
 	const n, k = 2.5, 1.5e-6 // s^-2.5
 	X := avramiData(n, k, times, 0)
 	X[len(X)-1] = 1 // complete: left out, as is the start at t = 0, X = 0
-	f, err := FitAvrami(times, X, nil)
+	f, err := Avrami(times, X, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -74,7 +76,7 @@ func TestFitAvramiRoundTrip(t *testing.T) {
 	}
 	// With noise: n and k within 0.1 % and 1 %, the truth inside the intervals.
 	X = avramiData(n, k, times[1:len(times)-1], 0.003)
-	f, err = FitAvrami(times[1:len(times)-1], X, nil)
+	f, err = Avrami(times[1:len(times)-1], X, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -88,33 +90,33 @@ func TestFitAvramiRoundTrip(t *testing.T) {
 }
 
 func TestFitAvramiBadInput(t *testing.T) {
-	if _, err := FitAvrami([]float64{0, 10, 20}, []float64{0, 0.5, 1}, nil); err == nil {
+	if _, err := Avrami([]float64{0, 10, 20}, []float64{0, 0.5, 1}, nil); err == nil {
 		t.Error("one usable point: no error")
 	}
-	var pe *PointError
-	if _, err := FitAvrami([]float64{10, -1, 30}, []float64{0.1, 0.5, 0.9}, nil); !errors.As(err, &pe) || pe.Index != 1 {
+	var pe *kinetics.PointError
+	if _, err := Avrami([]float64{10, -1, 30}, []float64{0.1, 0.5, 0.9}, nil); !errors.As(err, &pe) || pe.Index != 1 {
 		t.Errorf("negative time: %v", err)
 	}
-	if _, err := FitAvrami([]float64{10, 10, 30}, []float64{0.1, 0.5, 0.9}, []float64{1, 1, -1}); !errors.As(err, &pe) || pe.Index != 2 {
+	if _, err := Avrami([]float64{10, 10, 30}, []float64{0.1, 0.5, 0.9}, []float64{1, 1, -1}); !errors.As(err, &pe) || pe.Index != 2 {
 		t.Errorf("bad weight, index mapped back: %v", err)
 	}
-	if _, err := FitAvrami([]float64{10, 10}, []float64{0.1, 0.5}, nil); err == nil {
+	if _, err := Avrami([]float64{10, 10}, []float64{0.1, 0.5}, nil); err == nil {
 		t.Error("same times: no error")
 	}
-	if _, err := FitAvrami([]float64{10, 20}, []float64{0.5, 0.1}, nil); err == nil {
+	if _, err := Avrami([]float64{10, 20}, []float64{0.5, 0.1}, nil); err == nil {
 		t.Error("decreasing fraction: no error")
 	}
-	if f, _ := FitAvrami([]float64{10, 20}, []float64{0.1, 0.5}, nil); !math.IsNaN(f.TimeTo(1)) || !math.IsNaN(f.TimeTo(0)) {
+	if f, _ := Avrami([]float64{10, 20}, []float64{0.1, 0.5}, nil); !math.IsNaN(f.TimeTo(1)) || !math.IsNaN(f.TimeTo(0)) {
 		t.Error("TimeTo outside (0,1) must be NaN")
 	}
 }
 
-func ExampleFitAvrami() {
+func ExampleAvrami() {
 	// Invented isothermal fractions; the first and last rows (X = 0, X = 1)
 	// are left out of the straight line.
 	t := []float64{0, 60, 120, 180, 240, 300, 900} // s
 	X := []float64{0, 0.05, 0.31, 0.65, 0.88, 0.97, 1}
-	f, err := FitAvrami(t, X, nil)
+	f, err := Avrami(t, X, nil)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -1,4 +1,4 @@
-package kinetics
+package fit
 
 import (
 	"errors"
@@ -7,11 +7,12 @@ import (
 	"testing"
 
 	"undercool/cnt"
+	"undercool/kinetics"
 )
 
 // inductionData makes induction times with the model itself: an invented
 // solute (V_m = 117 cm³/mol, γ = 2.5 mJ/m², apparent A = 1e8 m⁻³ s⁻¹) in an
-// invented 100 mL vessel, t = 1/(J·V) with J from Model.At (fixed prefactor
+// invented 100 mL vessel, t = 1/(J·V) with J from kinetics.Model.At (fixed prefactor
 // and the fixed-S driving force), at three temperatures and several S.
 func inductionData(t *testing.T, noise []float64) (T, S, ti []float64, v float64) {
 	t.Helper()
@@ -19,7 +20,7 @@ func inductionData(t *testing.T, noise []float64) (T, S, ti []float64, v float64
 	k := 0
 	for _, temp := range []float64{288.15, 298.15, 308.15} {
 		for _, s := range []float64{1.6, 1.8, 2.0, 2.4, 3.0} {
-			md := mustModel(t, Material{Driving: cnt.Supersaturation{S: s}, Te: 320, Vm: vm, Gamma: gamma, Prefactor: PrefactorFixed, J0: A})
+			md := mustModel(t, kinetics.Material{Driving: cnt.Supersaturation{S: s}, Te: 320, Vm: vm, Gamma: gamma, Prefactor: kinetics.PrefactorFixed, J0: A})
 			tt := 1 / (math.Exp(md.LnJ(temp)) * V)
 			if noise != nil {
 				tt *= math.Exp(noise[k%len(noise)])
@@ -35,7 +36,7 @@ func inductionData(t *testing.T, noise []float64) (T, S, ti []float64, v float64
 // rounding (the data lie exactly on the line).
 func TestFitInductionRoundTrip(t *testing.T) {
 	T, S, ti, v := inductionData(t, nil)
-	f, err := FitInduction(T, S, ti, nil, v, 1, 1e-4)
+	f, err := Induction(T, S, ti, nil, v, 1, 1e-4)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -51,11 +52,11 @@ func TestFitInductionRoundTrip(t *testing.T) {
 		t.Errorf("slope = %g, want %g", f.Slope, want)
 	}
 	// γ = 2.5 mJ/m² at S = 1.6…3 is a nucleus of a few molecules: flagged.
-	if f.Flags&FlagSmallNucleus == 0 || !(f.MinSize < 10) {
+	if f.Flags&kinetics.FlagSmallNucleus == 0 || !(f.MinSize < 10) {
 		t.Errorf("n* from %g to %g, flags %v: want small_nucleus", f.MinSize, f.MaxSize, f.Flags.Keys())
 	}
 	// Without a volume only A·V is known.
-	f, err = FitInduction(T, S, ti, nil, v, 1, 0)
+	f, err = Induction(T, S, ti, nil, v, 1, 0)
 	if err != nil || !math.IsNaN(f.A) || !sameFloat(f.LnAV, math.Log(1e4), 1e-9) {
 		t.Errorf("no volume: A = %g, ln(AV) = %g, err %v", f.A, f.LnAV, err)
 	}
@@ -66,7 +67,7 @@ func TestFitInductionRoundTrip(t *testing.T) {
 // interval width.
 func TestFitInductionScatter(t *testing.T) {
 	T, S, ti, v := inductionData(t, []float64{0.1, -0.2, 0.25, -0.05, 0.3, -0.3, 0.15, -0.1})
-	f, err := FitInduction(T, S, ti, nil, v, 1, 1e-4)
+	f, err := Induction(T, S, ti, nil, v, 1, 1e-4)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -102,20 +103,20 @@ func TestFitInductionErrors(t *testing.T) {
 		{"NaN time", []float64{298, 298}, []float64{1.5, 2}, []float64{10, math.NaN()}, "induction time", 1},
 		{"zero temperature", []float64{0, 298}, []float64{1.5, 2}, []float64{10, 5}, "temperature", 0},
 	} {
-		_, err := FitInduction(c.T, c.S, c.t, nil, v, 1, 1e-4)
-		var pe *PointError
+		_, err := Induction(c.T, c.S, c.t, nil, v, 1, 1e-4)
+		var pe *kinetics.PointError
 		if !errors.As(err, &pe) || pe.Index != c.index || !strings.Contains(err.Error(), c.msg) {
 			t.Errorf("%s: error %v, want point %d with %q", c.name, err, c.index+1, c.msg)
 		}
 	}
-	if _, err := FitInduction([]float64{298}, []float64{2}, []float64{10}, nil, v, 1, 0); !errors.Is(err, ErrFewPoints) {
+	if _, err := Induction([]float64{298}, []float64{2}, []float64{10}, nil, v, 1, 0); !errors.Is(err, ErrFewPoints) {
 		t.Errorf("one point: %v", err)
 	}
-	if _, err := FitInduction([]float64{298, 298}, []float64{2, 2}, []float64{10, 20}, nil, v, 1, 0); !errors.Is(err, ErrSameX) {
+	if _, err := Induction([]float64{298, 298}, []float64{2, 2}, []float64{10, 20}, nil, v, 1, 0); !errors.Is(err, ErrSameX) {
 		t.Errorf("same abscissa: %v", err)
 	}
 	// Times that fall as S falls: no γ.
-	if _, err := FitInduction([]float64{298, 298, 298}, []float64{1.5, 2, 3}, []float64{1, 10, 100}, nil, v, 1, 0); err == nil || !strings.Contains(err.Error(), "not positive") {
+	if _, err := Induction([]float64{298, 298, 298}, []float64{1.5, 2, 3}, []float64{1, 10, 100}, nil, v, 1, 0); err == nil || !strings.Contains(err.Error(), "not positive") {
 		t.Errorf("wrong-way data: %v", err)
 	}
 }

@@ -1,4 +1,4 @@
-package kinetics
+package fit
 
 import (
 	"errors"
@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"undercool/cnt"
+	"undercool/kinetics"
 	"undercool/kinetics/internal/bracket"
 )
 
@@ -46,12 +47,12 @@ type InterfaceFit struct {
 	Scale              float64    // A, dimensionless
 	ScaleCI            [2]float64 // 95 % interval of A
 	N, DoF             int
-	T                  float64   // Student t quantile of the intervals; NaN when exact
-	Residuals          []float64 // ln J measured − ln J fitted
-	ResidualSD         float64   // s, in ln J; NaN when exact
-	R2                 float64   // of ln J
-	Model              *Model    // the material with the fitted γ (scale not applied)
-	Flags              Flag      // validity flags of the fitted model at the data temperatures
+	T                  float64         // Student t quantile of the intervals; NaN when exact
+	Residuals          []float64       // ln J measured − ln J fitted
+	ResidualSD         float64         // s, in ln J; NaN when exact
+	R2                 float64         // of ln J
+	Model              *kinetics.Model // the material with the fitted γ (scale not applied)
+	Flags              kinetics.Flag   // validity flags of the fitted model at the data temperatures
 
 	// The classical plot and the γ from its slope (NaN when the slope is not negative).
 	LinearX, LinearY []float64 // 1/(T·Δg_v²) in m⁶/(J²·K); ln J − ln D (ln J without a mobility law)
@@ -65,9 +66,9 @@ func (f *InterfaceFit) Exact() bool { return f.DoF == 0 }
 // Fitted returns the material of the fit with the scale folded in: the
 // site density multiplied by A (the rate is proportional to it), or for a
 // fixed prefactor J0 multiplied by A.
-func (f *InterfaceFit) Fitted() Material {
+func (f *InterfaceFit) Fitted() kinetics.Material {
 	m := f.Model.Material()
-	if m.Prefactor == PrefactorFixed {
+	if m.Prefactor == kinetics.PrefactorFixed {
 		m.J0 *= f.Scale
 	} else {
 		m.Sites = math.Exp(f.Model.LnSites() + f.LnScale)
@@ -75,17 +76,17 @@ func (f *InterfaceFit) Fitted() Material {
 	return m
 }
 
-// FitInterface fits γ and a prefactor scale to measured nucleation rates,
+// Interface fits γ and a prefactor scale to measured nucleation rates,
 // given as ln J (J in m⁻³·s⁻¹) at temperatures T (K), with optional relative
 // weights w on ln J (nil: equal). The model supplies everything but γ; it
 // must have a rate (a mobility law or a fixed prefactor). It returns a
-// *PointError for a temperature at which the model has no driving force or
+// *kinetics.PointError for a temperature at which the model has no driving force or
 // no mobility, or a non-finite input, ErrFewPoints for fewer than two points,
 // and an error when all temperatures are equal or no γ in
 // [GammaFitMin, GammaFitMax] J/m² fits.
-func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
+func Interface(model *kinetics.Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 	if len(T) != len(lnJ) || (w != nil && len(w) != len(T)) {
-		panic("kinetics: FitInterface: slices differ in length")
+		panic("fit: Interface: slices differ in length")
 	}
 	if !model.HasRate() {
 		return nil, errors.New("the material has no rate: give a mobility law or a fixed prefactor")
@@ -97,22 +98,22 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 	same := true
 	for i := range T {
 		if !(T[i] > 0) || math.IsInf(T[i], 1) {
-			return nil, &PointError{i, fmt.Sprintf("temperature must be above absolute zero, got %g K", T[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("temperature must be above absolute zero, got %g K", T[i])}
 		}
 		if math.IsNaN(lnJ[i]) || math.IsInf(lnJ[i], 0) {
-			return nil, &PointError{i, "the rate must be positive and finite"}
+			return nil, &kinetics.PointError{Index: i, Msg: "the rate must be positive and finite"}
 		}
 		if w != nil && (!(w[i] > 0) || math.IsInf(w[i], 1)) {
-			return nil, &PointError{i, fmt.Sprintf("weight must be positive and finite, got %g", w[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("weight must be positive and finite, got %g", w[i])}
 		}
 		s := model.At(T[i])
 		switch {
-		case s.Flags&FlagOutsideTable != 0:
-			return nil, &PointError{i, fmt.Sprintf("%g K is outside the tabulated driving force", T[i])}
+		case s.Flags&kinetics.FlagOutsideTable != 0:
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is outside the tabulated driving force", T[i])}
 		case !(s.Dmu > 0):
-			return nil, &PointError{i, fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.m.Te)}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.Material().Te)}
 		case math.IsInf(s.LnJ, -1):
-			return nil, &PointError{i, fmt.Sprintf("the model has no mobility at %g K", T[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("the model has no mobility at %g K", T[i])}
 		}
 		same = same && T[i] == T[0]
 	}
@@ -130,18 +131,18 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 		sumW += weight(i)
 	}
 	base := model.Material()
-	with := func(g float64) *Model {
+	with := func(g float64) *kinetics.Model {
 		m := base
 		m.Gamma = g
-		md, err := NewModel(m)
+		md, err := kinetics.NewModel(m)
 		if err != nil {
-			panic("kinetics: FitInterface: " + err.Error()) // only γ changed, and it is positive
+			panic("fit: Interface: " + err.Error()) // only γ changed, and it is positive
 		}
 		return md
 	}
 	r := make([]float64, n)
 	// residuals fills r with ln J − ln J_model(γ) and returns their weighted mean.
-	residuals := func(md *Model) float64 {
+	residuals := func(md *kinetics.Model) float64 {
 		var m float64
 		for i, t := range T {
 			r[i] = lnJ[i] - md.LnJ(t)
@@ -217,25 +218,25 @@ func FitInterface(model *Model, T, lnJ, w []float64) (*InterfaceFit, error) {
 }
 
 // classical fills the linear plot of ln J − ln D against 1/(T·Δg_v²).
-func (f *InterfaceFit) classical(model *Model, T, lnJ, w []float64) {
+func (f *InterfaceFit) classical(model *kinetics.Model, T, lnJ, w []float64) {
 	f.LinearGamma = math.NaN()
 	f.LinearX = make([]float64, len(T))
 	f.LinearY = make([]float64, len(T))
 	for i, t := range T {
 		s := model.At(t)
-		dgv := s.DrivingVolume(model.m.Vm)
+		dgv := s.DrivingVolume(model.Material().Vm)
 		f.LinearX[i] = 1 / (t * dgv * dgv)
 		f.LinearY[i] = lnJ[i]
-		if model.m.Mobility != nil {
+		if model.Material().Mobility != nil {
 			f.LinearY[i] -= s.LnD
 		}
 	}
-	l, err := FitLine(f.LinearX, f.LinearY, w)
+	l, err := Line(f.LinearX, f.LinearY, w)
 	if err != nil {
 		return
 	}
 	f.Linear = l
 	if l.Slope < 0 {
-		f.LinearGamma = math.Cbrt(-3 * cnt.Boltzmann * l.Slope / (16 * math.Pi * model.f))
+		f.LinearGamma = math.Cbrt(-3 * cnt.Boltzmann * l.Slope / (16 * math.Pi * model.ShapeFactor()))
 	}
 }

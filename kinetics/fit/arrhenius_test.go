@@ -1,4 +1,4 @@
-package kinetics
+package fit
 
 import (
 	"errors"
@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"undercool/cnt"
+	"undercool/kinetics"
 )
 
 // Callister W.D., Materials Science and Engineering: An Introduction (Wiley),
@@ -20,7 +21,7 @@ import (
 func TestFitArrheniusCallisterCuInAu(t *testing.T) {
 	T := []float64{1 / 0.8e-3, 1 / 1.1e-3}
 	D := []float64{math.Pow(10, -12.40), math.Pow(10, -15.45)}
-	f, err := FitArrhenius(T, D, nil)
+	f, err := Arrhenius(T, D, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -32,9 +33,6 @@ func TestFitArrheniusCallisterCuInAu(t *testing.T) {
 	}
 	if !f.Line.Exact() || !math.IsNaN(f.QCI[0]) || !math.IsNaN(f.ACI[1]) || !math.IsNaN(f.QSE) {
 		t.Errorf("two points must give no interval: %+v", f)
-	}
-	if len(f.Warnings) != 0 {
-		t.Errorf("unexpected warnings %v", f.Warnings)
 	}
 }
 
@@ -62,7 +60,7 @@ func sampled(T0, T1 float64, n int, noise float64, f func(t, e float64) float64)
 func TestFitArrheniusRoundTrip(t *testing.T) {
 	// Exact data: Q and A come back to rounding.
 	T, y := arrheniusData(2.0e-7, 62e3, 700, 1100, 8, 0)
-	f, err := FitArrhenius(T, y, nil)
+	f, err := Arrhenius(T, y, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -71,7 +69,7 @@ func TestFitArrheniusRoundTrip(t *testing.T) {
 	}
 	// Noisy data: within 0.1 % of the truth, and the truth inside the intervals.
 	T, y = arrheniusData(3.5e-5, 194e3, 800, 1300, 12, 0.002)
-	f, err = FitArrhenius(T, y, nil)
+	f, err = Arrhenius(T, y, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -86,61 +84,57 @@ func TestFitArrheniusRoundTrip(t *testing.T) {
 	}
 }
 
-func TestFitArrheniusCelsiusWarnings(t *testing.T) {
-	has := func(f *ArrheniusFit, key string) bool {
-		for _, w := range f.Warnings {
-			if w.Key == key {
-				return true
-			}
-		}
-		return false
-	}
+func TestArrheniusStraighter(t *testing.T) {
+	const shift = 273.15 // K, the Celsius offset
 	// Kelvin data written as Celsius numbers into a kelvin column: the
 	// curve is straight only once 273.15 is added back.
 	T, y := arrheniusData(1e-4, 150e3, 773.15, 1173.15, 9, 0)
 	asC := make([]float64, len(T))
 	for i := range T {
-		asC[i] = T[i] - CelsiusOffset
+		asC[i] = T[i] - shift
 	}
-	f, err := FitArrhenius(asC, y, nil)
+	f, err := Arrhenius(asC, y, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !has(f, "straighter_if_celsius") {
-		t.Errorf("Celsius as kelvin not flagged: %v", f.Warnings)
+	if !f.Straighter(shift) {
+		t.Error("Celsius as kelvin: not straighter shifted up")
 	}
-	// The same data in kelvin is not flagged either way.
-	f, _ = FitArrhenius(T, y, nil)
-	if len(f.Warnings) != 0 {
-		t.Errorf("kelvin data flagged: %v", f.Warnings)
+	// The same data in kelvin is straighter neither way.
+	f, _ = Arrhenius(T, y, nil)
+	if f.Straighter(shift) || f.Straighter(-shift) {
+		t.Error("kelvin data: straighter shifted")
 	}
 	// Kelvin read as Celsius (273.15 too much).
 	asK := make([]float64, len(T))
 	for i := range T {
-		asK[i] = T[i] + CelsiusOffset
+		asK[i] = T[i] + shift
 	}
-	if f, _ = FitArrhenius(asK, y, nil); !has(f, "straighter_if_kelvin") {
-		t.Errorf("kelvin as Celsius not flagged: %v", f.Warnings)
+	if f, _ = Arrhenius(asK, y, nil); !f.Straighter(-shift) {
+		t.Error("kelvin as Celsius: not straighter shifted down")
 	}
-	// Everything below 250 K.
-	T, y = arrheniusData(1e-4, 50e3, 120, 240, 3, 0)
-	if f, _ = FitArrhenius(T, y, nil); !has(f, "all_below_250_k") {
-		t.Errorf("cold data not flagged: %v", f.Warnings)
+	// A shift past absolute zero, or too few points to judge, is not straighter.
+	if f.Straighter(-2000) {
+		t.Error("a shift below absolute zero counted")
+	}
+	f, _ = Arrhenius(asC[:3], y[:3], nil)
+	if f.Straighter(shift) {
+		t.Error("one degree of freedom judged")
 	}
 }
 
 func TestFitArrheniusBadInput(t *testing.T) {
-	var pe *PointError
-	if _, err := FitArrhenius([]float64{800, 900, 1000}, []float64{1e-12, 0, 1e-11}, nil); !errors.As(err, &pe) || pe.Index != 1 {
+	var pe *kinetics.PointError
+	if _, err := Arrhenius([]float64{800, 900, 1000}, []float64{1e-12, 0, 1e-11}, nil); !errors.As(err, &pe) || pe.Index != 1 {
 		t.Errorf("zero value: %v", err)
 	}
-	if _, err := FitArrhenius([]float64{800, -5, 1000}, []float64{1e-12, 1e-12, 1e-11}, nil); !errors.As(err, &pe) || pe.Index != 1 {
+	if _, err := Arrhenius([]float64{800, -5, 1000}, []float64{1e-12, 1e-12, 1e-11}, nil); !errors.As(err, &pe) || pe.Index != 1 {
 		t.Errorf("negative temperature: %v", err)
 	}
-	if _, err := FitArrhenius([]float64{800, 800}, []float64{1e-12, 2e-12}, nil); err == nil {
+	if _, err := Arrhenius([]float64{800, 800}, []float64{1e-12, 2e-12}, nil); err == nil {
 		t.Error("duplicate temperatures only: no error")
 	}
-	if _, err := FitArrhenius([]float64{800}, []float64{1e-12}, nil); !errors.Is(err, ErrFewPoints) {
+	if _, err := Arrhenius([]float64{800}, []float64{1e-12}, nil); !errors.Is(err, ErrFewPoints) {
 		t.Errorf("one point: %v", err)
 	}
 }
@@ -149,17 +143,17 @@ func BenchmarkFitArrhenius1000(b *testing.B) {
 	T, y := arrheniusData(2.0e-7, 62e3, 600, 1100, 1000, 0.01)
 	b.ResetTimer()
 	for b.Loop() {
-		if _, err := FitArrhenius(T, y, nil); err != nil {
+		if _, err := Arrhenius(T, y, nil); err != nil {
 			b.Fatal(err)
 		}
 	}
 }
 
-func ExampleFitArrhenius() {
+func ExampleArrhenius() {
 	// Invented diffusivities of a fictitious solute, m²/s.
 	T := []float64{800, 900, 1000, 1100}
 	D := []float64{1.1e-14, 2.6e-13, 3.0e-12, 2.1e-11}
-	f, err := FitArrhenius(T, D, nil)
+	f, err := Arrhenius(T, D, nil)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -1,8 +1,10 @@
-package kinetics
+package fit
 
 import (
 	"fmt"
 	"math"
+
+	"undercool/kinetics"
 )
 
 // AvramiFit is the isothermal transformed fraction X(t) = 1 − exp(−k·tⁿ)
@@ -25,15 +27,15 @@ type AvramiFit struct {
 	Skipped    []int      // indices of the points left out: X ≤ 0 or X ≥ 1
 }
 
-// FitAvrami fits the Avrami law to times t (s) and transformed fractions X,
+// Avrami fits the Avrami law to times t (s) and transformed fractions X,
 // with optional relative weights w (nil: equal) on the linearized points.
 // Points with X ≤ 0 or X ≥ 1 carry no information on the straight line and
-// are left out (listed in Skipped). It returns a *PointError for a time of
+// are left out (listed in Skipped). It returns a *kinetics.PointError for a time of
 // a used point that is not positive and finite, ErrFewPoints when fewer than
 // two points are left and ErrSameX when they all share one time.
-func FitAvrami(t, X, w []float64) (*AvramiFit, error) {
+func Avrami(t, X, w []float64) (*AvramiFit, error) {
 	if len(t) != len(X) || (w != nil && len(w) != len(t)) {
-		panic("kinetics: FitAvrami: slices differ in length")
+		panic("fit: Avrami: slices differ in length")
 	}
 	f := &AvramiFit{}
 	var x, y, ww []float64
@@ -43,7 +45,7 @@ func FitAvrami(t, X, w []float64) (*AvramiFit, error) {
 			continue
 		}
 		if !(t[i] > 0) || math.IsInf(t[i], 1) {
-			return nil, &PointError{i, fmt.Sprintf("time must be positive and finite to take its logarithm, got %g s", t[i])}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("time must be positive and finite to take its logarithm, got %g s", t[i])}
 		}
 		f.Used = append(f.Used, i)
 		x = append(x, math.Log(t[i]))
@@ -55,9 +57,9 @@ func FitAvrami(t, X, w []float64) (*AvramiFit, error) {
 	if len(x) < 2 {
 		return nil, fmt.Errorf("an Avrami fit needs at least 2 points with 0 < fraction < 1, got %d", len(x))
 	}
-	l, err := FitLine(x, y, ww)
+	l, err := Line(x, y, ww)
 	if err != nil {
-		if pe, ok := err.(*PointError); ok {
+		if pe, ok := err.(*kinetics.PointError); ok {
 			pe.Index = f.Used[pe.Index]
 			return nil, pe
 		}
