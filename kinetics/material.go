@@ -45,19 +45,18 @@ func PrefactorNames() []string { return prefactorNames[:] }
 // field says so. Build a Model from it to evaluate rates.
 type Material struct {
 	Name      string
-	Driving   cnt.DrivingForce
-	Te        float64   // equilibrium temperature, K (0: from a tabulated driving force)
-	Vm        float64   // molar volume of the new phase, m³/mol
-	Gamma     float64   // interfacial energy, J/m²
-	Theta     float64   // contact angle, degrees; 180 = homogeneous (0: homogeneous)
-	Sites     float64   // nucleation sites, m⁻³ (0: 1/v, every molecule)
-	Prefactor Prefactor // kinetic prefactor model
-	J0        float64   // prefactor for PrefactorFixed, m⁻³·s⁻¹
-	Mobility  Mobility  // nil: no mobility law (nucleus only, or fixed prefactor)
-	Jump      float64   // jump distance λ, m (0: v^(1/3))
-	Tg        float64   // glass transition, K (0: none), for ranges and flags
-	Conc      float64   // solute molecules per m³ in solution, for PrefactorDiffusion
-	Growth    float64   // measured growth rate u, m/s, in place of the mobility law's (0: from the mobility law)
+	Driving   cnt.DrivingForce // gives the equilibrium temperature T_e too
+	Vm        float64          // molar volume of the new phase, m³/mol
+	Gamma     float64          // interfacial energy, J/m²
+	Theta     float64          // contact angle, degrees; 180 = homogeneous (0: homogeneous)
+	Sites     float64          // nucleation sites, m⁻³ (0: 1/v, every molecule)
+	Prefactor Prefactor        // kinetic prefactor model
+	J0        float64          // prefactor for PrefactorFixed, m⁻³·s⁻¹
+	Mobility  Mobility         // nil: no mobility law (nucleus only, or fixed prefactor)
+	Jump      float64          // jump distance λ, m (0: v^(1/3))
+	Tg        float64          // glass transition, K (0: none), for ranges and flags
+	Conc      float64          // solute molecules per m³ in solution, for PrefactorDiffusion
+	Growth    float64          // measured growth rate u, m/s, in place of the mobility law's (0: from the mobility law)
 }
 
 // MolecularVolume is v = V_m/N_A, m³.
@@ -75,6 +74,7 @@ func (m *Material) JumpDistance() float64 {
 // It is immutable and safe for concurrent use.
 type Model struct {
 	m      Material
+	te     float64 // equilibrium temperature, K, from the driving force
 	v      float64 // molecular volume, m³
 	jump   float64 // λ, m
 	lnJump float64
@@ -86,6 +86,10 @@ type Model struct {
 
 // minMolecularVolume is the least volume per molecule accepted, m³.
 const minMolecularVolume = 1e-33
+
+// ErrNoEquilibrium is returned for a driving force without an equilibrium
+// temperature (a table whose Δg never changes sign).
+var ErrNoEquilibrium = errors.New("the driving force has no equilibrium temperature: its driving force never changes sign")
 
 // ErrNoMobility is returned for a Turnbull–Fisher prefactor without an
 // Arrhenius mobility law.
@@ -104,17 +108,14 @@ func NewModel(m Material) (*Model, error) {
 	if m.Driving == nil {
 		return nil, errors.New("no driving-force model")
 	}
-	if tab, ok := m.Driving.(*cnt.Table); ok && m.Te == 0 {
-		te, found := tab.Equilibrium()
-		if !found {
-			return nil, errors.New("te: the driving-force table never changes sign; give te")
-		}
-		m.Te = te
+	te, ok := m.Driving.Equilibrium()
+	if !ok {
+		return nil, ErrNoEquilibrium
 	}
 	checks := []struct {
 		name string
 		x    float64
-	}{{"te", m.Te}, {"vm", m.Vm}, {"gamma", m.Gamma}}
+	}{{"te", te}, {"vm", m.Vm}, {"gamma", m.Gamma}}
 	for _, c := range checks {
 		if err := positive(c.name, c.x); err != nil {
 			return nil, err
@@ -136,7 +137,7 @@ func NewModel(m Material) (*Model, error) {
 			}
 		}
 	}
-	md := &Model{m: m, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
+	md := &Model{m: m, te: te, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
 	// A molecule smaller than 1e-33 m³ (a thousandth of a nucleon's) is a
 	// unit mistake, and would make v, λ and every nucleus underflow.
 	if !(md.v > minMolecularVolume) || !(md.jump > 0) || math.IsInf(md.jump, 0) {
@@ -213,8 +214,11 @@ func jumpOf(own, material float64) (float64, error) {
 }
 
 // Material returns a copy of the material the model was built from, with
-// defaults filled in (θ, T_e of a table).
+// defaults filled in (θ).
 func (md *Model) Material() Material { return md.m }
+
+// Te is the equilibrium temperature T_e of the driving force, K.
+func (md *Model) Te() float64 { return md.te }
 
 // MolecularVolume is v, m³.
 func (md *Model) MolecularVolume() float64 { return md.v }

@@ -18,7 +18,6 @@ func testMetal() kinetics.Material {
 	return kinetics.Material{
 		Name:     "invented test metal",
 		Driving:  cnt.Linear{Te: 1337, DH: 12550},
-		Te:       1337,
 		Vm:       10.2e-6,
 		Gamma:    0.132,
 		Mobility: kinetics.Arrhenius{D0: 1e-7, Q: 40e3},
@@ -79,9 +78,9 @@ func TestNewModelValid(t *testing.T) {
 		t.Fatal(err)
 	}
 	m = testMetal()
-	m.Driving, m.Te = tab, 0
+	m.Driving = tab
 	md = mustModel(t, m)
-	if te := md.Material().Te; !close(te, 400+100*1000.0/1500, 1e-14) {
+	if te := md.Te(); !close(te, 400+100*1000.0/1500, 1e-14) {
 		t.Errorf("Te from table = %g, want 466.667", te)
 	}
 }
@@ -101,11 +100,11 @@ func TestNewModelErrors(t *testing.T) {
 		key  string
 	}{
 		{"no driving force", func(m *kinetics.Material) { m.Driving = nil }, "driving-force"},
-		{"te = 0", func(m *kinetics.Material) { m.Te = 0 }, "te"},
-		{"te < 0", func(m *kinetics.Material) { m.Te = -5 }, "te"},
-		{"te NaN", func(m *kinetics.Material) { m.Te = nan }, "te"},
-		{"te +Inf", func(m *kinetics.Material) { m.Te = inf }, "te"},
-		{"table without sign change, no te", func(m *kinetics.Material) { m.Driving, m.Te = noCross, 0 }, "te"},
+		{"te = 0", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: 0, DH: 12550} }, "te"},
+		{"te < 0", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: -5, DH: 12550} }, "te"},
+		{"te NaN", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: nan, DH: 12550} }, "te"},
+		{"te +Inf", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: inf, DH: 12550} }, "te"},
+		{"table without sign change, no te", func(m *kinetics.Material) { m.Driving = noCross }, "equilibrium temperature"},
 		{"vm = 0", func(m *kinetics.Material) { m.Vm = 0 }, "vm"},
 		{"vm NaN", func(m *kinetics.Material) { m.Vm = nan }, "vm"},
 		{"vm +Inf", func(m *kinetics.Material) { m.Vm = inf }, "vm"},

@@ -270,9 +270,6 @@ func (m Material) WithParam(key string, x float64) Material {
 			}
 			m.Driving = d
 		}
-		if key == "te" {
-			m.Te = x
-		}
 	case "vm", "jump":
 		old := m.JumpDistance()
 		if key == "vm" {
@@ -298,13 +295,12 @@ func (m Material) WithParam(key string, x float64) Material {
 			m.Mobility = mob
 		}
 	case "supersaturation":
-		m.Driving = cnt.Supersaturation{S: x}
+		d := m.Driving.(cnt.Supersaturation)
+		d.S = x
+		m.Driving = d
 	case "sat_temp", "dh_sol":
 		d := m.Driving.(cnt.VantHoff)
 		if key == "sat_temp" {
-			if m.Te == d.Tsat {
-				m.Te = x
-			}
 			d.Tsat = x
 		} else {
 			d.DHsol = x

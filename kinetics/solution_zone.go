@@ -28,7 +28,7 @@ func (md *Model) MetastableZone(V, q, end float64) (Onset, error) {
 	if !(V > 0) || !(q > 0) {
 		panic("kinetics: MetastableZone: volume and rate must be positive")
 	}
-	te := md.m.Te
+	te := md.te
 	if !(end < te) || !(end > 0) {
 		return Onset{}, fmt.Errorf("%w (end %g K, saturation %g K)", ErrEndAboveSat, end, te)
 	}

@@ -111,7 +111,7 @@ func (md *Model) At(T float64) State {
 // state is At without the validity flags, for the paths that need only
 // ln J and u (see rateAndGrowth).
 func (md *Model) state(T float64) State {
-	s := State{T: T, Undercooling: md.m.Te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
+	s := State{T: T, Undercooling: md.te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
 	kT := cnt.Boltzmann * T
 	s.DrivingMole = md.m.Driving.PerMole(T)
 	if math.IsNaN(s.DrivingMole) {

@@ -236,7 +236,6 @@ func ExampleModel_Nose() {
 	md, err := NewModel(Material{
 		Name:     "invented example material",
 		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
-		Te:       1150,
 		Vm:       9.8e-6,
 		Gamma:    0.118,
 		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},

@@ -19,7 +19,6 @@ func demoMaterial() Material {
 	return Material{
 		Name:     "demo",
 		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
-		Te:       1150,
 		Vm:       9.8e-6,
 		Gamma:    0.118,
 		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
@@ -351,7 +350,7 @@ func TestWithParam(t *testing.T) {
 			t.Errorf("%s: set %v, got %v (%v)", key, 1.01*x0, got, err)
 		}
 	}
-	if te := m.WithParam("te", 1200).Te; te != 1200 {
+	if te, _ := m.WithParam("te", 1200).Driving.Equilibrium(); te != 1200 {
 		t.Errorf("te on the material %v, want 1200", te)
 	}
 	// A viscosity law's jump distance follows vm when it was the material's own.
@@ -364,11 +363,11 @@ func TestWithParam(t *testing.T) {
 	// Solutions: the van 't Hoff law follows sat_temp, and T_e with it; a
 	// Stokes–Einstein solute's diameter follows vm.
 	sol := m
-	sol.Driving, sol.Te = cnt.VantHoff{Tsat: 320, DHsol: 25e3}, 320
+	sol.Driving = cnt.VantHoff{Tsat: 320, DHsol: 25e3}
 	sol.Mobility = SolventViscosity{Eta: 1e-3, Jump: m.JumpDistance()}
 	s2 := sol.WithParam("sat_temp", 330).WithParam("dh_sol", 30e3).WithParam("solvent_viscosity", 2e-3).WithParam("vm", 8*sol.Vm)
-	if d := s2.Driving.(cnt.VantHoff); d.Tsat != 330 || d.DHsol != 30e3 || s2.Te != 330 {
-		t.Errorf("van 't Hoff after WithParam: %+v, Te %v", d, s2.Te)
+	if d := s2.Driving.(cnt.VantHoff); d.Tsat != 330 || d.DHsol != 30e3 {
+		t.Errorf("van 't Hoff after WithParam: %+v", d)
 	}
 	if v := s2.Mobility.(SolventViscosity); v.Eta != 2e-3 || math.Abs(v.Jump-2*m.JumpDistance()) > 1e-12*v.Jump {
 		t.Errorf("solvent viscosity after WithParam: %+v", v)
@@ -412,7 +411,7 @@ func BenchmarkMonteCarloNoseCritical(b *testing.B) {
 	spreads := []Spread{{Key: "gamma", SD: 0.002}, {Key: "q", SD: 3e3}, {Key: "d0", Dist: LogNormal, SD: 0.7}}
 	const X = 1e-6
 	nose := func(md *Model) (float64, float64, error) {
-		te := md.Material().Te
+		te := md.Te()
 		n, err := md.Nose(0.5*te, 0.99*te, X, JMAK{})
 		return n.T, math.Exp(n.LnTime), err
 	}
@@ -461,8 +460,8 @@ func BenchmarkMonteCarloNoseCritical(b *testing.B) {
 // energy is known to 2 % and its D0 to a factor of two, and what drives it.
 func ExampleMonteCarlo() {
 	m := Material{
-		Driving: cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3}, Te: 1150,
-		Vm: 9.8e-6, Gamma: 0.118, Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
+		Driving: cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
+		Vm:      9.8e-6, Gamma: 0.118, Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
 	}
 	gamma, _ := NewSpread(m, "gamma", Relative, 0.02)
 	d0, _ := NewSpread(m, "d0", Factor, 2)

@@ -266,7 +266,7 @@ func TestLoadDrivingTable(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if te := m.Material().Te; math.Abs(te-1000) > 1e-9 {
+	if te := m.Te(); math.Abs(te-1000) > 1e-9 {
 		t.Errorf("Te from the table = %g, want 1000", te)
 	}
 	if g := m.At(700).DrivingMole; math.Abs(g-3600) > 1e-9 {

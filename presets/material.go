@@ -66,7 +66,13 @@ func (c *Card) Material() (*kinetics.Model, error) {
 		if err != nil {
 			return nil, fmt.Errorf("%s: %v", c.DrivingFile, err)
 		}
-		m.Driving, m.Te = tab, c.orDefault("te", 0)
+		tab.Te = c.orDefault("te", 0)
+		if _, ok := tab.Equilibrium(); !ok {
+			if _, err := c.need("te", "the driving-force table never changes sign"); err != nil {
+				return nil, err
+			}
+		}
+		m.Driving = tab
 	} else {
 		te, dh := get("te", "equilibrium temperature"), get("dh", "enthalpy of transformation")
 		if err != nil {
@@ -75,7 +81,6 @@ func (c *Card) Material() (*kinetics.Model, error) {
 		if c.Values["dh"].Kind.Name == units.EnergyDensity.Name {
 			dh *= m.Vm
 		}
-		m.Te = te
 		switch c.Driving {
 		case "linear":
 			m.Driving = cnt.Linear{Te: te, DH: dh}

@@ -97,19 +97,20 @@ func (c *Card) solution(m *kinetics.Material) error {
 	}
 	switch {
 	case c.Has("supersaturation"):
-		m.Driving = cnt.Supersaturation{S: c.SI("supersaturation")}
+		s := cnt.Supersaturation{S: c.SI("supersaturation")}
 		switch {
 		case tab != nil && c.tableBasis() == "conc":
 			ts, err := saturation(tab, sol)
 			if err != nil {
 				return err
 			}
-			m.Te = ts
+			s.Tsat = ts
 		case c.Has("sat_temp"):
-			m.Te = c.SI("sat_temp")
+			s.Tsat = c.SI("sat_temp")
 		default:
 			return fmt.Errorf("%s: a fixed supersaturation also needs sat_temp, the saturation temperature (it starts every default temperature range and the undercooling column); give it in the card or with --sat-temp", c.File)
 		}
+		m.Driving = s
 	case tab != nil:
 		m.Driving = tab
 		if basis := c.tableBasis(); basis != "sat_temp" {
@@ -120,13 +121,11 @@ func (c *Card) solution(m *kinetics.Material) error {
 			if basis == "both" && math.Abs(ts-c.SI("sat_temp")) > 0.01 {
 				return fmt.Errorf("%s: conc %s and sat_temp %s disagree: the solubility table puts the saturation of conc at %.2f K; give one of them", c.File, c.Values["conc"].Text, c.Values["sat_temp"].Text, ts)
 			}
-			m.Te = ts
 		} else {
-			m.Te = c.SI("sat_temp")
+			tab.Tsat = c.SI("sat_temp")
 		}
 	case c.Has("sat_temp") && c.Has("dh_sol"):
 		m.Driving = cnt.VantHoff{Tsat: c.SI("sat_temp"), DHsol: c.SI("dh_sol")}
-		m.Te = c.SI("sat_temp")
 	default:
 		return fmt.Errorf("%s: driving \"solution\" needs a supersaturation: supersaturation (with sat_temp), or sat_temp and dh_sol (van 't Hoff), or a solubility table (solubility_table, --solubility FILE.csv) with conc or sat_temp", c.File)
 	}

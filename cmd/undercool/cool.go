@@ -174,8 +174,8 @@ func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
 			if end, err = parseTemp(e, "end", cf.end); err != nil {
 				return err
 			}
-			if !(end < md.Material().Te) {
-				return usagef("--end: %s is not below the equilibrium temperature %.2f K", cf.end, md.Material().Te)
+			if !(end < md.Te()) {
+				return usagef("--end: %s is not below the equilibrium temperature %.2f K", cf.end, md.Te())
 			}
 		}
 		var rates []float64

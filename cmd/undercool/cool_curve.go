@@ -175,7 +175,7 @@ func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, forma
 		if err != nil {
 			return bandError(err, band, Tmax-Tmin)
 		}
-		te := md.Material().Te
+		te := md.Te()
 		line := fmt.Sprintf("fraction at the end of the curve: %.4g (exact path integral)", a.Path.Fraction)
 		reached := any(nil)
 		if a.Path.Reached {

@@ -181,7 +181,7 @@ func (lc *linearCool) plot(pf *plotFlag) error {
 		title:     fmt.Sprintf("CCT over TTT, %s: X = %s", lc.name, fracLabel(lc.X)),
 		fractions: []float64{lc.X},
 		T:         temps,
-		te:        m.Te,
+		te:        md.Te(),
 		tg:        m.Tg,
 	}
 	fig.times = make([][]float64, len(temps))

@@ -21,12 +21,11 @@ func init() {
 
 // neverReason says why a hold never reaches its fraction.
 func neverReason(md *kinetics.Model, s kinetics.State, j kinetics.JMAK, lnt float64) string {
-	m := md.Material()
 	switch {
 	case s.Flags&kinetics.FlagOutsideTable != 0:
 		return "the temperature lies outside the tabulated driving force"
 	case !(s.Dmu > 0):
-		return fmt.Sprintf("no driving force at or above the equilibrium temperature (T_e = %.2f K)", m.Te)
+		return fmt.Sprintf("no driving force at or above the equilibrium temperature (T_e = %.2f K)", md.Te())
 	case s.Flags&kinetics.FlagNoMobility != 0:
 		return "no mobility: below the temperature where the viscosity law diverges"
 	case j.Nuclei == 0 && math.IsInf(s.LnJ, -1):

@@ -178,7 +178,7 @@ func describeCard(c *presets.Card, md *kinetics.Model) ([]string, object) {
 	lines = append(lines, fmt.Sprintf("derived: v = %.4g m3 per molecule, jump distance = %.4g m, f(theta) = %.4g", md.MolecularVolume(), md.JumpDistance(), md.ShapeFactor()))
 	inputs := object{
 		{"material", c.Name}, {"card", c.File}, {"driving", driving}, {"mobility", mob}, {"prefactor", pre},
-		{"equilibrium_temperature_k", m.Te}, {"molecular_volume_m3", md.MolecularVolume()}, {"jump_distance_m", md.JumpDistance()},
+		{"equilibrium_temperature_k", md.Te()}, {"molecular_volume_m3", md.MolecularVolume()}, {"jump_distance_m", md.JumpDistance()},
 		{"shape_factor", md.ShapeFactor()}, {"values", values},
 	}
 	lines, inputs = describeSolution(c, md, lines, inputs)

@@ -404,7 +404,7 @@ func writeRatePlot(pf *plotFlag, name string, md *kinetics.Model, temps []float6
 		return usagef("--plot: a rate plot needs more than one temperature (give --range or several --temps)")
 	}
 	m := md.Material()
-	fig := &rateFigure{title: "nucleation and growth rates, " + name, te: m.Te, tg: m.Tg}
+	fig := &rateFigure{title: "nucleation and growth rates, " + name, te: md.Te(), tg: m.Tg}
 	for _, T := range spread(hi, lo, plotPoints) {
 		s := md.At(T)
 		fig.T = append(fig.T, T)

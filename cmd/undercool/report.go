@@ -291,7 +291,6 @@ func (m *memo) results() ([]memoLine, []headline, kinetics.Eval) {
 		evals = append(evals, eval)
 		return len(heads) - len(h)
 	}
-	mat := m.md.Material()
 
 	h, eval := tttHeadlines([]float64{m.X}, m.j, m.lo, m.hi)
 	k := add(h, eval)
@@ -315,14 +314,14 @@ func (m *memo) results() ([]memoLine, []headline, kinetics.Eval) {
 		lines = append(lines, memoLine{"critical cooling rate", rateText(qc), k})
 		if m.nose.Inside() {
 			t, _ := secondsOf(m.nose.LnTime)
-			est := kinetics.NoseEstimate(mat.Te, m.nose.T, t)
+			est := kinetics.NoseEstimate(m.md.Te(), m.nose.T, t)
 			lines = append(lines, memoLine{"nose estimate (T_e − T_nose)/t_nose (overstates the rate)", rateText(est), -1})
 		}
 		if m.V > 0 {
 			v := "none: fewer than one nucleus expected"
 			if qc > 0 {
 				if o := m.cool.Onset(m.V, qc); o.Reached {
-					v = fmt.Sprintf("%.2f K, at %.2f K", mat.Te-o.Temp, o.Temp)
+					v = fmt.Sprintf("%.2f K, at %.2f K", m.md.Te()-o.Temp, o.Temp)
 				}
 			}
 			lines = append(lines, memoLine{fmt.Sprintf("onset undercooling in %.4g m³ at the critical rate", m.V), v, k + 1})
@@ -347,7 +346,7 @@ func (m *memo) results() ([]memoLine, []headline, kinetics.Eval) {
 		if m.V > 0 {
 			v := "none: fewer than one nucleus expected"
 			if o := kinetics.OnsetAlong(*m.path, a.Sums, m.V); o.Reached {
-				v = fmt.Sprintf("%.2f K, at %.2f K, %s into the curve", mat.Te-o.Temp, o.Temp, readableTime(o.Time))
+				v = fmt.Sprintf("%.2f K, at %.2f K, %s into the curve", m.md.Te()-o.Temp, o.Temp, readableTime(o.Time))
 			}
 			lines = append(lines, memoLine{fmt.Sprintf("onset undercooling in %.4g m³ on the curve", m.V), v, next})
 			next++
@@ -388,7 +387,7 @@ func mdEscape(s string) string { return strings.ReplaceAll(s, "|", "\\|") }
 // write renders the memo.
 func (m *memo) write(b *bytes.Buffer, date, command string) {
 	c, md := m.card, m.md
-	mat := md.Material()
+
 	X := fracLabel(m.X)
 	fmt.Fprintf(b, "# Transformation estimate: %s\n\n", c.Name)
 	fmt.Fprintf(b, "Date: %s. Written by undercool report. Transformed fraction X = %s.\n\n", date, X)
@@ -442,7 +441,7 @@ func (m *memo) write(b *bytes.Buffer, date, command string) {
 		if m.j.Lag {
 			lag = "; steady nucleation from the start, without the time lag of the TTT curve"
 		}
-		fmt.Fprintf(b, "- critical cooling rate: linear cooling from T_e = %.2f K to %.2f K (%s), from the exact extended-volume integral, which scales as q⁻⁴%s\n", mat.Te, m.cool.End, m.cool.Reason, lag)
+		fmt.Fprintf(b, "- critical cooling rate: linear cooling from T_e = %.2f K to %.2f K (%s), from the exact extended-volume integral, which scales as q⁻⁴%s\n", m.md.Te(), m.cool.End, m.cool.Reason, lag)
 	} else if m.coolEr != nil {
 		fmt.Fprintf(b, "- critical cooling rate: not computed (%v)\n", m.coolEr)
 	}

@@ -40,7 +40,7 @@ func solutionCool(e *env, cf *coolFlags, pf *plotFlag, c *presets.Card, md *kine
 	if !md.HasRate() {
 		return true, usagef("the material has no nucleation rate, so no metastable zone: give --prefactor fixed with --j0 (the apparent A that fit induction gives), or a mobility law (--solvent-viscosity, --solute-diffusivity)")
 	}
-	tsat := md.Material().Te
+	tsat := md.Te()
 	end, endWhy := DefaultZoneEnd*tsat, fmt.Sprintf("default %.2g T_sat; give --end to change it", DefaultZoneEnd)
 	if tab, ok := sol.(*cnt.SolubilityTable); ok && tab.T[0] > end {
 		end, endWhy = tab.T[0], "the coldest row of the solubility table"

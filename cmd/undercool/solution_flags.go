@@ -39,7 +39,7 @@ func describeSolution(c *presets.Card, md *kinetics.Model, lines []string, input
 	if !ok {
 		return lines, inputs
 	}
-	te := md.Material().Te
+	te := md.Te()
 	sat := fmt.Sprintf("saturated at %.2f K (%.2f °C)", te, te-273.15)
 	var line string
 	in := object{{"model", sol.Name()}, {"saturation_temperature_k", te}}

@@ -70,7 +70,7 @@ func (sh *solutionHoldFlags) run(e *env, c *presets.Card, md *kinetics.Model, T,
 	case !drives && !math.IsNaN(lnS):
 		reason = fmt.Sprintf("S = %.4g <= 1: the solution is not supersaturated, no driving force", math.Exp(lnS))
 	case !drives:
-		reason = fmt.Sprintf("no driving force at or above the equilibrium temperature (%.2f K)", md.Material().Te)
+		reason = fmt.Sprintf("no driving force at or above the equilibrium temperature (%.2f K)", md.Te())
 	case never:
 		reason = "no nucleation at this temperature"
 	}

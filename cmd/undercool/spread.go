@@ -593,7 +593,7 @@ func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, kinetics.E
 		if V > 0 {
 			o := kinetics.OnsetAlong(p, a.Sums, V)
 			if o.Reached {
-				out = append(out, md.Material().Te-o.Temp)
+				out = append(out, md.Te()-o.Temp)
 			} else {
 				out = append(out, math.NaN())
 			}

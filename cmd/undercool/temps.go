@@ -149,11 +149,11 @@ func spread(a, b float64, n int) []float64 {
 // a material with neither, half of T_e.
 func defaultSpan(md *kinetics.Model) (lo, hi float64) {
 	m := md.Material()
-	hi = m.Te * 0.99
-	lo = 0.5 * m.Te
+	hi = md.Te() * 0.99
+	lo = 0.5 * md.Te()
 	switch mob := m.Mobility.(type) {
 	case kinetics.VFT:
-		lo = math.Max(lo, mob.T0+0.05*(m.Te-mob.T0))
+		lo = math.Max(lo, mob.T0+0.05*(md.Te()-mob.T0))
 	case kinetics.WLF:
 		lo = mob.Tg
 	}

@@ -339,7 +339,7 @@ func writeTTTPlot(pf *plotFlag, md *kinetics.Model, name string, fractions []flo
 	fig := &tttFigure{
 		fractions: fractions,
 		T:         temps,
-		te:        m.Te,
+		te:        md.Te(),
 		tg:        m.Tg,
 	}
 	labels := make([]string, len(fractions))

@@ -20,7 +20,7 @@ func inductionData(t *testing.T, noise []float64) (T, S, ti []float64, v float64
 	k := 0
 	for _, temp := range []float64{288.15, 298.15, 308.15} {
 		for _, s := range []float64{1.6, 1.8, 2.0, 2.4, 3.0} {
-			md := mustModel(t, kinetics.Material{Driving: cnt.Supersaturation{S: s}, Te: 320, Vm: vm, Gamma: gamma, Prefactor: kinetics.PrefactorFixed, J0: A})
+			md := mustModel(t, kinetics.Material{Driving: cnt.Supersaturation{S: s, Tsat: 320}, Vm: vm, Gamma: gamma, Prefactor: kinetics.PrefactorFixed, J0: A})
 			tt := 1 / (math.Exp(md.LnJ(temp)) * V)
 			if noise != nil {
 				tt *= math.Exp(noise[k%len(noise)])

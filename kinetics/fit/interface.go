@@ -111,7 +111,7 @@ func Interface(model *kinetics.Model, T, lnJ, w []float64) (*InterfaceFit, error
 		case s.Flags&kinetics.FlagOutsideTable != 0:
 			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is outside the tabulated driving force", T[i])}
 		case !(s.Dmu > 0):
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.Material().Te)}
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.Te())}
 		case math.IsInf(s.LnJ, -1):
 			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("the model has no mobility at %g K", T[i])}
 		}

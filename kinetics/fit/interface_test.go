@@ -13,7 +13,7 @@ import (
 // for the tests, not a real material).
 func fitDemo(t testing.TB, pre kinetics.Prefactor) *kinetics.Model {
 	m := kinetics.Material{
-		Name: "demo", Driving: cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3}, Te: 1150, Vm: 9.8e-6,
+		Name: "demo", Driving: cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3}, Vm: 9.8e-6,
 		Gamma: 0.118, Mobility: kinetics.Arrhenius{D0: 2.0e-7, Q: 62e3}, Prefactor: pre, J0: 1e40,
 	}
 	if pre == kinetics.PrefactorFixed {
