@@ -38,6 +38,8 @@ type Card struct {
 	Values         map[string]Value
 	Spreads        map[string]SpreadSpec // [spread]: standard deviations of values, by key
 	File           string                // where it came from: a path, or "preset NAME"
+
+	tables *tables // the files it names, read once (build.go)
 }
 
 type rawValue struct {
@@ -143,7 +145,7 @@ func Parse(data []byte, file string) (*Card, error) {
 		where := fmt.Sprintf("%s:%d: key %q", file, line, key)
 		p, ok := ParamByKey(key)
 		if !ok {
-			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(paramKeys(), ", "))
+			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(ParamKeys(), ", "))
 		}
 		text, err := sourcedText(rv, where)
 		if err != nil {
@@ -214,23 +216,10 @@ func ParseValue(p Param, text string) (Value, error) {
 	if err != nil {
 		return Value{}, err
 	}
-	switch {
-	case p.Check == positive && !(si > 0):
-		return Value{}, fmt.Errorf("%q must be positive", text)
-	case p.Check == nonNegative && !(si >= 0):
-		return Value{}, fmt.Errorf("%q must not be negative", text)
-	case p.Check == angle && !(si > 0 && si <= 180):
-		return Value{}, fmt.Errorf("%q must lie in (0, 180] degrees", text)
+	if err := p.Range.check(si, text); err != nil {
+		return Value{}, err
 	}
 	return Value{SI: si, Text: strings.TrimSpace(text), Kind: p.Kinds[i]}, nil
-}
-
-func paramKeys() []string {
-	out := make([]string, len(Params))
-	for i, p := range Params {
-		out[i] = p.Key
-	}
-	return out
 }
 
 func allowedKeys(k toml.Key) string {
@@ -238,13 +227,13 @@ func allowedKeys(k toml.Key) string {
 		if len(k) > 2 {
 			return "value, source"
 		}
-		return strings.Join(SpreadKeys(), ", ")
+		return strings.Join(ParamKeys(), ", ")
 	}
 	if len(k) > 1 && k[0] == "values" {
 		if len(k) > 2 {
 			return "value, source"
 		}
-		return strings.Join(paramKeys(), ", ")
+		return strings.Join(ParamKeys(), ", ")
 	}
 	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, [values], [spread]"
 }

@@ -21,7 +21,7 @@ func mustModel(t *testing.T, name string, edit func(*Card)) *kinetics.Model {
 	if edit != nil {
 		edit(c)
 	}
-	m, err := c.Material()
+	m, err := c.Model()
 	if err != nil {
 		t.Fatalf("%s: %v", name, err)
 	}
@@ -82,7 +82,7 @@ func TestShippedCards(t *testing.T) {
 					}
 				}
 			}
-			m, err := c.Material()
+			m, err := c.Model()
 			if err != nil {
 				t.Fatalf("Material: %v", err)
 			}
@@ -375,7 +375,7 @@ func FuzzCard(f *testing.F) {
 		if c.Driving == "table" {
 			return // would read a file named by the input
 		}
-		m, err := c.Material()
+		m, err := c.Model()
 		if err != nil {
 			return
 		}

@@ -45,7 +45,7 @@ func solutionModel(t *testing.T, set map[string]string, table string) (*kinetics
 	if table != "" {
 		c.SolubilityFile = writeTemp(t, "sol.csv", table)
 	}
-	return c.Material()
+	return c.Model()
 }
 
 func TestSolutionCardDrivings(t *testing.T) {
@@ -94,7 +94,7 @@ func TestSolutionCardDrivings(t *testing.T) {
 	if err := c.Set("conc", "15 g/kg", "command line"); err != nil {
 		t.Fatal(err)
 	}
-	if md, err := c.Material(); err != nil || math.Abs(md.Te()-293.15) > 1e-9 {
+	if md, err := c.Model(); err != nil || math.Abs(md.Te()-293.15) > 1e-9 {
 		t.Errorf("card sat_temp, command-line conc: %v, Te %v; want 293.15", err, md)
 	}
 	// A fixed S wins over the table, which still gives T_sat.
@@ -115,7 +115,7 @@ func TestSolutionCardMobilityAndDiffusion(t *testing.T) {
 		}
 	}
 	c.Mobility, c.Prefactor = "stokes-einstein", "diffusion"
-	md, err := c.Material()
+	md, err := c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -129,7 +129,7 @@ func TestSolutionCardMobilityAndDiffusion(t *testing.T) {
 	}
 	// A mass concentration needs the molar mass: 36 g/l / 0.180 kg/mol = 200 mol/m³.
 	c.Values["conc"], _ = ParseValue(mustParam("conc"), "36 g/l")
-	md, err = c.Material()
+	md, err = c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -137,7 +137,7 @@ func TestSolutionCardMobilityAndDiffusion(t *testing.T) {
 		t.Errorf("number concentration from g/l %g, want %g", md.Material().Conc, want)
 	}
 	c.Values["conc"], _ = ParseValue(mustParam("conc"), "36 g/kg")
-	if _, err := c.Material(); err == nil || !strings.Contains(err.Error(), "number_conc") {
+	if _, err := c.Model(); err == nil || !strings.Contains(err.Error(), "number_conc") {
 		t.Errorf("mass ratio without number_conc: %v", err)
 	}
 }
@@ -207,7 +207,7 @@ func TestParacetamolCard(t *testing.T) {
 	if err := c.Set("sat_temp", "40C", "test"); err != nil {
 		t.Fatal(err)
 	}
-	md, err := c.Material()
+	md, err := c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -125,7 +125,7 @@ func (mf *materialFlags) model() (*presets.Card, *kinetics.Model, error) {
 	if err != nil {
 		return nil, nil, err
 	}
-	md, err := c.Material()
+	md, err := c.Model()
 	if err != nil {
 		return nil, nil, usagef("%v", err)
 	}

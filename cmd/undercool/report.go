@@ -13,6 +13,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"undercool/kinetics"
+	"undercool/kinetics/sample"
 	"undercool/presets"
 )
 
@@ -54,7 +55,7 @@ type memo struct {
 	curve  kinetics.CurveAnalysis
 	flags  kinetics.Flag
 	plan   *spreadPlan
-	u      *kinetics.Uncertainty
+	u      *sample.Uncertainty
 	heads  []headline
 	plot   string // path of the SVG, "" for none
 	link   string // how the memo links it
@@ -282,11 +283,11 @@ type memoLine struct {
 
 // results are the rows of the results table, the banded headlines among
 // them and the evaluation of one sample for those headlines.
-func (m *memo) results() ([]memoLine, []headline, kinetics.Eval) {
+func (m *memo) results() ([]memoLine, []headline, sample.Eval) {
 	var lines []memoLine
 	var heads []headline
-	var evals []kinetics.Eval
-	add := func(h []headline, eval kinetics.Eval) int {
+	var evals []sample.Eval
+	add := func(h []headline, eval sample.Eval) int {
 		heads = append(heads, h...)
 		evals = append(evals, eval)
 		return len(heads) - len(h)
@@ -446,7 +447,7 @@ func (m *memo) write(b *bytes.Buffer, date, command string) {
 		fmt.Fprintf(b, "- critical cooling rate: not computed (%v)\n", m.coolEr)
 	}
 	if m.u != nil {
-		fmt.Fprintf(b, "- uncertainty: Monte Carlo, %d samples, seed %d, inputs drawn independently; P5, P50 and P95 are the %s\n", m.u.Samples, m.u.Seed, kinetics.QuantileDefinition)
+		fmt.Fprintf(b, "- uncertainty: Monte Carlo, %d samples, seed %d, inputs drawn independently; P5, P50 and P95 are the %s\n", m.u.Samples, m.u.Seed, sample.QuantileDefinition)
 	} else {
 		b.WriteString("- uncertainty: none given (no spreads on the card or the command line)\n")
 	}
@@ -534,11 +535,8 @@ func (m *memo) writeResults(b *bytes.Buffer) {
 func (m *memo) writeUncertainty(b *bytes.Buffer) {
 	if m.u == nil {
 		b.WriteString("No spreads were given, so the results above are single values with no band. ")
-		g, err := m.md.Material().Param("gamma")
-		if err == nil {
-			if d, ok := m.gammaGuide(g); ok {
-				fmt.Fprintf(b, "As a guide, ±2 %% in the interfacial energy alone moves the nose time by %s decades. ", d)
-			}
+		if d, ok := m.gammaGuide(m.md.Material().Gamma); ok {
+			fmt.Fprintf(b, "As a guide, ±2 %% in the interfacial energy alone moves the nose time by %s decades. ", d)
 		}
 		b.WriteString("Give the standard deviations of the inputs (for example `--spread gamma=2% --spread d0=x2`, or a `[spread]` table on the card) to get P5, P50 and P95 and the ranking of what to measure next.\n")
 		return
@@ -548,13 +546,13 @@ func (m *memo) writeUncertainty(b *bytes.Buffer) {
 		su := m.u.Spreads[i]
 		p, _ := presets.ParamByKey(s.Key)
 		sd := fmt.Sprintf("%.4g %s", su.SD, p.Kinds[0].SI)
-		if su.Dist == kinetics.LogNormal {
+		if su.Dist == sample.LogNormal {
 			sd = fmt.Sprintf("σ(ln) = %.3g (×/÷ %.3g)", su.SD, math.Exp(su.SD))
 		}
 		st.rows = append(st.rows, []any{s.Key, mdEscape(s.Text), su.Dist.String(), strings.TrimSpace(sd), fmt.Sprint(su.Redrawn), mdEscape(s.Source)})
 	}
 	_ = writeTable(b, st.cols, st.rows, true)
-	fmt.Fprintf(b, "\nLog-normal spreads (%s) take the card value as the median; normal ones are centred on it. A draw outside a value's allowed range is drawn again.\n\n", strings.Join(kinetics.LogNormalKeys, ", "))
+	fmt.Fprintf(b, "\nLog-normal spreads (%s) take the card value as the median; normal ones are centred on it. A draw outside a value's allowed range is drawn again.\n\n", strings.Join(presets.LogNormalKeys(), ", "))
 
 	scratch := &result{}
 	addUncertainty(scratch, m.plan, m.u, m.heads, nil)
@@ -581,10 +579,10 @@ func (m *memo) writeUncertainty(b *bytes.Buffer) {
 
 // gammaGuide is the change of the nose time, in decades, for ±2 % in γ.
 func (m *memo) gammaGuide(g float64) (string, bool) {
-	base := m.md.Material()
+	with := m.card.Vary([]sample.Spread{{Key: "gamma", Base: g}})
 	var d [2]float64
 	for i, f := range []float64{0.98, 1.02} {
-		md, err := kinetics.NewModel(base.WithParam("gamma", f*g))
+		md, err := with([]float64{f * g})
 		if err != nil {
 			return "", false
 		}
@@ -594,7 +592,7 @@ func (m *memo) gammaGuide(g float64) (string, bool) {
 		}
 		d[i] = (n.LnTime - m.nose.LnTime) / math.Ln10
 	}
-	return effectText(kinetics.Effect{Minus: d[0], Plus: d[1]}), true
+	return effectText(sample.Effect{Minus: d[0], Plus: d[1]}), true
 }
 
 // withCCT reports whether the plot shows the CCT curve over the TTT one:

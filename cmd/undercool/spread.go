@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"undercool/kinetics"
+	"undercool/kinetics/sample"
 	"undercool/presets"
 )
 
@@ -38,7 +39,7 @@ type spreadFlags struct {
 // addSpreadFlags registers the uncertainty flags of a command.
 func addSpreadFlags(fs *pflag.FlagSet) *spreadFlags {
 	sf := &spreadFlags{fs: fs}
-	fs.StringArrayVar(&sf.given, "spread", nil, "standard deviation of an input, NAME=VALUE, repeatable: relative (gamma=2%), absolute with its unit (q=3kJ/mol, te=5K) or a factor (d0=x3); normal, log-normal for "+strings.Join(kinetics.LogNormalKeys, ", "))
+	fs.StringArrayVar(&sf.given, "spread", nil, "standard deviation of an input, NAME=VALUE, repeatable: relative (gamma=2%), absolute with its unit (q=3kJ/mol, te=5K) or a factor (d0=x3); normal, log-normal for "+strings.Join(presets.LogNormalKeys(), ", "))
 	fs.IntVar(&sf.samples, "samples", defaultSamples, fmt.Sprintf("Monte Carlo samples for the uncertainty bands, 1 to %d", maxSamples))
 	fs.Uint64Var(&sf.seed, "seed", 1, "seed of the random draws, 0 to 2^64-1; the same seed gives the same bands on any number of cores")
 	fs.BoolVar(&sf.none, "no-spread", false, "ignore the [spread] table of the material card")
@@ -46,10 +47,11 @@ func addSpreadFlags(fs *pflag.FlagSet) *spreadFlags {
 }
 
 // spreadPlan is what a run will sample: the spreads resolved against the
-// material, in the order of kinetics.ParamKeys.
+// card, in the order of presets.Params.
 type spreadPlan struct {
+	card    *presets.Card
 	specs   []presets.SpreadSpec
-	spreads []kinetics.Spread
+	spreads []sample.Spread
 	samples int
 	seed    uint64
 }
@@ -111,24 +113,20 @@ func (sf *spreadFlags) plan(c *presets.Card, md *kinetics.Model) (*spreadPlan, e
 		}
 		return nil, nil
 	}
-	p := &spreadPlan{samples: sf.samples, seed: sf.seed}
-	m := md.Material()
-	for _, k := range kinetics.ParamKeys {
-		s, ok := all[k]
-		if !ok {
-			continue
+	p := &spreadPlan{card: c, samples: sf.samples, seed: sf.seed}
+	spreads, err := c.Resolve(all)
+	if err != nil {
+		where := "--spread"
+		var se *presets.SpreadError
+		if errors.As(err, &se) && all[se.Key].Line > 0 {
+			where = fmt.Sprintf("%s:%d: [spread]", c.File, all[se.Key].Line)
 		}
-		sp, err := s.Spread(m)
-		if err != nil {
-			where := "--spread"
-			if s.Line > 0 {
-				where = fmt.Sprintf("%s:%d: [spread]", c.File, s.Line)
-			}
-			return nil, usagef("%s: %v", where, err)
-		}
-		p.specs = append(p.specs, s)
-		p.spreads = append(p.spreads, sp)
+		return nil, usagef("%s: %v", where, err)
 	}
+	for _, s := range spreads {
+		p.specs = append(p.specs, all[s.Key])
+	}
+	p.spreads = spreads
 	return p, nil
 }
 
@@ -144,16 +142,16 @@ type headline struct {
 }
 
 // run samples the plan, with a progress bar on a terminal.
-func (p *spreadPlan) run(e *env, md *kinetics.Model, heads []headline, eval kinetics.Eval) (*kinetics.Uncertainty, error) {
+func (p *spreadPlan) run(e *env, md *kinetics.Model, heads []headline, eval sample.Eval) (*sample.Uncertainty, error) {
 	if n := p.samples * len(heads); n > maxEvaluations {
 		return nil, usagef("--samples: %d samples of %d results is more than %d evaluations; use fewer samples or fewer rows", p.samples, len(heads), maxEvaluations)
 	}
-	outs := make([]kinetics.Output, len(heads))
+	outs := make([]sample.Output, len(heads))
 	for i, h := range heads {
-		outs[i] = kinetics.Output{Key: h.key, Log: h.log}
+		outs[i] = sample.Output{Key: h.key, Log: h.log}
 	}
-	mc := kinetics.MonteCarlo{
-		Base: md.Material(), Spreads: p.spreads, Outputs: outs, Eval: eval,
+	mc := sample.MonteCarlo{
+		Spreads: p.spreads, Build: p.card.Vary(p.spreads), Outputs: outs, Eval: eval,
 		Samples: p.samples, Seed: p.seed,
 	}
 	bar := newProgress(e.stderr)
@@ -213,7 +211,7 @@ func (p *progress) finish() {
 }
 
 // bandText is "P5 / P50 / P95" of a band in the headline's format.
-func bandText(h headline, b kinetics.Percentiles) string {
+func bandText(h headline, b sample.Percentiles) string {
 	return h.text(b.P5) + " / " + h.text(b.P50) + " / " + h.text(b.P95)
 }
 
@@ -232,7 +230,7 @@ func plain(n int) func(float64) string {
 
 // spreadDescription says how a spread was given and what it is, e.g.
 // "gamma 2% (normal, σ = 0.00236 J/m2, card)".
-func spreadDescription(s presets.SpreadSpec, sp kinetics.SpreadUse) string {
+func spreadDescription(s presets.SpreadSpec, sp sample.SpreadUse) string {
 	p, _ := presets.ParamByKey(s.Key)
 	unit := p.Kinds[0].SI
 	from := "command line"
@@ -240,7 +238,7 @@ func spreadDescription(s presets.SpreadSpec, sp kinetics.SpreadUse) string {
 		from = fmt.Sprintf("card line %d, %s", s.Line, s.Source)
 	}
 	var sd string
-	if sp.Dist == kinetics.LogNormal {
+	if sp.Dist == sample.LogNormal {
 		sd = fmt.Sprintf("σ(ln) = %.3g, ±1σ = ×/÷ %.3g", sp.SD, math.Exp(sp.SD))
 	} else {
 		sd = fmt.Sprintf("σ = %.4g %s", sp.SD, unit)
@@ -249,7 +247,7 @@ func spreadDescription(s presets.SpreadSpec, sp kinetics.SpreadUse) string {
 }
 
 // effectText is one sensitivity cell, "−0.52 / +0.49".
-func effectText(e kinetics.Effect) string {
+func effectText(e sample.Effect) string {
 	f := func(x float64) string {
 		if math.IsNaN(x) {
 			return dash
@@ -273,15 +271,15 @@ func effectText(e kinetics.Effect) string {
 // and P95 summary lines (or table columns for per-row results), the
 // "uncertainty" JSON block, a sensitivity table ranked per result, and
 // notes that say what was sampled and how the quantiles are read.
-func addUncertainty(r *result, p *spreadPlan, u *kinetics.Uncertainty, heads []headline, rowTemps []float64) {
+func addUncertainty(r *result, p *spreadPlan, u *sample.Uncertainty, heads []headline, rowTemps []float64) {
 	head := fmt.Sprintf("uncertainty (%d samples, seed %d): P5 / P50 / P95", u.Samples, u.Seed)
 	r.summary = append(r.summary, head)
-	block := object{{"samples", u.Samples}, {"seed", u.Seed}, {"quantiles", kinetics.QuantileDefinition}}
+	block := object{{"samples", u.Samples}, {"seed", u.Seed}, {"quantiles", sample.QuantileDefinition}}
 	var spreads []any
 	for i, s := range p.specs {
 		su := u.Spreads[i]
 		js := object{{"parameter", s.Key}, {"text", s.Text}, {"distribution", su.Dist.String()}, {"base_si", su.Base}}
-		if su.Dist == kinetics.LogNormal {
+		if su.Dist == sample.LogNormal {
 			js = append(js, kv{"sd_ln", su.SD})
 		} else {
 			js = append(js, kv{"sd_si", su.SD})
@@ -349,7 +347,7 @@ func addUncertainty(r *result, p *spreadPlan, u *kinetics.Uncertainty, heads []h
 			label = fmt.Sprintf("%s at %.2f K", h.label, rowTemps[h.row])
 		}
 		row := []any{label, unitOf(h)}
-		byKey := map[string]kinetics.Effect{}
+		byKey := map[string]sample.Effect{}
 		var rank []string
 		for _, e := range u.Sensitivity[k] {
 			byKey[e.Key] = e
@@ -368,7 +366,7 @@ func addUncertainty(r *result, p *spreadPlan, u *kinetics.Uncertainty, heads []h
 		given = append(given, spreadDescription(s, u.Spreads[i]))
 	}
 	r.notes = append(r.notes, "spreads, drawn independently: "+strings.Join(given, "; "))
-	r.notes = append(r.notes, "normal spreads are absolute or relative to the value; log-normal ones ("+strings.Join(kinetics.LogNormalKeys, ", ")+") have the value as median; quantiles: "+kinetics.QuantileDefinition)
+	r.notes = append(r.notes, "normal spreads are absolute or relative to the value; log-normal ones ("+strings.Join(presets.LogNormalKeys(), ", ")+") have the value as median; quantiles: "+sample.QuantileDefinition)
 	for _, su := range u.Spreads {
 		if su.Redrawn > 0 {
 			r.notes = append(r.notes, fmt.Sprintf("%s: %d draws fell outside %s and were drawn again (the distribution is truncated there)", su.Key, su.Redrawn, su.Range))
@@ -387,7 +385,7 @@ func addUncertainty(r *result, p *spreadPlan, u *kinetics.Uncertainty, heads []h
 
 // addBandColumns appends P5, P50 and P95 columns for the per-row results
 // (one headline per row, all of the same key).
-func addBandColumns(r *result, u *kinetics.Uncertainty, heads []headline) {
+func addBandColumns(r *result, u *sample.Uncertainty, heads []headline) {
 	var key, label string
 	var text func(float64) string
 	byRow := map[int]int{}
@@ -419,7 +417,7 @@ func addBandColumns(r *result, u *kinetics.Uncertainty, heads []headline) {
 }
 
 // rateHeadlines are the bands of the rate table: log10 J at each row.
-func rateHeadlines(temps []float64) ([]headline, kinetics.Eval) {
+func rateHeadlines(temps []float64) ([]headline, sample.Eval) {
 	heads := make([]headline, len(temps))
 	for i := range temps {
 		heads[i] = headline{key: "log10_rate_per_m3_s", label: "log10 J", text: plain(3), row: i}
@@ -440,7 +438,7 @@ func rateHeadlines(temps []float64) ([]headline, kinetics.Eval) {
 // apply runs the spreads of a command, if there are any, and adds the
 // bands, the sensitivity and the notes to r. rowTemps are the
 // temperatures of the table rows, for per-row headlines.
-func (sf *spreadFlags) apply(e *env, r *result, c *presets.Card, md *kinetics.Model, heads []headline, eval kinetics.Eval, rowTemps []float64) error {
+func (sf *spreadFlags) apply(e *env, r *result, c *presets.Card, md *kinetics.Model, heads []headline, eval sample.Eval, rowTemps []float64) error {
 	plan, err := sf.plan(c, md)
 	if err != nil || plan == nil {
 		return err
@@ -458,7 +456,7 @@ func seconds(t float64) string { return readableTime(t) }
 
 // tttHeadlines are the bands of a TTT curve: the nose temperature and
 // time for each fraction. A nose outside [lo, hi] has no answer.
-func tttHeadlines(fractions []float64, j kinetics.JMAK, lo, hi float64) ([]headline, kinetics.Eval) {
+func tttHeadlines(fractions []float64, j kinetics.JMAK, lo, hi float64) ([]headline, sample.Eval) {
 	var heads []headline
 	for _, X := range fractions {
 		suffix, label := "", ""
@@ -492,7 +490,7 @@ func tttHeadlines(fractions []float64, j kinetics.JMAK, lo, hi float64) ([]headl
 }
 
 // holdHeadlines is the band of a hold: the time to X at T.
-func holdHeadlines(T, X float64, j kinetics.JMAK) ([]headline, kinetics.Eval) {
+func holdHeadlines(T, X float64, j kinetics.JMAK) ([]headline, sample.Eval) {
 	heads := []headline{{key: "time_s", label: fmt.Sprintf("time to X = %s at %.2f K", fracLabel(X), T), log: true, text: seconds, row: -1}}
 	eval := func(md *kinetics.Model) ([]float64, error) {
 		_, a := md.Isothermal(T, j)
@@ -509,7 +507,7 @@ func holdHeadlines(T, X float64, j kinetics.JMAK) ([]headline, kinetics.Eval) {
 // the critical cooling rate for X (with critical), the fraction at the end
 // for each rate, and with a volume V > 0 the onset undercooling at the
 // critical rate or at each rate (no answer where no nucleus is expected).
-func coolHeadlines(end, X, V float64, rates []float64, critical bool) ([]headline, kinetics.Eval) {
+func coolHeadlines(end, X, V float64, rates []float64, critical bool) ([]headline, sample.Eval) {
 	var heads []headline
 	several := len(rates) > 1
 	if critical {
@@ -578,7 +576,7 @@ func sig3(x float64) string { return sig(3)(x) }
 // curveHeadlines are the bands of a measured cooling curve: the fraction
 // at its end, the onset undercooling in a volume V > 0 (no answer where no
 // nucleus is expected) and the additivity sum.
-func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, kinetics.Eval) {
+func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, sample.Eval) {
 	heads := []headline{{key: "fraction", label: "fraction at the end of the curve", log: true, text: sig3, row: -1}}
 	if V > 0 {
 		heads = append(heads, headline{key: "onset_undercooling_k", label: "onset undercooling on the curve", text: kelvin, row: -1})
@@ -610,7 +608,7 @@ func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, kinetics.E
 //
 //	heads, eval := inductionHeadlines(T, V, X, lnU)
 //	err := sf.apply(e, r, c, md, heads, eval, nil)
-func inductionHeadlines(T, V, X, lnU float64) ([]headline, kinetics.Eval) {
+func inductionHeadlines(T, V, X, lnU float64) ([]headline, sample.Eval) {
 	heads := []headline{{key: "induction_time_s", label: fmt.Sprintf("induction time at %.2f K", T), log: true, text: seconds, row: -1}}
 	eval := func(md *kinetics.Model) ([]float64, error) {
 		t := md.InductionAt(T, V, X, lnU).Time()

@@ -1,4 +1,4 @@
-package kinetics
+package sample
 
 import (
 	"encoding/binary"
@@ -7,107 +7,13 @@ import (
 	"math/rand/v2"
 	"runtime"
 	"sort"
-	"strings"
 	"sync"
 	"sync/atomic"
 
 	"gonum.org/v1/gonum/stat"
+
+	"undercool/kinetics"
 )
-
-// Distribution is the law an uncertain input is drawn from.
-type Distribution int
-
-const (
-	// Normal: x = x0 + σ·z, σ in the parameter's SI unit.
-	Normal Distribution = iota
-	// LogNormal: x = x0·exp(σ·z), σ the standard deviation of ln x; the
-	// base value is the median and ±1σ multiplies or divides it by exp(σ).
-	LogNormal
-)
-
-func (d Distribution) String() string {
-	if d == LogNormal {
-		return "log-normal"
-	}
-	return "normal"
-}
-
-// Spread is the uncertainty of one input of a Material.
-type Spread struct {
-	Key  string // one of ParamKeys
-	Dist Distribution
-	SD   float64 // σ ≥ 0: in SI units for Normal, of ln x for LogNormal
-}
-
-// SpreadForm says how a standard deviation was written.
-type SpreadForm int
-
-const (
-	// Absolute: in the parameter's SI unit.
-	Absolute SpreadForm = iota
-	// Relative: as a fraction of the value (0.02 for 2 %).
-	Relative
-	// Factor: F ≥ 1, ±1σ multiplies or divides by F (log-normal parameters only).
-	Factor
-)
-
-// NewSpread makes the spread of parameter key of material m from a
-// standard deviation x written in form. Parameters for which
-// IsMultiplicative holds get a log-normal spread with its median at the
-// material's value x0 and
-//
-//	σ_ln = ln(1 + r)   (relative r, or absolute s with r = s/x0)
-//	σ_ln = ln F        (factor F)
-//
-// so that +1σ is x0·(1 + r); every other parameter gets a normal spread,
-// σ = s or σ = r·|x0|. Errors name the key: an unknown parameter (listing
-// the known ones), one the material does not have, a negative or
-// non-finite deviation, a factor below 1 or on a normal parameter.
-func NewSpread(m Material, key string, form SpreadForm, x float64) (Spread, error) {
-	if !knownParam(key) {
-		return Spread{}, unknownParam(key)
-	}
-	base, err := m.Param(key)
-	if err != nil {
-		return Spread{}, err
-	}
-	if !(x >= 0) || math.IsInf(x, 1) {
-		return Spread{}, fmt.Errorf("%s: the standard deviation must be finite and not negative, got %g", key, x)
-	}
-	s := Spread{Key: key}
-	if !IsMultiplicative(key) {
-		switch form {
-		case Absolute:
-			s.SD = x
-		case Relative:
-			s.SD = x * math.Abs(base)
-		default:
-			return Spread{}, fmt.Errorf("%s: a factor spread (xF) is only for the log-normal parameters %s; give an absolute value with its unit or a percentage", key, strings.Join(LogNormalKeys, ", "))
-		}
-		return s, nil
-	}
-	s.Dist = LogNormal
-	switch form {
-	case Absolute:
-		s.SD = math.Log1p(x / base)
-	case Relative:
-		s.SD = math.Log1p(x)
-	default:
-		if !(x >= 1) {
-			return Spread{}, fmt.Errorf("%s: a factor spread must be at least 1, got %g", key, x)
-		}
-		s.SD = math.Log(x)
-	}
-	return s, nil
-}
-
-// value is the parameter z standard deviations away from x0.
-func (s Spread) value(x0, z float64) float64 {
-	if s.Dist == LogNormal {
-		return x0 * math.Exp(s.SD*z)
-	}
-	return x0 + s.SD*z
-}
 
 // Output names one headline result of a sample.
 type Output struct {
@@ -121,14 +27,18 @@ type Output struct {
 // Eval computes the headline results of one sample in the order of the
 // outputs: NaN where the sample has no answer, +Inf for "never". It is
 // called from several goroutines at once and must not share mutable state.
-type Eval func(md *Model) ([]float64, error)
+type Eval func(md *kinetics.Model) ([]float64, error)
 
-// MonteCarlo is a sampling run: the base material, the spreads of its
-// inputs (drawn independently of each other), the headline results and
-// how to compute them.
+// MonteCarlo is a sampling run: the spreads of the inputs (drawn
+// independently of each other), how a model is built from them, the
+// headline results and how to compute them.
 type MonteCarlo struct {
-	Base    Material
 	Spreads []Spread
+	// Build returns the model with the inputs at the values x, one per
+	// spread in order. An x[k] equal to Spreads[k].Base leaves that input
+	// as the base model has it: all at their bases is the base model. It is
+	// called from several goroutines at once.
+	Build   func(x []float64) (*kinetics.Model, error)
 	Outputs []Output
 	Eval    Eval
 	Samples int    // ≥ 1
@@ -182,9 +92,7 @@ func (e Effect) Size() float64 {
 // SpreadUse is a spread as a run used it.
 type SpreadUse struct {
 	Spread
-	Base    float64 // the parameter's value in the base material, SI
-	Redrawn int     // draws outside the parameter's range that were drawn again
-	Range   string  // the parameter's range, for the note on truncation
+	Redrawn int // draws outside the input's range that were drawn again
 }
 
 // Uncertainty is the outcome of a MonteCarlo run.
@@ -193,42 +101,35 @@ type Uncertainty struct {
 	Seed        uint64
 	Spreads     []SpreadUse
 	Outputs     []Output
-	Base        []float64     // the results of the base material
+	Base        []float64     // the results of the base model
 	Bands       []Percentiles // per output
 	Sensitivity [][]Effect    // per output, one per spread, largest effect first
 	Values      [][]float64   // Values[i][k]: output k of sample i
 }
 
 // Run draws the samples on all workers and summarizes them. A draw outside
-// a parameter's range (a negative γ, θ above 180°) is drawn again, so the
+// an input's range (a negative γ, θ above 180°) is drawn again, so the
 // distribution is truncated there; SpreadUse.Redrawn counts these.
 //
-// Errors: a parameter the base material lacks, a negative or non-finite
-// σ, a base material or sample the model rejects, a spread so wide that
-// its draws keep leaving the range, an error of Eval (that of the lowest
-// sample index, so the message too is the same on any number of cores).
+// Errors: a negative or non-finite σ, a base or sample model that Build
+// rejects, a spread so wide that its draws keep leaving the range, an
+// error of Eval (that of the lowest sample index, so the message too is
+// the same on any number of cores).
 func (mc *MonteCarlo) Run() (*Uncertainty, error) {
 	if mc.Samples < 1 {
-		panic("kinetics: MonteCarlo: Samples must be at least 1")
+		panic("sample: MonteCarlo: Samples must be at least 1")
 	}
-	if mc.Eval == nil || len(mc.Outputs) == 0 {
-		panic("kinetics: MonteCarlo: no Eval or no Outputs")
+	if mc.Build == nil || mc.Eval == nil || len(mc.Outputs) == 0 {
+		panic("sample: MonteCarlo: no Build, no Eval or no Outputs")
 	}
 	u := &Uncertainty{Samples: mc.Samples, Seed: mc.Seed, Outputs: mc.Outputs}
 	for _, s := range mc.Spreads {
-		if !knownParam(s.Key) {
-			return nil, unknownParam(s.Key)
-		}
-		x0, err := mc.Base.Param(s.Key)
-		if err != nil {
-			return nil, err
-		}
 		if !(s.SD >= 0) || math.IsInf(s.SD, 1) {
 			return nil, fmt.Errorf("%s: the standard deviation must be finite and not negative, got %g", s.Key, s.SD)
 		}
-		u.Spreads = append(u.Spreads, SpreadUse{Spread: s, Base: x0, Range: rangeOf(s.Key).text})
+		u.Spreads = append(u.Spreads, SpreadUse{Spread: s})
 	}
-	base, err := mc.evalAt(mc.Base)
+	base, err := mc.evalAt(mc.bases())
 	if err != nil {
 		return nil, err
 	}
@@ -241,8 +142,18 @@ func (mc *MonteCarlo) Run() (*Uncertainty, error) {
 	return u, nil
 }
 
-func (mc *MonteCarlo) evalAt(m Material) ([]float64, error) {
-	md, err := NewModel(m)
+// bases is every input at its base value.
+func (mc *MonteCarlo) bases() []float64 {
+	x := make([]float64, len(mc.Spreads))
+	for k, s := range mc.Spreads {
+		x[k] = s.Base
+	}
+	return x
+}
+
+// evalAt builds the model of the inputs x and evaluates the outputs.
+func (mc *MonteCarlo) evalAt(x []float64) ([]float64, error) {
+	md, err := mc.Build(x)
 	if err != nil {
 		return nil, err
 	}
@@ -251,7 +162,7 @@ func (mc *MonteCarlo) evalAt(m Material) ([]float64, error) {
 		return nil, err
 	}
 	if len(out) != len(mc.Outputs) {
-		panic(fmt.Sprintf("kinetics: MonteCarlo: Eval returned %d results for %d outputs", len(out), len(mc.Outputs)))
+		panic(fmt.Sprintf("sample: MonteCarlo: Eval returned %d results for %d outputs", len(out), len(mc.Outputs)))
 	}
 	return out, nil
 }
@@ -326,27 +237,24 @@ func (mc *MonteCarlo) sample(u *Uncertainty) error {
 
 // block draws and evaluates the samples of block b. Each sample takes one
 // standard normal number per spread, in the order of the spreads, plus
-// one more for each draw that fell outside the parameter's range.
+// one more for each draw that fell outside the input's range.
 func (mc *MonteCarlo) block(u *Uncertainty, b int, redrawn []int) error {
 	rng := blockStream(mc.Seed, b)
 	lo, hi := b*BlockSize, min((b+1)*BlockSize, mc.Samples)
+	x := make([]float64, len(u.Spreads))
 	for i := lo; i < hi; i++ {
-		m := mc.Base
 		for k, s := range u.Spreads {
-			r := rangeOf(s.Key)
-			x := s.value(s.Base, rng.NormFloat64())
-			for tries := 0; !r.contains(x); tries++ {
+			v := s.value(rng.NormFloat64())
+			for tries := 0; !s.Range.Contains(v); tries++ {
 				if tries == maxRedraws {
 					return fmt.Errorf("%s: the spread is too wide: %d draws in a row fell outside %s; give a smaller standard deviation", s.Key, maxRedraws, s.Range)
 				}
 				redrawn[k]++
-				x = s.value(s.Base, rng.NormFloat64())
+				v = s.value(rng.NormFloat64())
 			}
-			if s.SD > 0 {
-				m = m.WithParam(s.Key, x)
-			}
+			x[k] = v
 		}
-		out, err := mc.evalAt(m)
+		out, err := mc.evalAt(x)
 		if err != nil {
 			return fmt.Errorf("sample %d: %w", i+1, err)
 		}
@@ -393,7 +301,7 @@ func change(o Output, r0, r float64) float64 {
 	return d
 }
 
-// sensitivity evaluates each spread parameter at ±1σ alone and ranks them.
+// sensitivity evaluates each spread input at ±1σ alone and ranks them.
 func (mc *MonteCarlo) sensitivity(u *Uncertainty) [][]Effect {
 	out := make([][]Effect, len(mc.Outputs))
 	for k := range out {
@@ -402,11 +310,12 @@ func (mc *MonteCarlo) sensitivity(u *Uncertainty) [][]Effect {
 	for j, s := range u.Spreads {
 		var at [2][]float64
 		for side, z := range []float64{-1, 1} {
-			x := s.value(s.Base, z)
-			if !rangeOf(s.Key).contains(x) {
+			x := mc.bases()
+			x[j] = s.value(z)
+			if !s.Range.Contains(x[j]) {
 				continue
 			}
-			if r, err := mc.evalAt(mc.Base.WithParam(s.Key, x)); err == nil {
+			if r, err := mc.evalAt(x); err == nil {
 				at[side] = r
 			}
 		}

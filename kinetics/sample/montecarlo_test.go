@@ -1,4 +1,4 @@
-package kinetics
+package sample
 
 import (
 	"errors"
@@ -11,28 +11,77 @@ import (
 	"gonum.org/v1/gonum/stat/distuv"
 
 	"undercool/cnt"
+	"undercool/kinetics"
 )
 
 // demoMaterial is an invented alloy for the tests (the first values of
 // the invented demo card; not a real material).
-func demoMaterial() Material {
-	return Material{
+func demoMaterial() kinetics.Material {
+	return kinetics.Material{
 		Name:     "demo",
 		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
 		Vm:       9.8e-6,
 		Gamma:    0.118,
-		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
+		Mobility: kinetics.Arrhenius{D0: 2e-7, Q: 62e3},
 	}
+}
+
+// span is a range for the tests: lo < x ≤ hi.
+type span struct{ lo, hi float64 }
+
+func (r span) Contains(x float64) bool { return x > r.lo && x <= r.hi }
+func (r span) String() string          { return fmt.Sprintf("(%g, %g]", r.lo, r.hi) }
+
+var (
+	positive = span{0, math.MaxFloat64}
+	angle    = span{0, 180}
+)
+
+// input is how a test input sits in the demo material: its value, its
+// distribution and range, and how to set it.
+type input struct {
+	dist Distribution
+	r    Range
+	get  func(m kinetics.Material) float64
+	set  func(m *kinetics.Material, x float64)
+}
+
+var inputs = map[string]input{
+	"gamma": {Normal, positive, func(m kinetics.Material) float64 { return m.Gamma }, func(m *kinetics.Material, x float64) { m.Gamma = x }},
+	"theta": {Normal, angle, func(m kinetics.Material) float64 { return m.Theta }, func(m *kinetics.Material, x float64) { m.Theta = x }},
+	"d0": {LogNormal, positive, func(m kinetics.Material) float64 { return m.Mobility.(kinetics.Arrhenius).D0 },
+		func(m *kinetics.Material, x float64) { a := m.Mobility.(kinetics.Arrhenius); a.D0 = x; m.Mobility = a }},
+	"q": {Normal, span{-1, math.MaxFloat64}, func(m kinetics.Material) float64 { return m.Mobility.(kinetics.Arrhenius).Q },
+		func(m *kinetics.Material, x float64) { a := m.Mobility.(kinetics.Arrhenius); a.Q = x; m.Mobility = a }},
+}
+
+// build makes the Build of a run over m whose spreads are of the named inputs.
+func build(m kinetics.Material, spreads []Spread) func(x []float64) (*kinetics.Model, error) {
+	return func(x []float64) (*kinetics.Model, error) {
+		v := m
+		for k, s := range spreads {
+			if x[k] != s.Base {
+				inputs[s.Key].set(&v, x[k])
+			}
+		}
+		return kinetics.NewModel(v)
+	}
+}
+
+// run is a MonteCarlo over m with the spreads and its Build.
+func run(m kinetics.Material, spreads []Spread, outs []Output, eval Eval, n int, seed uint64) MonteCarlo {
+	return MonteCarlo{Spreads: spreads, Build: build(m, spreads), Outputs: outs, Eval: eval, Samples: n, Seed: seed}
 }
 
 // log10JAt is the headline result "log10 J at T" for the tests.
 func log10JAt(T float64) Eval {
-	return func(md *Model) ([]float64, error) { return []float64{md.LnJ(T) / math.Ln10}, nil }
+	return func(md *kinetics.Model) ([]float64, error) { return []float64{md.LnJ(T) / math.Ln10}, nil }
 }
 
-func mustSpread(t *testing.T, m Material, key string, form SpreadForm, x float64) Spread {
+func mustSpread(t testing.TB, m kinetics.Material, key string, form Form, x float64) Spread {
 	t.Helper()
-	s, err := NewSpread(m, key, form, x)
+	in := inputs[key]
+	s, err := NewSpread(key, in.dist, in.get(m), in.r, form, x)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -59,13 +108,15 @@ func TestQuantilesMonotonicNormal(t *testing.T) {
 	if s.Dist != Normal || math.Abs(s.SD-0.02*0.118) > 1e-15 {
 		t.Fatalf("spread %+v, want normal with σ = 2.36e-3 J/m2", s)
 	}
-	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(T), Samples: n, Seed: 7}
+	mc := run(m, []Spread{s}, []Output{{"log10_rate_per_m3_s", false}}, log10JAt(T), n, 7)
 	u, err := mc.Run()
 	if err != nil {
 		t.Fatal(err)
 	}
 	f := func(z float64) float64 {
-		md, err := NewModel(m.WithParam("gamma", 0.118+s.SD*z))
+		g := m
+		g.Gamma = 0.118 + s.SD*z
+		md, err := kinetics.NewModel(g)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -97,7 +148,7 @@ func TestQuantilesLogNormal(t *testing.T) {
 	if s.Dist != LogNormal || math.Abs(s.SD-math.Log(3)) > 1e-15 {
 		t.Fatalf("spread %+v, want log-normal with σ_ln = ln 3", s)
 	}
-	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(T), Samples: n, Seed: 11}
+	mc := run(m, []Spread{s}, []Output{{"log10_rate_per_m3_s", false}}, log10JAt(T), n, 11)
 	u, err := mc.Run()
 	if err != nil {
 		t.Fatal(err)
@@ -125,23 +176,24 @@ func TestSameSeedAnyCores(t *testing.T) {
 		mustSpread(t, m, "q", Absolute, 3e3),
 		mustSpread(t, m, "d0", Relative, 0.5),
 	}
-	eval := func(md *Model) ([]float64, error) {
+	eval := func(md *kinetics.Model) ([]float64, error) {
 		return []float64{md.LnJ(1000) / math.Ln10, md.LnJ(800) / math.Ln10}, nil
 	}
 	outs := []Output{{"a", false}, {"b", false}}
-	run := func(procs, workers int) *Uncertainty {
+	sampled := func(procs, workers int) *Uncertainty {
 		old := runtime.GOMAXPROCS(procs)
 		defer runtime.GOMAXPROCS(old)
-		mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: outs, Eval: eval, Samples: 1000, Seed: 42, Workers: workers}
+		mc := run(m, spreads, outs, eval, 1000, 42)
+		mc.Workers = workers
 		u, err := mc.Run()
 		if err != nil {
 			t.Fatal(err)
 		}
 		return u
 	}
-	ref := run(1, 0)
+	ref := sampled(1, 0)
 	for _, c := range []struct{ procs, workers int }{{2, 0}, {2, 3}, {1, 5}} {
-		u := run(c.procs, c.workers)
+		u := sampled(c.procs, c.workers)
 		for i := range ref.Values {
 			for k := range ref.Values[i] {
 				if math.Float64bits(ref.Values[i][k]) != math.Float64bits(u.Values[i][k]) {
@@ -155,7 +207,7 @@ func TestSameSeedAnyCores(t *testing.T) {
 			}
 		}
 	}
-	other := MonteCarlo{Base: m, Spreads: spreads, Outputs: outs, Eval: eval, Samples: 1000, Seed: 43}
+	other := run(m, spreads, outs, eval, 1000, 43)
 	u, _ := other.Run()
 	if u.Values[0][0] == ref.Values[0][0] {
 		t.Error("another seed gives the same first sample")
@@ -166,12 +218,12 @@ func TestSameSeedAnyCores(t *testing.T) {
 func TestZeroSpread(t *testing.T) {
 	m := demoMaterial()
 	spreads := []Spread{mustSpread(t, m, "gamma", Relative, 0), mustSpread(t, m, "d0", Relative, 0)}
-	mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(950), Samples: 300, Seed: 1}
+	mc := run(m, spreads, []Output{{"log10_rate_per_m3_s", false}}, log10JAt(950), 300, 1)
 	u, err := mc.Run()
 	if err != nil {
 		t.Fatal(err)
 	}
-	md, _ := NewModel(m)
+	md, _ := kinetics.NewModel(m)
 	want := md.LnJ(950) / math.Ln10
 	for i, v := range u.Values {
 		if v[0] != want {
@@ -194,7 +246,7 @@ func TestZeroSpread(t *testing.T) {
 func TestSensitivity(t *testing.T) {
 	m := demoMaterial()
 	spreads := []Spread{mustSpread(t, m, "d0", Relative, 0.1), mustSpread(t, m, "gamma", Relative, 0.02)}
-	mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(1000), Samples: 64, Seed: 1}
+	mc := run(m, spreads, []Output{{"log10_rate_per_m3_s", false}}, log10JAt(1000), 64, 1)
 	u, err := mc.Run()
 	if err != nil {
 		t.Fatal(err)
@@ -213,7 +265,7 @@ func TestSensitivity(t *testing.T) {
 	// A time-like output in decades: the JMAK-like t ∝ J^(-1/4) changes by
 	// −1/4 of log10 J's change.
 	mc.Outputs = []Output{{"time_s", true}}
-	mc.Eval = func(md *Model) ([]float64, error) { return []float64{math.Exp(-md.LnJ(1000) / 4)}, nil }
+	mc.Eval = func(md *kinetics.Model) ([]float64, error) { return []float64{math.Exp(-md.LnJ(1000) / 4)}, nil }
 	u, err = mc.Run()
 	if err != nil {
 		t.Fatal(err)
@@ -228,7 +280,7 @@ func TestSensitivity(t *testing.T) {
 func TestNeverAndMissing(t *testing.T) {
 	m := demoMaterial()
 	s := mustSpread(t, m, "gamma", Relative, 0.05)
-	eval := func(md *Model) ([]float64, error) {
+	eval := func(md *kinetics.Model) ([]float64, error) {
 		g := md.Material().Gamma
 		switch {
 		case g > 0.118*1.05:
@@ -238,7 +290,7 @@ func TestNeverAndMissing(t *testing.T) {
 		}
 		return []float64{g}, nil
 	}
-	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"x", false}}, Eval: eval, Samples: 4000, Seed: 3}
+	mc := run(m, []Spread{s}, []Output{{"x", false}}, eval, 4000, 3)
 	u, err := mc.Run()
 	if err != nil {
 		t.Fatal(err)
@@ -252,14 +304,14 @@ func TestNeverAndMissing(t *testing.T) {
 	}
 }
 
-// TestTruncation: draws outside a parameter's range are drawn again and
+// TestTruncation: draws outside an input's range are drawn again and
 // counted; a spread that keeps leaving it is an error.
 func TestTruncation(t *testing.T) {
 	m := demoMaterial()
 	m.Theta = 150
 	m.Sites = 1e20
 	s := mustSpread(t, m, "theta", Absolute, 20)
-	mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(1000), Samples: 2000, Seed: 5}
+	mc := run(m, []Spread{s}, []Output{{"log10_rate_per_m3_s", false}}, log10JAt(1000), 2000, 5)
 	u, err := mc.Run()
 	if err != nil {
 		t.Fatal(err)
@@ -273,42 +325,51 @@ func TestTruncation(t *testing.T) {
 			t.Fatalf("sample %d has no answer", i)
 		}
 	}
-	mc.Spreads = []Spread{{Key: "theta", SD: 1e6}}
+	mc.Spreads = []Spread{{Key: "theta", SD: 1e6, Base: 150, Range: angle}}
 	if _, err := mc.Run(); err == nil || !strings.Contains(err.Error(), "theta: the spread is too wide") {
 		t.Errorf("error %v, want theta: the spread is too wide", err)
 	}
 }
 
 func TestSpreadErrors(t *testing.T) {
-	m := demoMaterial()
-	vft := m
-	vft.Mobility = VFT{A: -4, B: 3000, T0: 500, Jump: m.JumpDistance()}
 	cases := []struct {
-		m    Material
-		key  string
-		form SpreadForm
+		dist Distribution
+		form Form
 		x    float64
 		want string
 	}{
-		{m, "colour", Relative, 0.1, `unknown parameter "colour" (known: te, dh,`},
-		{vft, "d0", Relative, 0.1, "d0: the material has no such value (mobility vft, not arrhenius)"},
-		{m, "j0", Relative, 0.1, "j0: the material has no such value"},
-		{m, "dcp", Relative, 0.1, "dcp: the material has no such value"},
-		{m, "gamma", Relative, -0.1, "gamma: the standard deviation must be finite and not negative"},
-		{m, "gamma", Absolute, math.NaN(), "gamma: the standard deviation must be finite"},
-		{m, "gamma", Absolute, math.Inf(1), "gamma: the standard deviation must be finite"},
-		{m, "gamma", Factor, 2, "gamma: a factor spread (xF) is only for the log-normal parameters"},
-		{m, "d0", Factor, 0.5, "d0: a factor spread must be at least 1"},
+		{Normal, Relative, -0.1, "gamma: the standard deviation must be finite and not negative"},
+		{Normal, Absolute, math.NaN(), "gamma: the standard deviation must be finite"},
+		{Normal, Absolute, math.Inf(1), "gamma: the standard deviation must be finite"},
+		{Normal, Factor, 2, "gamma: a factor spread (xF) is only for log-normal inputs"},
+		{LogNormal, Factor, 0.5, "gamma: a factor spread must be at least 1"},
 	}
 	for _, c := range cases {
-		_, err := NewSpread(c.m, c.key, c.form, c.x)
+		_, err := NewSpread("gamma", c.dist, 0.1, positive, c.form, c.x)
 		if err == nil || !strings.Contains(err.Error(), c.want) {
-			t.Errorf("NewSpread(%s, %v): error %v, want %q", c.key, c.x, err, c.want)
+			t.Errorf("NewSpread(%v, %v, %v): error %v, want %q", c.dist, c.form, c.x, err, c.want)
 		}
 	}
-	mc := MonteCarlo{Base: vft, Spreads: []Spread{{Key: "q", SD: 1}}, Outputs: []Output{{"x", false}}, Eval: log10JAt(900), Samples: 10}
-	if _, err := mc.Run(); err == nil || !strings.HasPrefix(err.Error(), "q: the material has no such value") {
-		t.Errorf("Run with q on vft: %v", err)
+	// The three forms of a log-normal spread, and a normal one.
+	for _, c := range []struct {
+		dist     Distribution
+		form     Form
+		x, sd    float64
+		describe string
+	}{
+		{LogNormal, Relative, 0.5, math.Log(1.5), "relative 50 %: σ_ln = ln 1.5"},
+		{LogNormal, Absolute, 0.05, math.Log(1.5), "absolute 0.05 about 0.1: σ_ln = ln 1.5"},
+		{LogNormal, Factor, 3, math.Log(3), "factor 3: σ_ln = ln 3"},
+		{Normal, Relative, 0.02, 0.002, "relative 2 % of 0.1"},
+	} {
+		s, err := NewSpread("x", c.dist, 0.1, positive, c.form, c.x)
+		if err != nil || math.Abs(s.SD-c.sd) > 1e-15 {
+			t.Errorf("%s: σ = %v (%v)", c.describe, s.SD, err)
+		}
+	}
+	mc := run(demoMaterial(), []Spread{{Key: "q", SD: -1, Base: 62e3, Range: positive}}, []Output{{"x", false}}, log10JAt(900), 10, 0)
+	if _, err := mc.Run(); err == nil || !strings.HasPrefix(err.Error(), "q: the standard deviation must be finite") {
+		t.Errorf("Run with a negative σ: %v", err)
 	}
 }
 
@@ -318,7 +379,7 @@ func TestEvalError(t *testing.T) {
 	m := demoMaterial()
 	s := mustSpread(t, m, "gamma", Relative, 0.02)
 	bad := errors.New("no nose")
-	eval := func(md *Model) ([]float64, error) {
+	eval := func(md *kinetics.Model) ([]float64, error) {
 		if md.Material().Gamma > 0.118*1.04 {
 			return nil, bad
 		}
@@ -326,7 +387,8 @@ func TestEvalError(t *testing.T) {
 	}
 	var msgs []string
 	for _, w := range []int{1, 2, 4} {
-		mc := MonteCarlo{Base: m, Spreads: []Spread{s}, Outputs: []Output{{"x", false}}, Eval: eval, Samples: 5000, Seed: 9, Workers: w}
+		mc := run(m, []Spread{s}, []Output{{"x", false}}, eval, 5000, 9)
+		mc.Workers = w
 		_, err := mc.Run()
 		if !errors.Is(err, bad) {
 			t.Fatalf("error %v, want %v", err, bad)
@@ -338,64 +400,12 @@ func TestEvalError(t *testing.T) {
 	}
 }
 
-func TestWithParam(t *testing.T) {
-	m := demoMaterial()
-	for _, key := range []string{"te", "dh", "vm", "gamma", "theta", "sites", "jump", "d0", "q"} {
-		x0, err := m.Param(key)
-		if err != nil {
-			t.Fatal(err)
-		}
-		got, err := m.WithParam(key, 1.01*x0).Param(key)
-		if err != nil || math.Abs(got-1.01*x0) > 1e-12*math.Abs(x0) {
-			t.Errorf("%s: set %v, got %v (%v)", key, 1.01*x0, got, err)
-		}
-	}
-	if te, _ := m.WithParam("te", 1200).Driving.Equilibrium(); te != 1200 {
-		t.Errorf("te on the material %v, want 1200", te)
-	}
-	// A viscosity law's jump distance follows vm when it was the material's own.
-	v := m
-	v.Mobility = VFT{A: -4, B: 3000, T0: 500, Jump: m.JumpDistance()}
-	w := v.WithParam("vm", 8*v.Vm)
-	if got, want := w.Mobility.(VFT).Jump, 2*m.JumpDistance(); math.Abs(got-want) > 1e-12*want {
-		t.Errorf("vft jump %v after vm ×8, want %v", got, want)
-	}
-	// Solutions: the van 't Hoff law follows sat_temp, and T_e with it; a
-	// Stokes–Einstein solute's diameter follows vm.
-	sol := m
-	sol.Driving = cnt.VantHoff{Tsat: 320, DHsol: 25e3}
-	sol.Mobility = SolventViscosity{Eta: 1e-3, Jump: m.JumpDistance()}
-	s2 := sol.WithParam("sat_temp", 330).WithParam("dh_sol", 30e3).WithParam("solvent_viscosity", 2e-3).WithParam("vm", 8*sol.Vm)
-	if d := s2.Driving.(cnt.VantHoff); d.Tsat != 330 || d.DHsol != 30e3 {
-		t.Errorf("van 't Hoff after WithParam: %+v", d)
-	}
-	if v := s2.Mobility.(SolventViscosity); v.Eta != 2e-3 || math.Abs(v.Jump-2*m.JumpDistance()) > 1e-12*v.Jump {
-		t.Errorf("solvent viscosity after WithParam: %+v", v)
-	}
-	if s, err := NewSpread(sol, "solvent_viscosity", Relative, 0.1); err != nil || s.Dist != LogNormal {
-		t.Errorf("solvent_viscosity spread %+v, %v: want log-normal", s, err)
-	}
-	if _, err := NewSpread(sol, "supersaturation", Relative, 0.1); err == nil || !strings.Contains(err.Error(), "not a fixed supersaturation") {
-		t.Errorf("supersaturation on a van 't Hoff solution: %v", err)
-	}
-	fixed := sol
-	fixed.Driving = cnt.Supersaturation{S: 2}
-	if got := fixed.WithParam("supersaturation", 2.5).Driving.(cnt.Supersaturation).S; got != 2.5 {
-		t.Errorf("supersaturation %v, want 2.5", got)
-	}
-	cp := m
-	cp.Driving = cnt.ConstantCp{Te: 1150, DH: 14.2e3, DCp: 5}
-	if d := cp.WithParam("dcp", 7).Driving.(cnt.ConstantCp); d.DCp != 7 || d.Te != 1150 {
-		t.Errorf("dcp: %+v", d)
-	}
-}
-
 // BenchmarkMonteCarloLog10J: 10,000 samples of log10 J at one temperature
 // with three spreads, on all cores.
 func BenchmarkMonteCarloLog10J(b *testing.B) {
 	m := demoMaterial()
-	spreads := []Spread{{Key: "gamma", SD: 0.002}, {Key: "q", SD: 3e3}, {Key: "d0", Dist: LogNormal, SD: 0.4}}
-	mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: []Output{{"log10_rate_per_m3_s", false}}, Eval: log10JAt(1000), Samples: 10000, Seed: 1}
+	spreads := []Spread{mustSpread(b, m, "gamma", Absolute, 0.002), mustSpread(b, m, "q", Absolute, 3e3), mustSpread(b, m, "d0", Relative, 0.5)}
+	mc := run(m, spreads, []Output{{"log10_rate_per_m3_s", false}}, log10JAt(1000), 10000, 1)
 	for b.Loop() {
 		if _, err := mc.Run(); err != nil {
 			b.Fatal(err)
@@ -408,14 +418,14 @@ func BenchmarkMonteCarloLog10J(b *testing.B) {
 // rate, with spreads on γ, Q and D0, on all cores; and each part alone.
 func BenchmarkMonteCarloNoseCritical(b *testing.B) {
 	m := demoMaterial()
-	spreads := []Spread{{Key: "gamma", SD: 0.002}, {Key: "q", SD: 3e3}, {Key: "d0", Dist: LogNormal, SD: 0.7}}
+	spreads := []Spread{mustSpread(b, m, "gamma", Absolute, 0.002), mustSpread(b, m, "q", Absolute, 3e3), mustSpread(b, m, "d0", Factor, 2)}
 	const X = 1e-6
-	nose := func(md *Model) (float64, float64, error) {
+	nose := func(md *kinetics.Model) (float64, float64, error) {
 		te := md.Te()
-		n, err := md.Nose(0.5*te, 0.99*te, X, JMAK{})
+		n, err := md.Nose(0.5*te, 0.99*te, X, kinetics.JMAK{})
 		return n.T, math.Exp(n.LnTime), err
 	}
-	critical := func(md *Model) (float64, error) {
+	critical := func(md *kinetics.Model) (float64, error) {
 		c, err := md.LinearCooling(0)
 		if err != nil {
 			return 0, err
@@ -427,15 +437,15 @@ func BenchmarkMonteCarloNoseCritical(b *testing.B) {
 		outs []Output
 		eval Eval
 	}{
-		{"nose", []Output{{"nose_temperature_k", false}, {"nose_time_s", true}}, func(md *Model) ([]float64, error) {
+		{"nose", []Output{{"nose_temperature_k", false}, {"nose_time_s", true}}, func(md *kinetics.Model) ([]float64, error) {
 			T, t, err := nose(md)
 			return []float64{T, t}, err
 		}},
-		{"critical", []Output{{"critical_cooling_rate_k_per_s", true}}, func(md *Model) ([]float64, error) {
+		{"critical", []Output{{"critical_cooling_rate_k_per_s", true}}, func(md *kinetics.Model) ([]float64, error) {
 			q, err := critical(md)
 			return []float64{q}, err
 		}},
-		{"nose+critical", []Output{{"nose_temperature_k", false}, {"nose_time_s", true}, {"critical_cooling_rate_k_per_s", true}}, func(md *Model) ([]float64, error) {
+		{"nose+critical", []Output{{"nose_temperature_k", false}, {"nose_time_s", true}, {"critical_cooling_rate_k_per_s", true}}, func(md *kinetics.Model) ([]float64, error) {
 			T, t, err := nose(md)
 			if err != nil {
 				return nil, err
@@ -446,7 +456,7 @@ func BenchmarkMonteCarloNoseCritical(b *testing.B) {
 	}
 	for _, c := range cases {
 		b.Run(c.name, func(b *testing.B) {
-			mc := MonteCarlo{Base: m, Spreads: spreads, Outputs: c.outs, Eval: c.eval, Samples: 10000, Seed: 1}
+			mc := run(m, spreads, c.outs, c.eval, 10000, 1)
 			for b.Loop() {
 				if _, err := mc.Run(); err != nil {
 					b.Fatal(err)
@@ -459,16 +469,23 @@ func BenchmarkMonteCarloNoseCritical(b *testing.B) {
 // The band of log10 J at 1000 K of an invented alloy when its interfacial
 // energy is known to 2 % and its D0 to a factor of two, and what drives it.
 func ExampleMonteCarlo() {
-	m := Material{
+	m := kinetics.Material{
 		Driving: cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
-		Vm:      9.8e-6, Gamma: 0.118, Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
+		Vm:      9.8e-6, Gamma: 0.118, Mobility: kinetics.Arrhenius{D0: 2e-7, Q: 62e3},
 	}
-	gamma, _ := NewSpread(m, "gamma", Relative, 0.02)
-	d0, _ := NewSpread(m, "d0", Factor, 2)
+	positive := span{0, math.MaxFloat64}
+	gamma, _ := NewSpread("gamma", Normal, m.Gamma, positive, Relative, 0.02)
+	d0, _ := NewSpread("d0", LogNormal, 2e-7, positive, Factor, 2)
 	mc := MonteCarlo{
-		Base: m, Spreads: []Spread{gamma, d0},
+		Spreads: []Spread{gamma, d0},
+		Build: func(x []float64) (*kinetics.Model, error) {
+			v := m
+			v.Gamma = x[0]
+			v.Mobility = kinetics.Arrhenius{D0: x[1], Q: 62e3}
+			return kinetics.NewModel(v)
+		},
 		Outputs: []Output{{Key: "log10_rate_per_m3_s"}},
-		Eval: func(md *Model) ([]float64, error) {
+		Eval: func(md *kinetics.Model) ([]float64, error) {
 			return []float64{md.LnJ(1000) / math.Ln10}, nil
 		},
 		Samples: 10000, Seed: 1,
