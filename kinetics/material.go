@@ -93,7 +93,7 @@ var ErrNoEquilibrium = errors.New("the driving force has no equilibrium temperat
 
 // ErrNoMobility is returned for a Turnbull–Fisher prefactor without an
 // Arrhenius mobility law.
-var ErrNoMobility = errors.New("the turnbull-fisher prefactor needs an arrhenius mobility law (d0 and q)")
+var ErrNoMobility = errors.New("the prefactor turnbull-fisher needs an arrhenius mobility law (D0 and Q)")
 
 func positive(name string, x float64) error {
 	if !(x > 0) || math.IsInf(x, 1) {

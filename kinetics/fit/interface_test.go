@@ -19,7 +19,11 @@ func fitDemo(t testing.TB, pre kinetics.Prefactor) *kinetics.Model {
 	if pre == kinetics.PrefactorFixed {
 		m.Mobility = nil
 	}
-	return mustModel(t, m)
+	md, err := kinetics.NewModel(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return md
 }
 
 // rateData samples ln J of md (times scale) at n temperatures from T0 to
