@@ -3,6 +3,8 @@ package answer
 import (
 	"math"
 
+	"gonum.org/v1/gonum/floats"
+
 	"undercool/kinetics"
 )
 
@@ -27,10 +29,4 @@ func DefaultSpan(md *kinetics.Model) (lo, hi float64) {
 }
 
 // Spread is n ≥ 2 evenly spaced temperatures from a to b, both included.
-func Spread(a, b float64, n int) []float64 {
-	out := make([]float64, n)
-	for i := range out {
-		out[i] = a + (b-a)*float64(i)/float64(n-1)
-	}
-	return out
-}
+func Spread(a, b float64, n int) []float64 { return floats.Span(make([]float64, n), a, b) }
