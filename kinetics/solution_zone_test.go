@@ -88,7 +88,7 @@ func TestMetastableZoneEdges(t *testing.T) {
 	}
 }
 
-// BenchmarkMetastableZone is one onset: ZonePoints evaluations of the
+// BenchmarkMetastableZone is one onset: zonePoints evaluations of the
 // model along the path and one pass of the running integrals.
 func BenchmarkMetastableZone(b *testing.B) {
 	md := zoneModel(b)

@@ -9,8 +9,8 @@ import (
 	"undercool/presets/units"
 )
 
-// DrivingColumns are the columns of a tabulated driving force.
-var DrivingColumns = []Column{
+// drivingColumns are the columns of a tabulated driving force.
+var drivingColumns = []Column{
 	{Quantity: "temperature", Kind: units.Temperature, Required: true},
 	{Quantity: "dg", Kind: units.MolarEnergy, Required: true},
 }
@@ -210,7 +210,7 @@ type tables struct {
 	drivingFile string
 	driving     *cnt.Table
 	solFile     string
-	sol         *Solubility
+	sol         *solubilityData
 }
 
 // drivingTable is the card's tabulated driving force, read on first use.
@@ -222,7 +222,7 @@ func (c *Card) drivingTable() (*cnt.Table, error) {
 	if t.driving != nil && t.drivingFile == c.DrivingFile {
 		return t.driving, nil
 	}
-	d, err := ReadDataFile(c.DrivingFile, nil, DrivingColumns)
+	d, err := ReadDataFile(c.DrivingFile, nil, drivingColumns)
 	if err != nil {
 		return nil, err
 	}

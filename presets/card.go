@@ -145,7 +145,7 @@ func Parse(data []byte, file string) (*Card, error) {
 		where := fmt.Sprintf("%s:%d: key %q", file, line, key)
 		p, ok := ParamByKey(key)
 		if !ok {
-			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(ParamKeys(), ", "))
+			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(paramKeys(), ", "))
 		}
 		text, err := sourcedText(rv, where)
 		if err != nil {
@@ -227,19 +227,19 @@ func allowedKeys(k toml.Key) string {
 		if len(k) > 2 {
 			return "value, source"
 		}
-		return strings.Join(ParamKeys(), ", ")
+		return strings.Join(paramKeys(), ", ")
 	}
 	if len(k) > 1 && k[0] == "values" {
 		if len(k) > 2 {
 			return "value, source"
 		}
-		return strings.Join(ParamKeys(), ", ")
+		return strings.Join(paramKeys(), ", ")
 	}
 	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, [values], [spread]"
 }
 
-// Load reads a card from a file.
-func Load(path string) (*Card, error) {
+// load reads a card from a file.
+func load(path string) (*Card, error) {
 	data, err := os.ReadFile(path)
 	if err != nil {
 		return nil, fmt.Errorf("cannot read material card %s: %v", path, errors.Unwrap(err))

@@ -261,7 +261,7 @@ func TestLoadDrivingTable(t *testing.T) {
 	}
 	path := write("t.toml", card)
 	write("dg.csv", "# invented for the test\ntemperature_k,dg_j_per_mol\n600,4800\n800,2400\n1000,0\n1100,-1200\n")
-	c, err := Load(path)
+	c, err := load(path)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -284,12 +284,12 @@ func TestLoadDrivingTable(t *testing.T) {
 	}
 	// A broken table names its file and line.
 	write("dg.csv", "temperature_k,dg_j_per_mol\n600,4800\n800,lots\n")
-	c, _ = Load(path) // a card reads its table once
+	c, _ = load(path) // a card reads its table once
 	if _, err := c.Model(); err == nil || !strings.Contains(err.Error(), "dg.csv:3") {
 		t.Errorf("broken table error %v should name dg.csv:3", err)
 	}
 	os.Remove(filepath.Join(dir, "dg.csv"))
-	c, _ = Load(path)
+	c, _ = load(path)
 	if _, err := c.Model(); err == nil || !strings.Contains(err.Error(), "dg.csv") {
 		t.Errorf("missing table error %v should name dg.csv", err)
 	}
@@ -297,13 +297,13 @@ func TestLoadDrivingTable(t *testing.T) {
 
 func TestLoadErrors(t *testing.T) {
 	missing := filepath.Join(t.TempDir(), "nothere.toml")
-	_, err := Load(missing)
+	_, err := load(missing)
 	if err == nil || !strings.Contains(err.Error(), missing) {
 		t.Errorf("Load of a missing file: %v should name the file", err)
 	}
 	bad := filepath.Join(t.TempDir(), "bad.toml")
 	os.WriteFile(bad, []byte(replaceLine(t, goodCard, "vm ", `vm = { value = "6 kg", source = "x" }`)), 0o644)
-	_, err = Load(bad)
+	_, err = load(bad)
 	if err == nil || !strings.Contains(err.Error(), bad+":12:") {
 		t.Errorf("Load of a bad card: %v should name %s:12", err, bad)
 	}

@@ -62,10 +62,10 @@ type Range struct {
 
 // The ranges of the values.
 var (
-	AnyFinite   = Range{math.Inf(-1), math.Inf(1), true, "any finite value", "must be finite"}
-	Positive    = Range{0, math.Inf(1), false, "(0, ∞)", "must be positive"}
-	NonNegative = Range{0, math.Inf(1), true, "[0, ∞)", "must not be negative"}
-	Angle       = Range{0, 180, false, "(0, 180] degrees", "must lie in (0, 180] degrees"}
+	anyFinite   = Range{math.Inf(-1), math.Inf(1), true, "any finite value", "must be finite"}
+	positive    = Range{0, math.Inf(1), false, "(0, ∞)", "must be positive"}
+	nonNegative = Range{0, math.Inf(1), true, "[0, ∞)", "must not be negative"}
+	angle       = Range{0, 180, false, "(0, 180] degrees", "must lie in (0, 180] degrees"}
 )
 
 // Contains reports whether x lies in the range.
@@ -98,40 +98,40 @@ var (
 
 // Params are every numeric value a card may hold, in display order.
 var Params = []Param{
-	{"te", []units.Kind{units.Temperature}, "equilibrium temperature (melting point, liquidus or solvus)", Positive, normal, "material", Choice{}},
-	{"dh", []units.Kind{units.MolarEnergy, units.EnergyDensity}, "enthalpy of transformation, positive (per mole of the new phase, or per volume)", Positive, normal, "material", Choice{}},
-	{"dcp", []units.Kind{units.MolarHeatCapacity}, "heat-capacity difference between parent and new phase (driving cp)", AnyFinite, normal, "material", Choice{"driving", "cp"}},
-	{"vm", []units.Kind{units.MolarVolume}, "molar volume of the new phase", Positive, normal, "material", Choice{}},
-	{"gamma", []units.Kind{units.InterfacialEnergy}, "interfacial energy between nucleus and parent", Positive, normal, "material", Choice{}},
-	{"theta", []units.Kind{units.Angle}, "contact angle on the substrate, 0 < θ ≤ 180 degrees (180 = homogeneous)", Angle, normal, "material", Choice{}},
-	{"sites", []units.Kind{units.NumberDensity}, "nucleation sites per volume, > 0; default 1/v, every molecule", Positive, logNormal, "material", Choice{}},
-	{"j0", []units.Kind{units.RateDensity}, "rate prefactor for prefactor fixed", Positive, logNormal, "prefactor", Choice{"prefactor", "fixed"}},
-	{"d0", []units.Kind{units.Diffusivity}, "Arrhenius pre-exponential diffusivity", Positive, logNormal, "mobility", mobility("arrhenius")},
-	{"q", []units.Kind{units.MolarEnergy}, "Arrhenius activation energy", NonNegative, normal, "mobility", mobility("arrhenius")},
-	{"vft_a", []units.Kind{units.Dimensionless}, "VFT constant A, log10 of Pa s", AnyFinite, normal, "mobility", mobility("vft")},
-	{"vft_b", []units.Kind{units.TemperatureDifference}, "VFT constant B", Positive, normal, "mobility", mobility("vft")},
-	{"vft_t0", []units.Kind{units.Temperature}, "VFT temperature T0, where the viscosity diverges", Positive, normal, "mobility", mobility("vft")},
-	{"tg", []units.Kind{units.Temperature}, "glass transition temperature", Positive, normal, "material", Choice{}},
-	{"wlf_c1", []units.Kind{units.Dimensionless}, "WLF constant C1, > 0; default 17.44", Positive, normal, "mobility", mobility("wlf")},
-	{"wlf_c2", []units.Kind{units.TemperatureDifference}, "WLF constant C2, > 0; default 51.6", Positive, normal, "mobility", mobility("wlf")},
-	{"eta_g", []units.Kind{units.Viscosity}, "viscosity at Tg for WLF, > 0; default 1e12", Positive, logNormal, "mobility", mobility("wlf")},
-	{"jump", []units.Kind{units.Length}, "jump distance λ, > 0; default v^(1/3)", Positive, normal, "material", Choice{}},
+	{"te", []units.Kind{units.Temperature}, "equilibrium temperature (melting point, liquidus or solvus)", positive, normal, "material", Choice{}},
+	{"dh", []units.Kind{units.MolarEnergy, units.EnergyDensity}, "enthalpy of transformation, positive (per mole of the new phase, or per volume)", positive, normal, "material", Choice{}},
+	{"dcp", []units.Kind{units.MolarHeatCapacity}, "heat-capacity difference between parent and new phase (driving cp)", anyFinite, normal, "material", Choice{"driving", "cp"}},
+	{"vm", []units.Kind{units.MolarVolume}, "molar volume of the new phase", positive, normal, "material", Choice{}},
+	{"gamma", []units.Kind{units.InterfacialEnergy}, "interfacial energy between nucleus and parent", positive, normal, "material", Choice{}},
+	{"theta", []units.Kind{units.Angle}, "contact angle on the substrate, 0 < θ ≤ 180 degrees (180 = homogeneous)", angle, normal, "material", Choice{}},
+	{"sites", []units.Kind{units.NumberDensity}, "nucleation sites per volume, > 0; default 1/v, every molecule", positive, logNormal, "material", Choice{}},
+	{"j0", []units.Kind{units.RateDensity}, "rate prefactor for prefactor fixed", positive, logNormal, "prefactor", Choice{"prefactor", "fixed"}},
+	{"d0", []units.Kind{units.Diffusivity}, "Arrhenius pre-exponential diffusivity", positive, logNormal, "mobility", mobility("arrhenius")},
+	{"q", []units.Kind{units.MolarEnergy}, "Arrhenius activation energy", nonNegative, normal, "mobility", mobility("arrhenius")},
+	{"vft_a", []units.Kind{units.Dimensionless}, "VFT constant A, log10 of Pa s", anyFinite, normal, "mobility", mobility("vft")},
+	{"vft_b", []units.Kind{units.TemperatureDifference}, "VFT constant B", positive, normal, "mobility", mobility("vft")},
+	{"vft_t0", []units.Kind{units.Temperature}, "VFT temperature T0, where the viscosity diverges", positive, normal, "mobility", mobility("vft")},
+	{"tg", []units.Kind{units.Temperature}, "glass transition temperature", positive, normal, "material", Choice{}},
+	{"wlf_c1", []units.Kind{units.Dimensionless}, "WLF constant C1, > 0; default 17.44", positive, normal, "mobility", mobility("wlf")},
+	{"wlf_c2", []units.Kind{units.TemperatureDifference}, "WLF constant C2, > 0; default 51.6", positive, normal, "mobility", mobility("wlf")},
+	{"eta_g", []units.Kind{units.Viscosity}, "viscosity at Tg for WLF, > 0; default 1e12", positive, logNormal, "mobility", mobility("wlf")},
+	{"jump", []units.Kind{units.Length}, "jump distance λ, > 0; default v^(1/3)", positive, normal, "material", Choice{}},
 	// Crystallization from solution (driving solution).
-	{"supersaturation", []units.Kind{units.Dimensionless}, "fixed supersaturation ratio S = c/c_sat, > 0 (S <= 1: no driving force)", Positive, normal, "solution", solution},
-	{"sat_temp", []units.Kind{units.Temperature}, "saturation temperature of the solution, where S = 1", Positive, normal, "solution", solution},
-	{"dh_sol", []units.Kind{units.MolarEnergy}, "enthalpy of dissolution, positive, for the ideal (van 't Hoff) solubility law", Positive, normal, "solution", solution},
-	{"conc", SolutionConcKinds, "solute concentration, in the units of the solubility table (mol/l, g/l, g/kg or a mole fraction)", Positive, normal, "solution", solution},
-	{"molar_mass", []units.Kind{units.MolarMass}, "molar mass of the solute, for vm = molar_mass/density", Positive, normal, "solution", Choice{}},
-	{"density", []units.Kind{units.Density}, "density of the crystal, for vm = molar_mass/density", Positive, normal, "solution", Choice{}},
-	{"solvent_viscosity", []units.Kind{units.Viscosity}, "solvent viscosity, for the Stokes-Einstein diffusivity of the solute (mobility stokes-einstein)", Positive, logNormal, "solution", mobility("stokes-einstein")},
-	{"solute_diffusivity", []units.Kind{units.Diffusivity}, "diffusivity of the solute in the solvent (mobility diffusivity)", Positive, logNormal, "solution", mobility("diffusivity")},
-	{"number_conc", []units.Kind{units.NumberDensity}, "solute molecules per volume, for prefactor diffusion (default from conc)", Positive, logNormal, "solution", Choice{"prefactor", "diffusion"}},
-	{"growth_rate", []units.Kind{units.Velocity}, "measured crystal growth rate in the solution, for the polynuclear induction time", Positive, logNormal, "solution", Choice{}},
+	{"supersaturation", []units.Kind{units.Dimensionless}, "fixed supersaturation ratio S = c/c_sat, > 0 (S <= 1: no driving force)", positive, normal, "solution", solution},
+	{"sat_temp", []units.Kind{units.Temperature}, "saturation temperature of the solution, where S = 1", positive, normal, "solution", solution},
+	{"dh_sol", []units.Kind{units.MolarEnergy}, "enthalpy of dissolution, positive, for the ideal (van 't Hoff) solubility law", positive, normal, "solution", solution},
+	{"conc", concKinds, "solute concentration, in the units of the solubility table (mol/l, g/l, g/kg or a mole fraction)", positive, normal, "solution", solution},
+	{"molar_mass", []units.Kind{units.MolarMass}, "molar mass of the solute, for vm = molar_mass/density", positive, normal, "solution", Choice{}},
+	{"density", []units.Kind{units.Density}, "density of the crystal, for vm = molar_mass/density", positive, normal, "solution", Choice{}},
+	{"solvent_viscosity", []units.Kind{units.Viscosity}, "solvent viscosity, for the Stokes-Einstein diffusivity of the solute (mobility stokes-einstein)", positive, logNormal, "solution", mobility("stokes-einstein")},
+	{"solute_diffusivity", []units.Kind{units.Diffusivity}, "diffusivity of the solute in the solvent (mobility diffusivity)", positive, logNormal, "solution", mobility("diffusivity")},
+	{"number_conc", []units.Kind{units.NumberDensity}, "solute molecules per volume, for prefactor diffusion (default from conc)", positive, logNormal, "solution", Choice{"prefactor", "diffusion"}},
+	{"growth_rate", []units.Kind{units.Velocity}, "measured crystal growth rate in the solution, for the polynuclear induction time", positive, logNormal, "solution", Choice{}},
 }
 
-// SolutionConcKinds are the families a concentration or a solubility may be
+// concKinds are the families a concentration or a solubility may be
 // given in; a concentration and its solubility table must share one.
-var SolutionConcKinds = []units.Kind{units.AmountConcentration, units.MassConcentration, units.MassRatio, units.Dimensionless}
+var concKinds = []units.Kind{units.AmountConcentration, units.MassConcentration, units.MassRatio, units.Dimensionless}
 
 // ParamByKey returns the parameter with a card key, and whether it exists.
 func ParamByKey(key string) (Param, bool) {
@@ -143,8 +143,8 @@ func ParamByKey(key string) (Param, bool) {
 	return Param{}, false
 }
 
-// ParamKeys are the keys of Params, in order.
-func ParamKeys() []string {
+// paramKeys are the keys of Params, in order.
+func paramKeys() []string {
 	out := make([]string, len(Params))
 	for i, p := range Params {
 		out[i] = p.Key

@@ -20,8 +20,8 @@ import (
 // T_sat takes the place of the equilibrium temperature: S = 1 there, and a
 // cooling path starts there.
 
-// SolubilityColumns are the columns of a solubility table, one set per
-// family of concentration units (SolutionConcKinds); a file uses one.
+// solubilityColumns are the columns of a solubility table, one set per
+// family of concentration units (concKinds); a file uses one.
 func solubilityColumns(k units.Kind) []Column {
 	return []Column{
 		{Quantity: "temperature", Kind: units.Temperature, Required: true},
@@ -29,15 +29,15 @@ func solubilityColumns(k units.Kind) []Column {
 	}
 }
 
-// Solubility is a solubility table read from a file.
-type Solubility struct {
+// solubilityData is a solubility table read from a file.
+type solubilityData struct {
 	File  string
 	T, C  []float64  // K; solubility in the SI unit of Kind
 	Kind  units.Kind // the family of its concentration unit
 	Lines []int      // file line of every row
 }
 
-// ReadSolubility reads a CSV of temperature and solubility, such as
+// readSolubility reads a CSV of temperature and solubility, such as
 //
 //	temperature_c,solubility_g_per_kg
 //	10,9.8
@@ -46,12 +46,12 @@ type Solubility struct {
 // a mass concentration (solubility_g_per_l), a mass ratio
 // (solubility_g_per_kg, solubility_g_per_100g) or a plain mole fraction
 // (solubility). Errors name the file and line.
-func ReadSolubility(path string) (*Solubility, error) {
+func readSolubility(path string) (*solubilityData, error) {
 	var first error
-	for _, k := range SolutionConcKinds {
+	for _, k := range concKinds {
 		d, err := ReadDataFile(path, nil, solubilityColumns(k))
 		if err == nil {
-			return &Solubility{File: path, T: d.Columns["temperature"], C: d.Columns["solubility"], Kind: k, Lines: d.Lines}, nil
+			return &solubilityData{File: path, T: d.Columns["temperature"], C: d.Columns["solubility"], Kind: k, Lines: d.Lines}, nil
 		}
 		msg := err.Error()
 		headerProblem := strings.Contains(msg, `column "solubility`) && (strings.Contains(msg, "is not a unit of") || strings.Contains(msg, "needs a unit"))
@@ -87,7 +87,7 @@ func (c *Card) massVolume() (float64, bool) {
 func (b *builder) solution() (cnt.DrivingForce, error) {
 	c := b.c
 	var tab *cnt.SolubilityTable
-	var sol *Solubility
+	var sol *solubilityData
 	if c.SolubilityFile != "" {
 		var err error
 		if tab, sol, err = b.solubilityTable(); err != nil {
@@ -128,7 +128,7 @@ func (b *builder) solution() (cnt.DrivingForce, error) {
 }
 
 // solubility is the card's solubility table as read, read on first use.
-func (c *Card) solubility() (*Solubility, error) {
+func (c *Card) solubility() (*solubilityData, error) {
 	if c.SolubilityFile == "-" {
 		return nil, fmt.Errorf("%s: the solubility table must be a file, not stdin", c.File)
 	}
@@ -139,7 +139,7 @@ func (c *Card) solubility() (*Solubility, error) {
 	if t.sol != nil && t.solFile == c.SolubilityFile {
 		return t.sol, nil
 	}
-	sol, err := ReadSolubility(c.SolubilityFile)
+	sol, err := readSolubility(c.SolubilityFile)
 	if err != nil {
 		return nil, err
 	}
@@ -150,7 +150,7 @@ func (c *Card) solubility() (*Solubility, error) {
 // solubilityTable reads the card's solubility table and pairs it with the
 // concentration: conc (same family of units) or, without it, the solubility
 // at sat_temp.
-func (b *builder) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
+func (b *builder) solubilityTable() (*cnt.SolubilityTable, *solubilityData, error) {
 	c := b.c
 	sol, err := c.solubility()
 	if err != nil {
@@ -231,7 +231,7 @@ func (c *Card) tableBasis() string {
 
 // saturation is the saturation temperature of a table's concentration; a
 // solubility that does not rise with temperature is named by its file line.
-func saturation(tab *cnt.SolubilityTable, sol *Solubility) (float64, error) {
+func saturation(tab *cnt.SolubilityTable, sol *solubilityData) (float64, error) {
 	if ok, r := tab.Increasing(); !ok {
 		n := len(sol.Lines)
 		i := r - 1 // index in ascending temperature

@@ -272,7 +272,7 @@ func TestReadSolubilityFamilies(t *testing.T) {
 		{"solubility", 2, "number"},
 	} {
 		p := writeTemp(t, "s.csv", "temperature_k,"+c.header+"\n300,1\n310,2\n")
-		sol, err := ReadSolubility(p)
+		sol, err := readSolubility(p)
 		if err != nil {
 			t.Errorf("%s: %v", c.header, err)
 			continue

@@ -40,7 +40,7 @@ type SpreadSpec struct {
 func ParseSpread(key, text string) (SpreadSpec, error) {
 	p, ok := ParamByKey(key)
 	if !ok {
-		return SpreadSpec{}, fmt.Errorf("unknown parameter %q (known: %s)", key, strings.Join(ParamKeys(), ", "))
+		return SpreadSpec{}, fmt.Errorf("unknown parameter %q (known: %s)", key, strings.Join(paramKeys(), ", "))
 	}
 	t := strings.TrimSpace(text)
 	s := SpreadSpec{Key: key, Text: t}
@@ -251,7 +251,7 @@ func parseSpreads(data []byte, file string, raw map[string]rawValue) (map[string
 		line := spreadLine(data, key)
 		where := fmt.Sprintf("%s:%d: [spread] key %q", file, line, key)
 		if _, ok := ParamByKey(key); !ok {
-			return nil, fmt.Errorf("%s: unknown parameter (allowed: %s)", where, strings.Join(ParamKeys(), ", "))
+			return nil, fmt.Errorf("%s: unknown parameter (allowed: %s)", where, strings.Join(paramKeys(), ", "))
 		}
 		text, err := sourcedText(rv, where)
 		if err != nil {

@@ -49,11 +49,11 @@ type MonteCarlo struct {
 	Progress func(done, total int)
 }
 
-// BlockSize is the number of samples drawn from one random stream. Block b
-// of a run with seed S holds samples b·BlockSize to (b+1)·BlockSize − 1 and
+// blockSize is the number of samples drawn from one random stream. Block b
+// of a run with seed S holds samples b·blockSize to (b+1)·blockSize − 1 and
 // draws them from a ChaCha8 stream keyed by (S, b), so the goroutine that
 // runs a block does not change a bit of the results.
-const BlockSize = 64
+const blockSize = 64
 
 // maxRedraws bounds the draws in a row of one parameter of one sample
 // that may fall outside its range before the spread is declared too wide.
@@ -179,7 +179,7 @@ func blockStream(seed uint64, b int) *rand.Rand {
 // sample fills u.Values and the redraw counts.
 func (mc *MonteCarlo) sample(u *Uncertainty) error {
 	n, nOut := mc.Samples, len(mc.Outputs)
-	nb := (n + BlockSize - 1) / BlockSize
+	nb := (n + blockSize - 1) / blockSize
 	workers := mc.Workers
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
@@ -214,7 +214,7 @@ func (mc *MonteCarlo) sample(u *Uncertainty) error {
 					for cur := firstBad.Load(); int64(b) < cur && !firstBad.CompareAndSwap(cur, int64(b)); cur = firstBad.Load() {
 					}
 				}
-				d := done.Add(int64(min(BlockSize, n-b*BlockSize)))
+				d := done.Add(int64(min(blockSize, n-b*blockSize)))
 				if mc.Progress != nil {
 					mc.Progress(int(d), n)
 				}
@@ -240,7 +240,7 @@ func (mc *MonteCarlo) sample(u *Uncertainty) error {
 // one more for each draw that fell outside the input's range.
 func (mc *MonteCarlo) block(u *Uncertainty, b int, redrawn []int) error {
 	rng := blockStream(mc.Seed, b)
-	lo, hi := b*BlockSize, min((b+1)*BlockSize, mc.Samples)
+	lo, hi := b*blockSize, min((b+1)*blockSize, mc.Samples)
 	x := make([]float64, len(u.Spreads))
 	for i := lo; i < hi; i++ {
 		for k, s := range u.Spreads {
