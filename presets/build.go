@@ -123,7 +123,9 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 	}
 	switch m.Prefactor {
 	case kinetics.PrefactorFixed:
-		m.J0 = b.given("j0")
+		if m.J0 = b.need("j0", "the rate prefactor, for prefactor fixed"); b.err != nil {
+			return nil, nil, b.err
+		}
 	case kinetics.PrefactorDiffusion:
 		if m.Conc, err = b.numberConc(); err != nil {
 			return nil, nil, err
