@@ -164,10 +164,10 @@ func celsiusWarnings(T []float64, f *fit.ArrheniusFit) []Warning {
 			"every temperature is below %g K; if they are degrees Celsius, name the column temperature_c", coldLimit)})
 	}
 	if f.Straighter(units.CelsiusOffset) {
-		out = append(out, Warning{"straighter_if_celsius", "the temperatures look like degrees Celsius read as kelvin: the points lie on a much straighter line 273.15 K higher; name the column temperature_c if so"})
+		out = append(out, Warning{"straighter_if_celsius", fmt.Sprintf("the temperatures look like degrees Celsius read as kelvin: the points lie on a much straighter line %g K higher; name the column temperature_c if so", units.CelsiusOffset)})
 	}
 	if f.Straighter(-units.CelsiusOffset) {
-		out = append(out, Warning{"straighter_if_kelvin", "the temperatures look like kelvin read as degrees Celsius: the points lie on a much straighter line 273.15 K lower; name the column temperature_k if so"})
+		out = append(out, Warning{"straighter_if_kelvin", fmt.Sprintf("the temperatures look like kelvin read as degrees Celsius: the points lie on a much straighter line %g K lower; name the column temperature_k if so", units.CelsiusOffset)})
 	}
 	return out
 }
