@@ -353,10 +353,43 @@ type spreadFlags struct {
 	given
 	specs   map[string]presets.SpreadSpec
 	raw     []string // as given, for the command that makes a memo again
-	samples int
-	seed    uint64
+	samples *uintFlag
+	seed    *uintFlag
 	none    bool
-	fs      *pflag.FlagSet // for --samples and --seed, which pflag parses
+}
+
+// uintFlag is a whole number, parsed as pflag parses its own (so a bad
+// one reads as pflag says it).
+type uintFlag struct {
+	given
+	bits int // 64 for a seed; 0 for a count (an int)
+	n    uint64
+	i    int
+}
+
+func (f *uintFlag) Set(s string) error {
+	if f.bits == 0 {
+		i, err := strconv.ParseInt(s, 0, 64)
+		if err != nil {
+			return err
+		}
+		f.i = int(i)
+	} else {
+		n, err := strconv.ParseUint(s, 0, f.bits)
+		if err != nil {
+			return err
+		}
+		f.n = n
+	}
+	f.given = given{true, s}
+	return nil
+}
+
+func (f *uintFlag) Type() string {
+	if f.bits == 0 {
+		return "int"
+	}
+	return "uint64"
 }
 
 // Limits of --samples.
@@ -392,21 +425,23 @@ func (sf *spreadFlags) Type() string { return "stringArray" }
 
 // addSpreadFlags declares the uncertainty flags of a command.
 func addSpreadFlags(fs *pflag.FlagSet) *spreadFlags {
-	sf := &spreadFlags{specs: map[string]presets.SpreadSpec{}, fs: fs}
+	sf := &spreadFlags{specs: map[string]presets.SpreadSpec{},
+		samples: &uintFlag{given: given{text: strconv.Itoa(defaultSamples)}, i: defaultSamples},
+		seed:    &uintFlag{given: given{text: "1"}, bits: 64, n: 1}}
 	fs.Var(sf, "spread", "standard deviation of an input, NAME=VALUE, repeatable: relative (gamma=2%), absolute with its unit (q=3kJ/mol, te=5K) or a factor (d0=x3); normal, log-normal for "+strings.Join(presets.LogNormalKeys(), ", "))
-	fs.IntVar(&sf.samples, "samples", defaultSamples, fmt.Sprintf("Monte Carlo samples for the uncertainty bands, 1 to %d", maxSamples))
-	fs.Uint64Var(&sf.seed, "seed", 1, "seed of the random draws, 0 to 2^64-1; the same seed gives the same bands on any number of cores")
+	fs.Var(sf.samples, "samples", fmt.Sprintf("Monte Carlo samples for the uncertainty bands, 1 to %d", maxSamples))
+	fs.Var(sf.seed, "seed", "seed of the random draws, 0 to 2^64-1; the same seed gives the same bands on any number of cores")
 	fs.BoolVar(&sf.none, "no-spread", false, "ignore the [spread] table of the material card")
 	return sf
 }
 
-// check validates --samples, which pflag parses as an integer.
+// check validates --samples.
 func (sf *spreadFlags) check() error {
-	if !(sf.samples >= 1 && sf.samples <= maxSamples) {
-		if sf.samples > maxSamples {
-			return usagef("--samples: %d is more than the %d allowed (2000 is usually enough; P5 and P95 settle to about 1 %% of their spread by 20000)", sf.samples, maxSamples)
+	if n := sf.samples.i; !(n >= 1 && n <= maxSamples) {
+		if n > maxSamples {
+			return usagef("--samples: %d is more than the %d allowed (2000 is usually enough; P5 and P95 settle to about 1 %% of their spread by 20000)", n, maxSamples)
 		}
-		return usagef("--samples: %d: give at least 1 sample (default %d)", sf.samples, defaultSamples)
+		return usagef("--samples: %d: give at least 1 sample (default %d)", n, defaultSamples)
 	}
 	return nil
 }
@@ -424,10 +459,10 @@ func (sf *spreadFlags) sampling(e *env, c *presets.Card) (*answer.Sampling, erro
 	for k, s := range sf.specs {
 		all[k] = s
 	}
-	if len(all) == 0 && (sf.fs.Changed("samples") || sf.fs.Changed("seed")) {
+	if len(all) == 0 && (sf.samples.set || sf.seed.set) {
 		return nil, usagef("--samples and --seed need a spread: give --spread NAME=VALUE (e.g. gamma=2%%) or a card with a [spread] table")
 	}
-	s, err := answer.NewSampling(c, all, sf.samples, sf.seed)
+	s, err := answer.NewSampling(c, all, sf.samples.i, sf.seed.n)
 	if err != nil {
 		where := "--spread"
 		var se *presets.SpreadError
