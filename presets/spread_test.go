@@ -180,3 +180,20 @@ func TestVary(t *testing.T) {
 		t.Error("Vary changed the card")
 	}
 }
+
+// BenchmarkVary is the build of one Monte Carlo sample from a card: a copy
+// of its values with two set, and the model built from them.
+func BenchmarkVary(b *testing.B) {
+	c := mustParse(b, goodCard, "g.toml")
+	spreads, err := c.Resolve(map[string]SpreadSpec{"gamma": {Key: "gamma", Form: sample.Relative, X: 0.02}, "d0": {Key: "d0", Form: sample.Factor, X: 2}})
+	if err != nil {
+		b.Fatal(err)
+	}
+	build := c.Vary(spreads)
+	x := []float64{0.12, 3e-7}
+	for b.Loop() {
+		if _, err := build(x); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
