@@ -21,7 +21,7 @@ func setupMaterials(fs *pflag.FlagSet, e *env) func([]string) error {
 	return func(args []string) error {
 		switch len(args) {
 		case 0:
-			a, err := answer.ListShipped()
+			a, err := answer.ListShipped(flagNames)
 			if err != nil {
 				return err
 			}

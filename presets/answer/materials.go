@@ -10,6 +10,8 @@ import (
 type Shipped struct {
 	Inputs struct{}      `json:"inputs"`
 	Rows   []ShippedCard `json:"rows"`
+
+	names Names
 }
 
 // ShippedCard is one shipped card.
@@ -23,8 +25,8 @@ type ShippedCard struct {
 // ListShipped lists the shipped cards with their equilibrium (or saturation)
 // temperatures. A shipped card that does not load is an error (a bug the
 // tests catch).
-func ListShipped() (*Shipped, error) {
-	a := &Shipped{}
+func ListShipped(names Names) (*Shipped, error) {
+	a := &Shipped{names: names}
 	for _, n := range presets.Names() {
 		c, err := presets.Preset(n)
 		if err != nil {
@@ -45,7 +47,7 @@ func ListShipped() (*Shipped, error) {
 func (a *Shipped) Doc() Doc {
 	return Doc{
 		Title: "undercool materials: shipped material cards",
-		About: []string{"show one with: undercool materials NAME; use one with: --material NAME"},
+		About: []string{"show one with: undercool materials NAME; use one with: " + a.names.of("material") + " NAME"},
 		Table: tableOf(a.Rows),
 	}
 }

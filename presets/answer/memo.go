@@ -359,7 +359,8 @@ func (m *Memo) uncertaintyBlocks() []Block {
 		if d, ok := m.gammaGuide(m.in.Model.Material().Gamma); ok {
 			s += fmt.Sprintf("As a guide, ±2 %% in the interfacial energy alone moves the nose time by %s decades. ", d)
 		}
-		return []Block{Para(s + "Give the standard deviations of the inputs (for example `--spread gamma=2% --spread d0=x2`, or a `[spread]` table on the card) to get P5, P50 and P95 and the ranking of what to measure next.")}
+		spread := m.in.Names.of("spread")
+		return []Block{Para(s + fmt.Sprintf("Give the standard deviations of the inputs (for example `%s gamma=2%% %s d0=x2`, or a `[spread]` table on the card) to get P5, P50 and P95 and the ranking of what to measure next.", spread, spread))}
 	}
 	st := Table{Cols: []Col{text("input"), text("as given"), text("distribution"), text("standard deviation"), text("redrawn"), text("source")}}
 	for i, s := range u.specs {
