@@ -16,7 +16,7 @@ import (
 // status (2 for bad usage or input, 1 for a failed computation), print one
 // line on stderr that matches want and nothing on stdout, and leave no
 // file behind. A case runs in the folder of its group in
-// testdata/errors/files.txtar, which holds the files the cases read;
+// testdata/cases/files.txtar, which holds the files the cases read;
 // $WORK is that folder.
 var errorCases = []struct {
 	dir  string
@@ -226,9 +226,12 @@ var errorCases = []struct {
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--temps", "900", "--plot", "one.svg"}, `^undercool: --plot: a rate plot needs more than one temperature`, 2},
 }
 
-func TestErrors(t *testing.T) {
-	root := t.TempDir()
-	a, err := txtar.ParseFile("../../testdata/errors/files.txtar")
+// caseFiles writes the files of the in-process cases (testdata/cases) to
+// a temporary folder and returns it with the repository's root.
+func caseFiles(t *testing.T) (root, repo string) {
+	t.Helper()
+	root = t.TempDir()
+	a, err := txtar.ParseFile("../../testdata/cases/files.txtar")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -241,35 +244,52 @@ func TestErrors(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	repo, err := filepath.Abs(repoRoot())
-	if err != nil {
+	if repo, err = filepath.Abs(repoRoot()); err != nil {
 		t.Fatal(err)
 	}
+	return root, repo
+}
+
+// runCase runs a case in-process in the folder dir of root, with $WORK
+// (that folder) and $REPO in its arguments.
+func runCase(t *testing.T, root, repo, dir string, args []string) (code int, stdout, stderr string) {
+	t.Helper()
+	d := filepath.Join(root, dir)
+	if err := os.MkdirAll(d, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	t.Chdir(d)
+	r := strings.NewReplacer("$WORK", d, "$REPO", repo)
+	full := make([]string, len(args))
+	for i, a := range args {
+		full[i] = r.Replace(a)
+	}
+	var out, errOut bytes.Buffer
+	code = run(full, strings.NewReader(""), &out, &errOut)
+	return code, out.String(), errOut.String()
+}
+
+func TestErrors(t *testing.T) {
+	root, repo := caseFiles(t)
 	for _, c := range errorCases {
 		dir := filepath.Join(root, c.dir)
 		if err := os.MkdirAll(dir, 0o755); err != nil {
 			t.Fatal(err)
 		}
-		t.Chdir(dir)
-		args := make([]string, len(c.args))
-		for i, a := range c.args {
-			args[i] = strings.NewReplacer("$WORK", dir, "$REPO", repo).Replace(a)
-		}
 		before := listDir(t, dir)
-		var stdout, stderr bytes.Buffer
-		code := run(args, strings.NewReader(""), &stdout, &stderr)
+		code, stdout, stderr := runCase(t, root, repo, c.dir, c.args)
 		name := strings.Join(c.args, " ")
 		if code != c.code {
-			t.Errorf("%s: exit %d, want %d (stderr %q)", name, code, c.code, stderr.String())
+			t.Errorf("%s: exit %d, want %d (stderr %q)", name, code, c.code, stderr)
 		}
-		if !regexp.MustCompile("(?m)" + c.want).MatchString(stderr.String()) {
-			t.Errorf("%s: stderr %q does not match %q", name, stderr.String(), c.want)
+		if !regexp.MustCompile("(?m)" + c.want).MatchString(stderr) {
+			t.Errorf("%s: stderr %q does not match %q", name, stderr, c.want)
 		}
 		if c.code == 0 {
 			continue
 		}
-		if strings.Count(stderr.String(), "\n") != 1 || stdout.Len() != 0 {
-			t.Errorf("%s: not one line on stderr and nothing on stdout: stderr %q, stdout %q", name, stderr.String(), stdout.String())
+		if strings.Count(stderr, "\n") != 1 || stdout != "" {
+			t.Errorf("%s: not one line on stderr and nothing on stdout: stderr %q, stdout %q", name, stderr, stdout)
 		}
 		if after := listDir(t, dir); !slices.Equal(before, after) {
 			t.Errorf("%s: files left behind: %v, before %v", name, after, before)
