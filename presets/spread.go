@@ -198,11 +198,7 @@ func (c *Card) convert(p Param, s SpreadSpec, md *kinetics.Model) (float64, erro
 // once, by Resolve; the function is safe for concurrent use.
 func (c *Card) Vary(spreads []sample.Spread) func(x []float64) (*kinetics.Model, error) {
 	return func(x []float64) (*kinetics.Model, error) {
-		v := *c
-		v.Values = make(map[string]Value, len(c.Values)+len(spreads))
-		for k, val := range c.Values {
-			v.Values[k] = val
-		}
+		v := c.Clone()
 		for k, s := range spreads {
 			if x[k] == s.Base {
 				continue
