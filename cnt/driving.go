@@ -13,6 +13,10 @@ type DrivingForce interface {
 	PerMole(T float64) float64
 	// Name is the model's short name as used on the command line.
 	Name() string
+	// Equilibrium is the equilibrium temperature T_e (K) of the model,
+	// where the driving force vanishes (a saturation temperature for a
+	// solution), and false when the model has none.
+	Equilibrium() (float64, bool)
 }
 
 // Linear is Turnbull's approximation, exact to first order in ΔT:
@@ -28,6 +32,9 @@ type Linear struct {
 func (m Linear) PerMole(T float64) float64 { return m.DH * (m.Te - T) / m.Te }
 func (Linear) Name() string                { return "linear" }
 
+// Equilibrium is T_e.
+func (m Linear) Equilibrium() (float64, bool) { return m.Te, true }
+
 // Hoffman is the approximation for polymers and molecular liquids,
 //
 //	Δg = ΔH·ΔT·T/T_e²
@@ -39,6 +46,9 @@ type Hoffman struct {
 
 func (m Hoffman) PerMole(T float64) float64 { return m.DH * (m.Te - T) * T / (m.Te * m.Te) }
 func (Hoffman) Name() string                { return "hoffman" }
+
+// Equilibrium is T_e.
+func (m Hoffman) Equilibrium() (float64, bool) { return m.Te, true }
 
 // ThompsonSpaepen is the approximation for metallic melts,
 //
@@ -53,6 +63,9 @@ func (m ThompsonSpaepen) PerMole(T float64) float64 {
 	return m.DH * (m.Te - T) / m.Te * 2 * T / (m.Te + T)
 }
 func (ThompsonSpaepen) Name() string { return "thompson-spaepen" }
+
+// Equilibrium is T_e.
+func (m ThompsonSpaepen) Equilibrium() (float64, bool) { return m.Te, true }
 
 // ConstantCp is exact for a constant heat-capacity difference ΔCp = Cp,liquid − Cp,crystal:
 //
@@ -75,12 +88,18 @@ func (m ConstantCp) PerMole(T float64) float64 {
 }
 func (ConstantCp) Name() string { return "cp" }
 
+// Equilibrium is T_e.
+func (m ConstantCp) Equilibrium() (float64, bool) { return m.Te, true }
+
 // Table is a tabulated Δg(T), linear between points, the bridge to a
 // thermodynamic calculation made elsewhere. Outside the tabulated range it
 // returns NaN: no extrapolation.
 type Table struct {
 	T, G  []float64 // ascending temperatures, K; Δg, J/mol
 	Label string    // where the table came from, for output
+	// Te is an equilibrium temperature given with the table, K; 0: where
+	// the tabulated Δg changes sign.
+	Te float64
 }
 
 // NewTable checks and keeps a tabulated driving force. Temperatures must be
@@ -152,10 +171,14 @@ func (t *Table) PerMole(T float64) float64 {
 
 func (t *Table) Name() string { return "table" }
 
-// Equilibrium returns the highest temperature where the tabulated Δg
-// changes sign from positive (below) to non-positive (above), by linear
-// interpolation, and false if the table has no such crossing.
+// Equilibrium returns Te when the table was given one, else the highest
+// temperature where the tabulated Δg changes sign from positive (below) to
+// non-positive (above), by linear interpolation, and false if the table
+// has no such crossing.
 func (t *Table) Equilibrium() (float64, bool) {
+	if t.Te != 0 {
+		return t.Te, true
+	}
 	for i := len(t.T) - 1; i > 0; i-- {
 		if t.G[i-1] > 0 && t.G[i] <= 0 {
 			return t.T[i-1] + (t.T[i]-t.T[i-1])*t.G[i-1]/(t.G[i-1]-t.G[i]), true

@@ -261,3 +261,43 @@ func TestNewTableErrorRowDescending(t *testing.T) {
 		t.Errorf("bug: cnt/driving.go NewTable reports rows of the reversed table for descending input: got %q, the bad row is row 1", err)
 	}
 }
+
+// Every driving force answers for its own equilibrium temperature: the
+// laws written with T_e, a table (given T_e or its sign change), a fixed
+// supersaturation (its reference T_sat, or none) and the solubility laws.
+func TestEquilibrium(t *testing.T) {
+	tab, err := cnt.NewTable([]float64{300, 400, 500}, []float64{2000, 1000, -500}, "hand")
+	if err != nil {
+		t.Fatal(err)
+	}
+	given := *tab
+	given.Te = 450
+	sol, err := cnt.NewSolubilityTable([]float64{280, 300, 320}, []float64{1, 2, 4}, 2, "hand")
+	if err != nil {
+		t.Fatal(err)
+	}
+	read := *sol
+	read.Tsat = 301
+	for _, c := range []struct {
+		d    cnt.DrivingForce
+		want float64
+		ok   bool
+	}{
+		{cnt.Linear{Te: 1000, DH: 1}, 1000, true},
+		{cnt.Hoffman{Te: 900, DH: 1}, 900, true},
+		{cnt.ThompsonSpaepen{Te: 800, DH: 1}, 800, true},
+		{cnt.ConstantCp{Te: 700, DH: 1, DCp: 2}, 700, true},
+		{tab, 400 + 100*1000.0/1500, true}, // where Δg = 0 between 400 and 500 K, by hand
+		{&given, 450, true},
+		{cnt.Supersaturation{S: 2, Tsat: 310}, 310, true},
+		{cnt.Supersaturation{S: 2}, 0, false},
+		{cnt.VantHoff{Tsat: 313.15, DHsol: 2e4}, 313.15, true},
+		{sol, 300, true}, // c_sat = 2 at the 300 K row
+		{&read, 301, true},
+	} {
+		got, ok := c.d.Equilibrium()
+		if ok != c.ok || math.Abs(got-c.want) > 1e-12*c.want {
+			t.Errorf("%s: Equilibrium() = %g, %v; want %g, %v", c.d.Name(), got, ok, c.want, c.ok)
+		}
+	}
+}

@@ -39,7 +39,8 @@ func solutionPerMole(T, lnS float64) float64 {
 //
 // Special cases: S ≤ 1 gives Δg ≤ 0 (no driving force); T ≤ 0 or NaN gives NaN.
 type Supersaturation struct {
-	S float64 // supersaturation ratio, > 0
+	S    float64 // supersaturation ratio, > 0
+	Tsat float64 // reference saturation temperature, K, for ranges and undercoolings (0: none)
 }
 
 func (m Supersaturation) LnS(T float64) float64 {
@@ -50,6 +51,9 @@ func (m Supersaturation) LnS(T float64) float64 {
 }
 func (m Supersaturation) PerMole(T float64) float64 { return solutionPerMole(T, m.LnS(T)) }
 func (Supersaturation) Name() string                { return "supersaturation" }
+
+// Equilibrium is the reference saturation temperature, false without one.
+func (m Supersaturation) Equilibrium() (float64, bool) { return m.Tsat, m.Tsat != 0 }
 
 // VantHoff is a solution saturated at T_sat and cooled at constant
 // concentration, with the ideal (van 't Hoff) solubility law
@@ -109,6 +113,9 @@ type SolubilityTable struct {
 	T, C  []float64 // ascending temperatures, K; solubilities, > 0
 	Conc  float64   // concentration of the solution, same units as C, > 0
 	Label string    // where the table came from, for output
+	// Tsat is the saturation temperature the concentration was read at, K
+	// (Conc = c_sat(Tsat)); 0: where c_sat = Conc, by SaturationTemperature.
+	Tsat float64
 
 	lnC []float64
 }
@@ -213,8 +220,12 @@ func (t *SolubilityTable) SaturationTemperature() (float64, error) {
 	return t.T[n-1], nil
 }
 
-// Equilibrium is SaturationTemperature without the reason.
+// Equilibrium is Tsat when the table was given one, else
+// SaturationTemperature without the reason.
 func (t *SolubilityTable) Equilibrium() (float64, bool) {
+	if t.Tsat != 0 {
+		return t.Tsat, true
+	}
 	ts, err := t.SaturationTemperature()
 	return ts, err == nil
 }

@@ -39,7 +39,7 @@ func BenchmarkLnJVFT(b *testing.B) {
 // Te with Model.At (target: < 1 ms per table).
 func BenchmarkRateTable1000(b *testing.B) {
 	md := mustModel(b, goldCallister())
-	te := md.Material().Te
+	te := md.Te()
 	b.ReportAllocs()
 	for b.Loop() {
 		for i := range 1000 {

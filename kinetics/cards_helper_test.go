@@ -14,7 +14,7 @@ func shippedModel(t testing.TB, name string) *kinetics.Model {
 	if err != nil {
 		t.Fatalf("card %s: %v", name, err)
 	}
-	md, err := c.Material()
+	md, err := c.Model()
 	if err != nil {
 		t.Fatalf("card %s: %v", name, err)
 	}

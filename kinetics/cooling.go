@@ -100,13 +100,13 @@ var ErrEndAboveTe = errors.New("the end temperature must be below the equilibriu
 // floor returns the coldest temperature worth computing: AutoFloor·T_e,
 // or just above where the mobility law diverges.
 func (md *Model) floor() float64 {
-	lo := AutoFloor * md.m.Te
+	lo := AutoFloor * md.te
 	switch m := md.m.Mobility.(type) {
 	case VFT:
-		lo = math.Max(lo, m.T0+1e-3*(md.m.Te-m.T0))
+		lo = math.Max(lo, m.T0+1e-3*(md.te-m.T0))
 	case WLF:
 		d := m.Tg - m.C2
-		lo = math.Max(lo, d+1e-3*(md.m.Te-d))
+		lo = math.Max(lo, d+1e-3*(md.te-d))
 	}
 	return lo
 }
@@ -122,7 +122,7 @@ func (md *Model) LinearCooling(end float64) (*Cooling, error) {
 	if !md.HasGrowth() {
 		return nil, ErrNoGrowth
 	}
-	te := md.m.Te
+	te := md.te
 	c := &Cooling{Te: te, md: md}
 	lo := end
 	switch {

@@ -12,7 +12,7 @@ import (
 // onset of nucleation in a 1 mm³ sample.
 func ExampleCooling() {
 	md, err := kinetics.NewModel(kinetics.Material{
-		Name: "example", Driving: cnt.Linear{Te: 1200, DH: 13000}, Te: 1200,
+		Name: "example", Driving: cnt.Linear{Te: 1200, DH: 13000},
 		Vm: 8e-6, Gamma: 0.12, Mobility: kinetics.Arrhenius{D0: 1e-5, Q: 200e3},
 	})
 	if err != nil {

@@ -193,7 +193,6 @@ func testAlloy(t testing.TB) *Model {
 	return mustModel(t, Material{
 		Name:     "test alloy (invented)",
 		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
-		Te:       1150,
 		Vm:       9.8e-6,
 		Gamma:    0.118,
 		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},
@@ -205,7 +204,6 @@ func testGlass(t testing.TB) *Model {
 	return mustModel(t, Material{
 		Name:     "test glass (invented)",
 		Driving:  cnt.Hoffman{Te: 1300, DH: 55e3},
-		Te:       1300,
 		Vm:       60e-6,
 		Gamma:    0.18,
 		Mobility: VFT{A: -3, B: 4500, T0: 500, Jump: math.Cbrt(60e-6 / cnt.Avogadro)},
@@ -258,7 +256,7 @@ func TestIsothermal(t *testing.T) {
 		t.Errorf("just above T0: ln t = %g, want finite", a.LnTime(0.5))
 	}
 	// No mobility law: the model cannot say (NaN), and CanTransform says why.
-	nm, err := NewModel(Material{Driving: cnt.Linear{Te: 1000, DH: 1e4}, Te: 1000, Vm: 1e-5, Gamma: 0.1})
+	nm, err := NewModel(Material{Driving: cnt.Linear{Te: 1000, DH: 1e4}, Vm: 1e-5, Gamma: 0.1})
 	if err != nil {
 		t.Fatal(err)
 	}

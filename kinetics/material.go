@@ -45,19 +45,18 @@ func PrefactorNames() []string { return prefactorNames[:] }
 // field says so. Build a Model from it to evaluate rates.
 type Material struct {
 	Name      string
-	Driving   cnt.DrivingForce
-	Te        float64   // equilibrium temperature, K (0: from a tabulated driving force)
-	Vm        float64   // molar volume of the new phase, m³/mol
-	Gamma     float64   // interfacial energy, J/m²
-	Theta     float64   // contact angle, degrees; 180 = homogeneous (0: homogeneous)
-	Sites     float64   // nucleation sites, m⁻³ (0: 1/v, every molecule)
-	Prefactor Prefactor // kinetic prefactor model
-	J0        float64   // prefactor for PrefactorFixed, m⁻³·s⁻¹
-	Mobility  Mobility  // nil: no mobility law (nucleus only, or fixed prefactor)
-	Jump      float64   // jump distance λ, m (0: v^(1/3))
-	Tg        float64   // glass transition, K (0: none), for ranges and flags
-	Conc      float64   // solute molecules per m³ in solution, for PrefactorDiffusion
-	Growth    float64   // measured growth rate u, m/s, in place of the mobility law's (0: from the mobility law)
+	Driving   cnt.DrivingForce // gives the equilibrium temperature T_e too
+	Vm        float64          // molar volume of the new phase, m³/mol
+	Gamma     float64          // interfacial energy, J/m²
+	Theta     float64          // contact angle, degrees; 180 = homogeneous (0: homogeneous)
+	Sites     float64          // nucleation sites, m⁻³ (0: 1/v, every molecule)
+	Prefactor Prefactor        // kinetic prefactor model
+	J0        float64          // prefactor for PrefactorFixed, m⁻³·s⁻¹
+	Mobility  Mobility         // nil: no mobility law (nucleus only, or fixed prefactor)
+	Jump      float64          // jump distance λ, m (0: v^(1/3))
+	Tg        float64          // glass transition, K (0: none), for ranges and flags
+	Conc      float64          // solute molecules per m³ in solution, for PrefactorDiffusion
+	Growth    float64          // measured growth rate u, m/s, in place of the mobility law's (0: from the mobility law)
 }
 
 // MolecularVolume is v = V_m/N_A, m³.
@@ -75,6 +74,7 @@ func (m *Material) JumpDistance() float64 {
 // It is immutable and safe for concurrent use.
 type Model struct {
 	m      Material
+	te     float64 // equilibrium temperature, K, from the driving force
 	v      float64 // molecular volume, m³
 	jump   float64 // λ, m
 	lnJump float64
@@ -87,9 +87,13 @@ type Model struct {
 // minMolecularVolume is the least volume per molecule accepted, m³.
 const minMolecularVolume = 1e-33
 
+// ErrNoEquilibrium is returned for a driving force without an equilibrium
+// temperature (a table whose Δg never changes sign).
+var ErrNoEquilibrium = errors.New("the driving force has no equilibrium temperature (its Δg never changes sign)")
+
 // ErrNoMobility is returned for a Turnbull–Fisher prefactor without an
 // Arrhenius mobility law.
-var ErrNoMobility = errors.New("the turnbull-fisher prefactor needs an arrhenius mobility law (d0 and q)")
+var ErrNoMobility = errors.New("the prefactor turnbull-fisher needs an arrhenius mobility law (D0 and Q)")
 
 func positive(name string, x float64) error {
 	if !(x > 0) || math.IsInf(x, 1) {
@@ -99,22 +103,20 @@ func positive(name string, x float64) error {
 }
 
 // NewModel checks a material and prepares it for evaluation. The errors
-// name the offending quantity by its short key (te, vm, gamma, …).
+// name the offending quantity by its field (Vm, Gamma, …; Te for the
+// driving force's equilibrium temperature).
 func NewModel(m Material) (*Model, error) {
 	if m.Driving == nil {
 		return nil, errors.New("no driving-force model")
 	}
-	if tab, ok := m.Driving.(*cnt.Table); ok && m.Te == 0 {
-		te, found := tab.Equilibrium()
-		if !found {
-			return nil, errors.New("te: the driving-force table never changes sign; give te")
-		}
-		m.Te = te
+	te, ok := m.Driving.Equilibrium()
+	if !ok {
+		return nil, ErrNoEquilibrium
 	}
 	checks := []struct {
 		name string
 		x    float64
-	}{{"te", m.Te}, {"vm", m.Vm}, {"gamma", m.Gamma}}
+	}{{"Te", te}, {"Vm", m.Vm}, {"Gamma", m.Gamma}}
 	for _, c := range checks {
 		if err := positive(c.name, c.x); err != nil {
 			return nil, err
@@ -124,23 +126,23 @@ func NewModel(m Material) (*Model, error) {
 		m.Theta = 180
 	}
 	if !(m.Theta > 0 && m.Theta <= 180) {
-		return nil, fmt.Errorf("theta must be in (0, 180] degrees, got %g", m.Theta)
+		return nil, fmt.Errorf("Theta must be in (0, 180] degrees, got %g", m.Theta)
 	}
 	for _, c := range []struct {
 		name string
 		x    float64
-	}{{"sites", m.Sites}, {"jump", m.Jump}, {"tg", m.Tg}, {"j0", m.J0}, {"growth_rate", m.Growth}} {
+	}{{"Sites", m.Sites}, {"Jump", m.Jump}, {"Tg", m.Tg}, {"J0", m.J0}, {"Growth", m.Growth}} {
 		if c.x != 0 {
 			if err := positive(c.name, c.x); err != nil {
 				return nil, err
 			}
 		}
 	}
-	md := &Model{m: m, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
+	md := &Model{m: m, te: te, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
 	// A molecule smaller than 1e-33 m³ (a thousandth of a nucleon's) is a
 	// unit mistake, and would make v, λ and every nucleus underflow.
 	if !(md.v > minMolecularVolume) || !(md.jump > 0) || math.IsInf(md.jump, 0) {
-		return nil, fmt.Errorf("vm: %g m3/mol gives a molecular volume of %g m3, not a molecule (check the unit)", m.Vm, md.v)
+		return nil, fmt.Errorf("Vm = %g m3/mol gives a molecular volume of %g m3, not a molecule (check the unit)", m.Vm, md.v)
 	}
 	md.lnJump = math.Log(md.jump)
 	if m.Sites > 0 {
@@ -151,7 +153,7 @@ func NewModel(m Material) (*Model, error) {
 	switch m.Prefactor {
 	case PrefactorFixed:
 		if !(m.J0 > 0) {
-			return nil, errors.New("the fixed prefactor needs j0 (m^-3 s^-1)")
+			return nil, errors.New("the fixed prefactor needs J0 (m^-3 s^-1)")
 		}
 		md.lnJ0 = math.Log(m.J0)
 	case PrefactorDiffusion:
@@ -168,31 +170,31 @@ func NewModel(m Material) (*Model, error) {
 	var err error
 	switch mob := m.Mobility.(type) {
 	case Arrhenius:
-		if err := positive("d0", mob.D0); err != nil {
+		if err := positive("Arrhenius D0", mob.D0); err != nil {
 			return nil, err
 		}
 		if math.IsNaN(mob.Q) || math.IsInf(mob.Q, 0) {
-			return nil, errors.New("q must be finite")
+			return nil, errors.New("Arrhenius Q must be finite")
 		}
 	case VFT:
 		if !(mob.T0 >= 0) || math.IsInf(mob.T0, 1) || math.IsNaN(mob.A) || math.IsInf(mob.A, 0) || !(mob.B > 0) || math.IsInf(mob.B, 1) {
-			return nil, errors.New("vft needs finite vft-a, positive finite vft-b and finite vft-t0 >= 0")
+			return nil, errors.New("VFT needs a finite A, a positive finite B and a finite T0 >= 0")
 		}
 		if mob.Jump, err = jumpOf(mob.Jump, md.jump); err != nil {
 			return nil, err
 		}
 		md.m.Mobility = mob
 	case WLF:
-		if err := positive("tg", mob.Tg); err != nil {
+		if err := positive("WLF Tg", mob.Tg); err != nil {
 			return nil, err
 		}
-		if err := positive("wlf-c2", mob.C2); err != nil {
+		if err := positive("WLF C2", mob.C2); err != nil {
 			return nil, err
 		}
-		if err := positive("eta-g", mob.EtaG); err != nil {
+		if err := positive("WLF EtaG", mob.EtaG); err != nil {
 			return nil, err
 		}
-		if err := positive("wlf-c1", mob.C1); err != nil {
+		if err := positive("WLF C1", mob.C1); err != nil {
 			return nil, err
 		}
 		if mob.Jump, err = jumpOf(mob.Jump, md.jump); err != nil {
@@ -209,12 +211,15 @@ func jumpOf(own, material float64) (float64, error) {
 	if own == 0 {
 		return material, nil
 	}
-	return own, positive("jump", own)
+	return own, positive("Jump", own)
 }
 
 // Material returns a copy of the material the model was built from, with
-// defaults filled in (θ, T_e of a table).
+// defaults filled in (θ).
 func (md *Model) Material() Material { return md.m }
+
+// Te is the equilibrium temperature T_e of the driving force, K.
+func (md *Model) Te() float64 { return md.te }
 
 // MolecularVolume is v, m³.
 func (md *Model) MolecularVolume() float64 { return md.v }

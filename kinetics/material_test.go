@@ -18,7 +18,6 @@ func testMetal() kinetics.Material {
 	return kinetics.Material{
 		Name:     "invented test metal",
 		Driving:  cnt.Linear{Te: 1337, DH: 12550},
-		Te:       1337,
 		Vm:       10.2e-6,
 		Gamma:    0.132,
 		Mobility: kinetics.Arrhenius{D0: 1e-7, Q: 40e3},
@@ -79,9 +78,9 @@ func TestNewModelValid(t *testing.T) {
 		t.Fatal(err)
 	}
 	m = testMetal()
-	m.Driving, m.Te = tab, 0
+	m.Driving = tab
 	md = mustModel(t, m)
-	if te := md.Material().Te; !close(te, 400+100*1000.0/1500, 1e-14) {
+	if te := md.Te(); !close(te, 400+100*1000.0/1500, 1e-14) {
 		t.Errorf("Te from table = %g, want 466.667", te)
 	}
 }
@@ -101,37 +100,37 @@ func TestNewModelErrors(t *testing.T) {
 		key  string
 	}{
 		{"no driving force", func(m *kinetics.Material) { m.Driving = nil }, "driving-force"},
-		{"te = 0", func(m *kinetics.Material) { m.Te = 0 }, "te"},
-		{"te < 0", func(m *kinetics.Material) { m.Te = -5 }, "te"},
-		{"te NaN", func(m *kinetics.Material) { m.Te = nan }, "te"},
-		{"te +Inf", func(m *kinetics.Material) { m.Te = inf }, "te"},
-		{"table without sign change, no te", func(m *kinetics.Material) { m.Driving, m.Te = noCross, 0 }, "te"},
-		{"vm = 0", func(m *kinetics.Material) { m.Vm = 0 }, "vm"},
-		{"vm NaN", func(m *kinetics.Material) { m.Vm = nan }, "vm"},
-		{"vm +Inf", func(m *kinetics.Material) { m.Vm = inf }, "vm"},
-		{"gamma = 0", func(m *kinetics.Material) { m.Gamma = 0 }, "gamma"},
-		{"gamma < 0", func(m *kinetics.Material) { m.Gamma = -0.1 }, "gamma"},
-		{"theta < 0", func(m *kinetics.Material) { m.Theta = -10 }, "theta"},
-		{"theta > 180", func(m *kinetics.Material) { m.Theta = 180.5 }, "theta"},
-		{"theta NaN", func(m *kinetics.Material) { m.Theta = nan }, "theta"},
-		{"sites < 0", func(m *kinetics.Material) { m.Sites = -1 }, "sites"},
-		{"sites NaN", func(m *kinetics.Material) { m.Sites = nan }, "sites"},
-		{"sites +Inf", func(m *kinetics.Material) { m.Sites = inf }, "sites"},
-		{"jump < 0", func(m *kinetics.Material) { m.Jump = -1e-10 }, "jump"},
-		{"tg < 0", func(m *kinetics.Material) { m.Tg = -1 }, "tg"},
-		{"j0 < 0", func(m *kinetics.Material) { m.J0 = -1 }, "j0"},
-		{"fixed prefactor without j0", func(m *kinetics.Material) { m.Prefactor = kinetics.PrefactorFixed }, "j0"},
-		{"arrhenius d0 = 0", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{Q: 1e5} }, "d0"},
-		{"arrhenius d0 NaN", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{D0: nan, Q: 1e5} }, "d0"},
-		{"arrhenius q NaN", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{D0: 1e-5, Q: nan} }, "q"},
-		{"arrhenius q Inf", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{D0: 1e-5, Q: inf} }, "q"},
-		{"vft b = 0", func(m *kinetics.Material) { m.Mobility = kinetics.VFT{A: -4, T0: 100, Jump: 3e-10} }, "vft"},
-		{"vft t0 < 0", func(m *kinetics.Material) { m.Mobility = kinetics.VFT{A: -4, B: 500, T0: -1, Jump: 3e-10} }, "vft"},
-		{"vft a NaN", func(m *kinetics.Material) { m.Mobility = kinetics.VFT{A: nan, B: 500, T0: 100, Jump: 3e-10} }, "vft"},
-		{"wlf tg = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{C1: 17.44, C2: 51.6, EtaG: 1e12, Jump: 3e-10} }, "tg"},
-		{"wlf c1 = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{Tg: 300, C2: 51.6, EtaG: 1e12, Jump: 3e-10} }, "wlf-c1"},
-		{"wlf c2 = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{Tg: 300, C1: 17.44, EtaG: 1e12, Jump: 3e-10} }, "wlf-c2"},
-		{"wlf eta-g = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{Tg: 300, C1: 17.44, C2: 51.6, Jump: 3e-10} }, "eta-g"},
+		{"te = 0", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: 0, DH: 12550} }, "Te"},
+		{"te < 0", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: -5, DH: 12550} }, "Te"},
+		{"te NaN", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: nan, DH: 12550} }, "Te"},
+		{"te +Inf", func(m *kinetics.Material) { m.Driving = cnt.Linear{Te: inf, DH: 12550} }, "Te"},
+		{"table without sign change, no te", func(m *kinetics.Material) { m.Driving = noCross }, "equilibrium temperature"},
+		{"vm = 0", func(m *kinetics.Material) { m.Vm = 0 }, "Vm"},
+		{"vm NaN", func(m *kinetics.Material) { m.Vm = nan }, "Vm"},
+		{"vm +Inf", func(m *kinetics.Material) { m.Vm = inf }, "Vm"},
+		{"gamma = 0", func(m *kinetics.Material) { m.Gamma = 0 }, "Gamma"},
+		{"gamma < 0", func(m *kinetics.Material) { m.Gamma = -0.1 }, "Gamma"},
+		{"theta < 0", func(m *kinetics.Material) { m.Theta = -10 }, "Theta"},
+		{"theta > 180", func(m *kinetics.Material) { m.Theta = 180.5 }, "Theta"},
+		{"theta NaN", func(m *kinetics.Material) { m.Theta = nan }, "Theta"},
+		{"sites < 0", func(m *kinetics.Material) { m.Sites = -1 }, "Sites"},
+		{"sites NaN", func(m *kinetics.Material) { m.Sites = nan }, "Sites"},
+		{"sites +Inf", func(m *kinetics.Material) { m.Sites = inf }, "Sites"},
+		{"jump < 0", func(m *kinetics.Material) { m.Jump = -1e-10 }, "Jump"},
+		{"tg < 0", func(m *kinetics.Material) { m.Tg = -1 }, "Tg"},
+		{"j0 < 0", func(m *kinetics.Material) { m.J0 = -1 }, "J0"},
+		{"fixed prefactor without j0", func(m *kinetics.Material) { m.Prefactor = kinetics.PrefactorFixed }, "J0"},
+		{"arrhenius d0 = 0", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{Q: 1e5} }, "D0"},
+		{"arrhenius d0 NaN", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{D0: nan, Q: 1e5} }, "D0"},
+		{"arrhenius q NaN", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{D0: 1e-5, Q: nan} }, "Q"},
+		{"arrhenius q Inf", func(m *kinetics.Material) { m.Mobility = kinetics.Arrhenius{D0: 1e-5, Q: inf} }, "Q"},
+		{"vft b = 0", func(m *kinetics.Material) { m.Mobility = kinetics.VFT{A: -4, T0: 100, Jump: 3e-10} }, "VFT"},
+		{"vft t0 < 0", func(m *kinetics.Material) { m.Mobility = kinetics.VFT{A: -4, B: 500, T0: -1, Jump: 3e-10} }, "VFT"},
+		{"vft a NaN", func(m *kinetics.Material) { m.Mobility = kinetics.VFT{A: nan, B: 500, T0: 100, Jump: 3e-10} }, "VFT"},
+		{"wlf tg = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{C1: 17.44, C2: 51.6, EtaG: 1e12, Jump: 3e-10} }, "Tg"},
+		{"wlf c1 = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{Tg: 300, C2: 51.6, EtaG: 1e12, Jump: 3e-10} }, "C1"},
+		{"wlf c2 = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{Tg: 300, C1: 17.44, EtaG: 1e12, Jump: 3e-10} }, "C2"},
+		{"wlf eta-g = 0", func(m *kinetics.Material) { m.Mobility = kinetics.WLF{Tg: 300, C1: 17.44, C2: 51.6, Jump: 3e-10} }, "EtaG"},
 	} {
 		m := testMetal()
 		c.edit(&m)
@@ -230,7 +229,7 @@ func TestNewModelTinyMolarVolume(t *testing.T) {
 	m := testMetal()
 	m.Vm = 1e-300
 	_, err := kinetics.NewModel(m)
-	if err == nil || !strings.HasPrefix(err.Error(), "vm:") {
+	if err == nil || !strings.HasPrefix(err.Error(), "Vm = ") {
 		t.Errorf("Vm = 1e-300 m3/mol: err = %v, want an error naming vm", err)
 	}
 }

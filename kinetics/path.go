@@ -133,8 +133,8 @@ func (md *Model) tabulate(p Path) table {
 	for _, T := range p.Temp {
 		lo, hi = math.Min(lo, T), math.Max(hi, T)
 	}
-	tab := table{te: md.m.Te}
-	hi = math.Min(hi, md.m.Te)
+	tab := table{te: md.te}
+	hi = math.Min(hi, md.te)
 	if !(hi > lo) {
 		// all at one temperature, or all at or above T_e
 		lnJ, u := md.rateAndGrowth(lo)

@@ -212,7 +212,7 @@ func TestLnMeanEAndCentroid(t *testing.T) {
 // a real material): linear driving force, Arrhenius mobility.
 func testModel(t testing.TB) *Model {
 	md, err := NewModel(Material{
-		Name: "test", Driving: cnt.Linear{Te: 1200, DH: 13000}, Te: 1200,
+		Name: "test", Driving: cnt.Linear{Te: 1200, DH: 13000},
 		Vm: 8e-6, Gamma: 0.12, Mobility: Arrhenius{D0: 1e-7, Q: 60000},
 	})
 	if err != nil {
@@ -365,14 +365,14 @@ func TestNewPathBad(t *testing.T) {
 }
 
 func TestNoRateNoGrowth(t *testing.T) {
-	md, err := NewModel(Material{Driving: cnt.Linear{Te: 1200, DH: 13000}, Te: 1200, Vm: 8e-6, Gamma: 0.12})
+	md, err := NewModel(Material{Driving: cnt.Linear{Te: 1200, DH: 13000}, Vm: 8e-6, Gamma: 0.12})
 	if err != nil {
 		t.Fatal(err)
 	}
 	if _, err := md.LinearCooling(0); !errors.Is(err, ErrNoRate) {
 		t.Errorf("no mobility, no prefactor: err = %v, want ErrNoRate", err)
 	}
-	md2, _ := NewModel(Material{Driving: cnt.Linear{Te: 1200, DH: 13000}, Te: 1200, Vm: 8e-6, Gamma: 0.12, Prefactor: PrefactorFixed, J0: 1e40})
+	md2, _ := NewModel(Material{Driving: cnt.Linear{Te: 1200, DH: 13000}, Vm: 8e-6, Gamma: 0.12, Prefactor: PrefactorFixed, J0: 1e40})
 	if _, err := md2.LinearCooling(0); !errors.Is(err, ErrNoGrowth) {
 		t.Errorf("fixed prefactor, no mobility: err = %v, want ErrNoGrowth", err)
 	}

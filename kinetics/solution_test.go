@@ -15,11 +15,10 @@ func solClose(got, want, tol float64) bool { return scalar.EqualWithinRel(got, w
 // testSolute is an invented molecular crystal in an invented solvent, with
 // values of the size met for small drug molecules (V_m ≈ 117 cm³/mol,
 // γ = 2 mJ/m²); not a real system.
-func testSolute(d cnt.DrivingForce, te float64) kinetics.Material {
+func testSolute(d cnt.DrivingForce) kinetics.Material {
 	return kinetics.Material{
 		Name:    "invented test solute",
 		Driving: d,
-		Te:      te,
 		Vm:      116.9e-6,
 		Gamma:   2e-3,
 	}
@@ -36,7 +35,7 @@ func testSolute(d cnt.DrivingForce, te float64) kinetics.Material {
 func TestFixedPrefactorIsApparentForm(t *testing.T) {
 	const A = 1e20 // m⁻³ s⁻¹, invented
 	for _, S := range []float64{1.2, 1.5, 2, 3, 10} {
-		m := testSolute(cnt.Supersaturation{S: S}, 320)
+		m := testSolute(cnt.Supersaturation{S: S, Tsat: 320})
 		m.Prefactor, m.J0 = kinetics.PrefactorFixed, A
 		md, err := kinetics.NewModel(m)
 		if err != nil {
@@ -60,8 +59,8 @@ func TestFixedPrefactorIsApparentForm(t *testing.T) {
 // identity of cnt.VantHoff): every state agrees to rounding.
 func TestVantHoffModelIsLinearModel(t *testing.T) {
 	const tsat, dh = 313.15, 21.8e3
-	a := testSolute(cnt.VantHoff{Tsat: tsat, DHsol: dh}, tsat)
-	b := testSolute(cnt.Linear{Te: tsat, DH: dh}, tsat)
+	a := testSolute(cnt.VantHoff{Tsat: tsat, DHsol: dh})
+	b := testSolute(cnt.Linear{Te: tsat, DH: dh})
 	for _, m := range []*kinetics.Material{&a, &b} {
 		m.Mobility = kinetics.SoluteDiffusivity{D: 1e-9}
 		m.Prefactor, m.Conc = kinetics.PrefactorDiffusion, 1e26
@@ -90,7 +89,7 @@ func TestVantHoffModelIsLinearModel(t *testing.T) {
 // Kashchiev and van Rosmalen, Cryst. Res. Technol. 38 (2003) 555 (from memory).
 func TestDiffusionPrefactor(t *testing.T) {
 	const S, T, D, c = 2.5, 298.15, 7e-10, 3e26
-	m := testSolute(cnt.Supersaturation{S: S}, 320)
+	m := testSolute(cnt.Supersaturation{S: S, Tsat: 320})
 	m.Mobility = kinetics.SoluteDiffusivity{D: D}
 	m.Prefactor, m.Conc = kinetics.PrefactorDiffusion, c
 	md, err := kinetics.NewModel(m)
@@ -118,7 +117,7 @@ func TestDiffusionPrefactor(t *testing.T) {
 }
 
 func TestDiffusionPrefactorChecks(t *testing.T) {
-	m := testSolute(cnt.Supersaturation{S: 2}, 320)
+	m := testSolute(cnt.Supersaturation{S: 2, Tsat: 320})
 	m.Prefactor, m.Conc = kinetics.PrefactorDiffusion, 1e26
 	if _, err := kinetics.NewModel(m); err == nil {
 		t.Errorf("diffusion prefactor without a mobility law accepted")
@@ -157,7 +156,7 @@ func TestSolventViscosity(t *testing.T) {
 // t_poly = [3·(−ln(1−X))/(π·J·u³)]^(1/4) (Kashchiev and van Rosmalen 2003,
 // from memory). The longer one dominates.
 func TestInductionAt(t *testing.T) {
-	m := testSolute(cnt.Supersaturation{S: 3}, 320)
+	m := testSolute(cnt.Supersaturation{S: 3, Tsat: 320})
 	m.Prefactor, m.J0 = kinetics.PrefactorFixed, 1e4 // invented; J ≈ 9.4e3 m⁻³ s⁻¹ at 25 °C
 	md, err := kinetics.NewModel(m)
 	if err != nil {
@@ -188,8 +187,8 @@ func TestInductionAt(t *testing.T) {
 		t.Errorf("no growth: ln t_poly = %g, Poly = %v", in.LnPoly, in.Poly)
 	}
 	// S ≤ 1: never.
-	m.Driving = cnt.Supersaturation{S: 1}
-	md1, _ := kinetics.NewModel(m)
+	m.Driving = cnt.Supersaturation{S: 1, Tsat: 320}
+	md1 := mustModel(t, m)
 	in = md1.InductionAt(T, 1e-6, X, math.Log(1e-8))
 	if !math.IsInf(in.Mono(), 1) || !math.IsInf(in.PolyTime(), 1) {
 		t.Errorf("S = 1: times %g, %g, want +Inf", in.Mono(), in.PolyTime())
@@ -200,7 +199,7 @@ func TestInductionAt(t *testing.T) {
 // every supersaturated temperature, 0 without driving force, and the JMAK
 // time of Continuous with it (Johnson and Mehl 1939, as in jmak.go).
 func TestMeasuredGrowth(t *testing.T) {
-	m := testSolute(cnt.VantHoff{Tsat: 313.15, DHsol: 28e3}, 313.15)
+	m := testSolute(cnt.VantHoff{Tsat: 313.15, DHsol: 28e3})
 	m.Prefactor, m.J0, m.Growth = kinetics.PrefactorFixed, 1e3, 1e-8
 	md, err := kinetics.NewModel(m)
 	if err != nil {

@@ -5,9 +5,9 @@ import (
 	"fmt"
 )
 
-// ZonePoints is the number of steps of the linear path on which
+// zonePoints is the number of steps of the linear path on which
 // MetastableZone integrates J; the onset is interpolated between them.
-const ZonePoints = 20000
+const zonePoints = 20000
 
 // ErrEndAboveSat is returned when a cooling path would end at or above the
 // saturation temperature it starts from.
@@ -28,11 +28,11 @@ func (md *Model) MetastableZone(V, q, end float64) (Onset, error) {
 	if !(V > 0) || !(q > 0) {
 		panic("kinetics: MetastableZone: volume and rate must be positive")
 	}
-	te := md.m.Te
+	te := md.te
 	if !(end < te) || !(end > 0) {
 		return Onset{}, fmt.Errorf("%w (end %g K, saturation %g K)", ErrEndAboveSat, end, te)
 	}
-	p := LinearPath(te, end, q, ZonePoints)
+	p := LinearPath(te, end, q, zonePoints)
 	s, err := md.Along(p)
 	if err != nil {
 		return Onset{}, err

@@ -14,7 +14,7 @@ import (
 // zoneModel is an invented solute (γ = 2.5 mJ/m², apparent A = 1e6
 // m⁻³ s⁻¹) saturated at 40 °C with the van 't Hoff law, ΔH_sol = 25 kJ/mol.
 func zoneModel(t testing.TB) *kinetics.Model {
-	m := testSolute(cnt.VantHoff{Tsat: 313.15, DHsol: 25e3}, 313.15)
+	m := testSolute(cnt.VantHoff{Tsat: 313.15, DHsol: 25e3})
 	m.Gamma, m.Prefactor, m.J0 = 2.5e-3, kinetics.PrefactorFixed, 1e6
 	md, err := kinetics.NewModel(m)
 	if err != nil {
@@ -88,7 +88,7 @@ func TestMetastableZoneEdges(t *testing.T) {
 	}
 }
 
-// BenchmarkMetastableZone is one onset: ZonePoints evaluations of the
+// BenchmarkMetastableZone is one onset: zonePoints evaluations of the
 // model along the path and one pass of the running integrals.
 func BenchmarkMetastableZone(b *testing.B) {
 	md := zoneModel(b)

@@ -21,7 +21,7 @@ const (
 	FlagLowBarrier
 	// FlagNoMobility: below the VFT T0 (or the WLF divergence) there is no mobility.
 	FlagNoMobility
-	// FlagWLFFarAboveTg: WLF used more than WLFRange above T_g, outside its fitted range.
+	// FlagWLFFarAboveTg: WLF used more than wlfRange above T_g, outside its fitted range.
 	FlagWLFFarAboveTg
 	// FlagOutsideTable: the temperature lies outside a tabulated driving force.
 	FlagOutsideTable
@@ -31,7 +31,7 @@ const (
 const (
 	SmallNucleus = 10.0  // molecules
 	LowBarrier   = 5.0   // k_BT
-	WLFRange     = 100.0 // K above T_g
+	wlfRange     = 100.0 // K above T_g
 )
 
 var flagNames = []struct {
@@ -111,7 +111,7 @@ func (md *Model) At(T float64) State {
 // state is At without the validity flags, for the paths that need only
 // ln J and u (see rateAndGrowth).
 func (md *Model) state(T float64) State {
-	s := State{T: T, Undercooling: md.m.Te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
+	s := State{T: T, Undercooling: md.te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
 	kT := cnt.Boltzmann * T
 	s.DrivingMole = md.m.Driving.PerMole(T)
 	if math.IsNaN(s.DrivingMole) {
@@ -157,7 +157,7 @@ func (md *Model) flags(s State) Flag {
 		if math.IsInf(s.LnD, -1) {
 			f |= FlagNoMobility
 		}
-		if w, ok := md.m.Mobility.(WLF); ok && s.T > w.Tg+WLFRange {
+		if w, ok := md.m.Mobility.(WLF); ok && s.T > w.Tg+wlfRange {
 			f |= FlagWLFFarAboveTg
 		}
 	}

@@ -20,7 +20,6 @@ func goldCallister() kinetics.Material {
 	return kinetics.Material{
 		Name:     "gold (Callister Example Problem 10.1; invented mobility)",
 		Driving:  cnt.Linear{Te: 1337, DH: 1.16e9 * vm},
-		Te:       1337,
 		Vm:       vm,
 		Gamma:    0.132,
 		Mobility: kinetics.Arrhenius{D0: 1e-7, Q: 40e3},
@@ -179,7 +178,7 @@ func TestModelAtFlags(t *testing.T) {
 	// Outside a tabulated driving force.
 	tab, _ := cnt.NewTable([]float64{800, 1000, 1400}, []float64{5000, 3000, -1000}, "hand")
 	tm := goldCallister()
-	tm.Driving, tm.Te = tab, 0
+	tm.Driving = tab
 	md = mustModel(t, tm)
 	if s := md.At(700); s.Flags != kinetics.FlagOutsideTable {
 		t.Errorf("table, T = 700: flags %v, want [outside_table]", s.Flags.Keys())
@@ -255,7 +254,7 @@ func mobName(m kinetics.Material) string {
 func TestModelOutsideTableLnJ(t *testing.T) {
 	tab, _ := cnt.NewTable([]float64{800, 1000, 1400}, []float64{5000, 3000, -1000}, "hand")
 	m := goldCallister()
-	m.Driving, m.Te = tab, 0
+	m.Driving = tab
 	s := mustModel(t, m).At(700)
 	if !math.IsNaN(s.LnJ) || !math.IsNaN(s.Growth) || !math.IsNaN(s.TimeLag()) || s.Flags&kinetics.FlagOutsideTable == 0 {
 		t.Errorf("At(700 K) outside the table: ln J = %g, u = %g, lag = %g, flags %v; want NaN, NaN, NaN and outside_table",
@@ -273,7 +272,6 @@ func ExampleModel_At() {
 	md, err := kinetics.NewModel(kinetics.Material{
 		Name:     "gold, invented mobility",
 		Driving:  cnt.Linear{Te: 1337, DH: 1.16e9 * vm},
-		Te:       1337,
 		Vm:       vm,
 		Gamma:    0.132,
 		Mobility: kinetics.Arrhenius{D0: 1e-7, Q: 40e3},

@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"undercool/kinetics/internal/bracket"
 )
 
 // NoseTolerance is the accuracy of the nose temperature, K.
@@ -89,7 +91,7 @@ func (md *Model) Nose(lo, hi, X float64, j JMAK) (Nose, error) {
 			return -a.LnK
 		}
 	}
-	T, fT, err := MinimizeScan(f, lo, hi, noseScan, NoseTolerance)
+	T, fT, err := bracket.MinimizeScan(f, lo, hi, noseScan, NoseTolerance)
 	if err != nil {
 		return Nose{}, fmt.Errorf("nose search: %v", err)
 	}

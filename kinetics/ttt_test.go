@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"undercool/cnt"
+	"undercool/kinetics/internal/bracket"
 )
 
 // denseMin is the brute-force minimum of ln t_X on a fine grid, for
@@ -102,7 +103,7 @@ func TestNoseIndependentOfFraction(t *testing.T) {
 	}
 	var first float64
 	for i, X := range fr {
-		x, _, err := MinimizeScan(func(T float64) float64 { return md.avrami(md.At(T), JMAK{}).LnTime(X) },
+		x, _, err := bracket.MinimizeScan(func(T float64) float64 { return md.avrami(md.At(T), JMAK{}).LnTime(X) },
 			575, 1138.5, 24, NoseTolerance)
 		if err != nil {
 			t.Fatal(err)
@@ -235,7 +236,6 @@ func ExampleModel_Nose() {
 	md, err := NewModel(Material{
 		Name:     "invented example material",
 		Driving:  cnt.ThompsonSpaepen{Te: 1150, DH: 14.2e3},
-		Te:       1150,
 		Vm:       9.8e-6,
 		Gamma:    0.118,
 		Mobility: Arrhenius{D0: 2e-7, Q: 62e3},

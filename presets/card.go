@@ -38,6 +38,8 @@ type Card struct {
 	Values         map[string]Value
 	Spreads        map[string]SpreadSpec // [spread]: standard deviations of values, by key
 	File           string                // where it came from: a path, or "preset NAME"
+
+	tables *tables // the files it names, read once (build.go)
 }
 
 type rawValue struct {
@@ -214,23 +216,10 @@ func ParseValue(p Param, text string) (Value, error) {
 	if err != nil {
 		return Value{}, err
 	}
-	switch {
-	case p.Check == positive && !(si > 0):
-		return Value{}, fmt.Errorf("%q must be positive", text)
-	case p.Check == nonNegative && !(si >= 0):
-		return Value{}, fmt.Errorf("%q must not be negative", text)
-	case p.Check == angle && !(si > 0 && si <= 180):
-		return Value{}, fmt.Errorf("%q must lie in (0, 180] degrees", text)
+	if err := p.Range.check(si, text); err != nil {
+		return Value{}, err
 	}
 	return Value{SI: si, Text: strings.TrimSpace(text), Kind: p.Kinds[i]}, nil
-}
-
-func paramKeys() []string {
-	out := make([]string, len(Params))
-	for i, p := range Params {
-		out[i] = p.Key
-	}
-	return out
 }
 
 func allowedKeys(k toml.Key) string {
@@ -238,7 +227,7 @@ func allowedKeys(k toml.Key) string {
 		if len(k) > 2 {
 			return "value, source"
 		}
-		return strings.Join(SpreadKeys(), ", ")
+		return strings.Join(paramKeys(), ", ")
 	}
 	if len(k) > 1 && k[0] == "values" {
 		if len(k) > 2 {
@@ -249,8 +238,8 @@ func allowedKeys(k toml.Key) string {
 	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, [values], [spread]"
 }
 
-// Load reads a card from a file.
-func Load(path string) (*Card, error) {
+// load reads a card from a file.
+func load(path string) (*Card, error) {
 	data, err := os.ReadFile(path)
 	if err != nil {
 		return nil, fmt.Errorf("cannot read material card %s: %v", path, errors.Unwrap(err))

@@ -1,6 +1,7 @@
 package presets
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"os"
@@ -79,7 +80,7 @@ func TestParseGoodCard(t *testing.T) {
 	if !c.Has("te") || c.Has("theta") || c.SI("theta") != 0 {
 		t.Error("Has/SI wrong")
 	}
-	if _, err := c.Material(); err != nil {
+	if _, err := c.Model(); err != nil {
 		t.Errorf("Material: %v", err)
 	}
 }
@@ -170,12 +171,12 @@ func TestMaterialErrors(t *testing.T) {
 		prefix, repl string
 		want         []string
 	}{
-		{"no gamma", "gamma", "", []string{"bad.toml", `"gamma"`, "--gamma"}},
+		{"no gamma", "gamma", "", []string{"bad.toml", `"gamma"`}},
 		{"no vm", "vm ", "", []string{"bad.toml", `"vm"`}},
 		{"no te", "te ", "", []string{"bad.toml", `"te"`}},
 		{"no d0", "d0", "", []string{"bad.toml", `"d0"`}},
 		{"cp without dcp", "driving", `driving = "cp"`, []string{"bad.toml", `"dcp"`}},
-		{"vft without constants", "mobility", `mobility = "vft"`, []string{"bad.toml", `"vft_a"`, "--vft-a"}},
+		{"vft without constants", "mobility", `mobility = "vft"`, []string{"bad.toml", `"vft_a"`}},
 		{"wlf without tg", "mobility", `mobility = "wlf"`, []string{"bad.toml", `"tg"`}},
 		{"turnbull-fisher without arrhenius", "mobility", "mobility = \"none\"\nprefactor = \"turnbull-fisher\"", []string{"bad.toml", "turnbull-fisher"}},
 		{"fixed without j0", "prefactor", `prefactor = "fixed"`, []string{"bad.toml", "j0"}},
@@ -187,7 +188,7 @@ func TestMaterialErrors(t *testing.T) {
 				card = replaceLine(t, card, `prefactor = "attachment"`, "")
 			}
 			c := mustParse(t, card, "bad.toml")
-			_, err := c.Material()
+			_, err := c.Model()
 			if err == nil {
 				t.Fatal("Material gave no error")
 			}
@@ -195,6 +196,11 @@ func TestMaterialErrors(t *testing.T) {
 				if !strings.Contains(err.Error(), w) {
 					t.Errorf("error %q does not contain %q", err, w)
 				}
+			}
+			// A missing value is a *MissingError naming its key, and no flag.
+			var me *MissingError
+			if errors.As(err, &me) && (!strings.Contains(tt.want[1], me.Key) || strings.Contains(err.Error(), "--")) {
+				t.Errorf("missing %q: error %q", me.Key, err)
 			}
 		})
 	}
@@ -204,7 +210,7 @@ func TestMaterialErrors(t *testing.T) {
 func TestMobilityNone(t *testing.T) {
 	card := replaceLine(t, goodCard, "mobility", `mobility = "none"`)
 	c := mustParse(t, card, "t.toml")
-	m, err := c.Material()
+	m, err := c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -255,18 +261,18 @@ func TestLoadDrivingTable(t *testing.T) {
 	}
 	path := write("t.toml", card)
 	write("dg.csv", "# invented for the test\ntemperature_k,dg_j_per_mol\n600,4800\n800,2400\n1000,0\n1100,-1200\n")
-	c, err := Load(path)
+	c, err := load(path)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if c.DrivingFile != filepath.Join(dir, "dg.csv") {
 		t.Errorf("DrivingFile = %q", c.DrivingFile)
 	}
-	m, err := c.Material()
+	m, err := c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
-	if te := m.Material().Te; math.Abs(te-1000) > 1e-9 {
+	if te := m.Te(); math.Abs(te-1000) > 1e-9 {
 		t.Errorf("Te from the table = %g, want 1000", te)
 	}
 	if g := m.At(700).DrivingMole; math.Abs(g-3600) > 1e-9 {
@@ -278,24 +284,26 @@ func TestLoadDrivingTable(t *testing.T) {
 	}
 	// A broken table names its file and line.
 	write("dg.csv", "temperature_k,dg_j_per_mol\n600,4800\n800,lots\n")
-	if _, err := c.Material(); err == nil || !strings.Contains(err.Error(), "dg.csv:3") {
+	c, _ = load(path) // a card reads its table once
+	if _, err := c.Model(); err == nil || !strings.Contains(err.Error(), "dg.csv:3") {
 		t.Errorf("broken table error %v should name dg.csv:3", err)
 	}
 	os.Remove(filepath.Join(dir, "dg.csv"))
-	if _, err := c.Material(); err == nil || !strings.Contains(err.Error(), "dg.csv") {
+	c, _ = load(path)
+	if _, err := c.Model(); err == nil || !strings.Contains(err.Error(), "dg.csv") {
 		t.Errorf("missing table error %v should name dg.csv", err)
 	}
 }
 
 func TestLoadErrors(t *testing.T) {
 	missing := filepath.Join(t.TempDir(), "nothere.toml")
-	_, err := Load(missing)
+	_, err := load(missing)
 	if err == nil || !strings.Contains(err.Error(), missing) {
 		t.Errorf("Load of a missing file: %v should name the file", err)
 	}
 	bad := filepath.Join(t.TempDir(), "bad.toml")
 	os.WriteFile(bad, []byte(replaceLine(t, goodCard, "vm ", `vm = { value = "6 kg", source = "x" }`)), 0o644)
-	_, err = Load(bad)
+	_, err = load(bad)
 	if err == nil || !strings.Contains(err.Error(), bad+":12:") {
 		t.Errorf("Load of a bad card: %v should name %s:12", err, bad)
 	}

@@ -137,19 +137,19 @@ func TestReadDataErrors(t *testing.T) {
 func TestReadDataFile(t *testing.T) {
 	p := filepath.Join(t.TempDir(), "dg.csv")
 	os.WriteFile(p, []byte("temperature_k,dg_kj_per_mol\n800,2.4\n1000,0\n"), 0o644)
-	d, err := ReadDataFile(p, nil, DrivingColumns)
+	d, err := ReadDataFile(p, nil, drivingColumns)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if d.Columns["dg"][0] != 2400 || d.File != p {
 		t.Errorf("dg = %v, file %q", d.Columns["dg"], d.File)
 	}
-	d, err = ReadDataFile("-", strings.NewReader("temperature_c,dg_j_per_mol\n500,100\n"), DrivingColumns)
+	d, err = ReadDataFile("-", strings.NewReader("temperature_c,dg_j_per_mol\n500,100\n"), drivingColumns)
 	if err != nil || d.File != "stdin" || !near(d.Columns["temperature"][0], 773.15) {
 		t.Errorf("stdin: %+v, %v", d, err)
 	}
 	missing := filepath.Join(t.TempDir(), "none.csv")
-	if _, err := ReadDataFile(missing, nil, DrivingColumns); err == nil || !strings.Contains(err.Error(), missing) {
+	if _, err := ReadDataFile(missing, nil, drivingColumns); err == nil || !strings.Contains(err.Error(), missing) {
 		t.Errorf("missing file error %v should name it", err)
 	}
 }

@@ -1,63 +1,137 @@
 package presets
 
-import "undercool/presets/units"
+import (
+	"fmt"
+	"math"
+	"strings"
 
-// Param is one numeric input of a material: its card key, the kinds of
-// quantity it may be written as, and what it means. The same list gives the
-// card keys and the command-line flags (key with '_' written '-').
+	"undercool/kinetics/sample"
+	"undercool/presets/units"
+)
+
+// Param is one numeric value of a material, defined once. The card key,
+// the command-line flag (Flag), the help text, the parsing and range check
+// of cards and flags, the spread a Monte Carlo run draws it from and the
+// card printer all come from this entry; Build says what it does in the
+// model. A new value is one entry in Params and its use in Build.
 type Param struct {
-	Key   string
-	Kinds []units.Kind
-	About string
-	Check check // the range a value must lie in
+	Key   string       // card key, snake_case
+	Kinds []units.Kind // the kinds of quantity it may be written as; the first is its own
+	About string       // what it means, lower case, for help, cards and memos
+	Range Range        // where a value must lie
+	// Spread is how a spread of the value is drawn by default: log-normal
+	// for a factor on a rate (its median the value), normal otherwise.
+	Spread sample.Distribution
+	Group  string // the help group: material, mobility, prefactor or solution
+	// For is the model choice that reads the value; zero for a value more
+	// than one model reads. Giving a value of the solution driving force on
+	// the command line chooses that driving force, and a card without a
+	// mobility law takes the law its values belong to.
+	For Choice
 }
 
-// check is the allowed range of a parameter.
-type check int
+// Flag is the command-line flag of the value: its key with '_' written '-'.
+func (p Param) Flag() string { return strings.ReplaceAll(p.Key, "_", "-") }
 
-const (
-	anyValue    check = iota // any finite number
-	positive                 // > 0
-	nonNegative              // ≥ 0
-	angle                    // 0 < θ ≤ 180 degrees
+// Units names the SI units the value may be given in, for help: "K", or
+// "J/mol or J/m3".
+func (p Param) Units() string {
+	var out []string
+	for _, k := range p.Kinds {
+		if k.SI != "" {
+			out = append(out, k.SI)
+		}
+	}
+	return strings.Join(out, " or ")
+}
+
+// Choice is one model choice of a card: its axis and its name.
+type Choice struct {
+	Axis string // "driving", "mobility" or "prefactor"
+	Name string // one of the axis's choices, e.g. "vft"
+}
+
+// Range is where a value must lie: Lo < x ≤ Hi, or Lo ≤ x ≤ Hi with
+// ClosedLo; never NaN or ±Inf.
+type Range struct {
+	Lo, Hi   float64
+	ClosedLo bool
+	Text     string // the range for messages: "(0, ∞)"
+	Must     string // what a value outside it is told: "must be positive"
+}
+
+// The ranges of the values.
+var (
+	anyFinite   = Range{math.Inf(-1), math.Inf(1), true, "any finite value", "must be finite"}
+	positive    = Range{0, math.Inf(1), false, "(0, ∞)", "must be positive"}
+	nonNegative = Range{0, math.Inf(1), true, "[0, ∞)", "must not be negative"}
+	angle       = Range{0, 180, false, "(0, 180] degrees", "must lie in (0, 180] degrees"}
+)
+
+// Contains reports whether x lies in the range.
+func (r Range) Contains(x float64) bool {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return false
+	}
+	if r.ClosedLo {
+		return x >= r.Lo && x <= r.Hi
+	}
+	return x > r.Lo && x <= r.Hi
+}
+
+func (r Range) String() string { return r.Text }
+
+// check is nil for a value in the range, else an error on the text as written.
+func (r Range) check(x float64, text string) error {
+	if r.Contains(x) {
+		return nil
+	}
+	return fmt.Errorf("%q %s", text, r.Must)
+}
+
+var (
+	normal    = sample.Normal
+	logNormal = sample.LogNormal
+	mobility  = func(name string) Choice { return Choice{"mobility", name} }
+	solution  = Choice{"driving", "solution"}
 )
 
 // Params are every numeric value a card may hold, in display order.
 var Params = []Param{
-	{"te", []units.Kind{units.Temperature}, "equilibrium temperature (melting point, liquidus or solvus)", positive},
-	{"dh", []units.Kind{units.MolarEnergy, units.EnergyDensity}, "enthalpy of transformation, positive (per mole of the new phase, or per volume)", positive},
-	{"dcp", []units.Kind{units.MolarHeatCapacity}, "heat-capacity difference between parent and new phase (driving cp)", anyValue},
-	{"vm", []units.Kind{units.MolarVolume}, "molar volume of the new phase", positive},
-	{"gamma", []units.Kind{units.InterfacialEnergy}, "interfacial energy between nucleus and parent", positive},
-	{"theta", []units.Kind{units.Angle}, "contact angle on the substrate, 0 < θ ≤ 180 degrees (180 = homogeneous)", angle},
-	{"sites", []units.Kind{units.NumberDensity}, "nucleation sites per volume, > 0; default 1/v, every molecule", positive},
-	{"j0", []units.Kind{units.RateDensity}, "rate prefactor for prefactor fixed", positive},
-	{"d0", []units.Kind{units.Diffusivity}, "Arrhenius pre-exponential diffusivity", positive},
-	{"q", []units.Kind{units.MolarEnergy}, "Arrhenius activation energy", nonNegative},
-	{"vft_a", []units.Kind{units.Dimensionless}, "VFT constant A, log10 of Pa s", anyValue},
-	{"vft_b", []units.Kind{units.TemperatureDifference}, "VFT constant B", positive},
-	{"vft_t0", []units.Kind{units.Temperature}, "VFT temperature T0, where the viscosity diverges", positive},
-	{"tg", []units.Kind{units.Temperature}, "glass transition temperature", positive},
-	{"wlf_c1", []units.Kind{units.Dimensionless}, "WLF constant C1, > 0; default 17.44", positive},
-	{"wlf_c2", []units.Kind{units.TemperatureDifference}, "WLF constant C2, > 0; default 51.6", positive},
-	{"eta_g", []units.Kind{units.Viscosity}, "viscosity at Tg for WLF, > 0; default 1e12", positive},
-	{"jump", []units.Kind{units.Length}, "jump distance λ, > 0; default v^(1/3)", positive},
+	{"te", []units.Kind{units.Temperature}, "equilibrium temperature (melting point, liquidus or solvus)", positive, normal, "material", Choice{}},
+	{"dh", []units.Kind{units.MolarEnergy, units.EnergyDensity}, "enthalpy of transformation, positive (per mole of the new phase, or per volume)", positive, normal, "material", Choice{}},
+	{"dcp", []units.Kind{units.MolarHeatCapacity}, "heat-capacity difference between parent and new phase (driving cp)", anyFinite, normal, "material", Choice{"driving", "cp"}},
+	{"vm", []units.Kind{units.MolarVolume}, "molar volume of the new phase", positive, normal, "material", Choice{}},
+	{"gamma", []units.Kind{units.InterfacialEnergy}, "interfacial energy between nucleus and parent", positive, normal, "material", Choice{}},
+	{"theta", []units.Kind{units.Angle}, "contact angle on the substrate, 0 < θ ≤ 180 degrees (180 = homogeneous)", angle, normal, "material", Choice{}},
+	{"sites", []units.Kind{units.NumberDensity}, "nucleation sites per volume, > 0; default 1/v, every molecule", positive, logNormal, "material", Choice{}},
+	{"j0", []units.Kind{units.RateDensity}, "rate prefactor for prefactor fixed", positive, logNormal, "prefactor", Choice{"prefactor", "fixed"}},
+	{"d0", []units.Kind{units.Diffusivity}, "Arrhenius pre-exponential diffusivity", positive, logNormal, "mobility", mobility("arrhenius")},
+	{"q", []units.Kind{units.MolarEnergy}, "Arrhenius activation energy", nonNegative, normal, "mobility", mobility("arrhenius")},
+	{"vft_a", []units.Kind{units.Dimensionless}, "VFT constant A, log10 of Pa s", anyFinite, normal, "mobility", mobility("vft")},
+	{"vft_b", []units.Kind{units.TemperatureDifference}, "VFT constant B", positive, normal, "mobility", mobility("vft")},
+	{"vft_t0", []units.Kind{units.Temperature}, "VFT temperature T0, where the viscosity diverges", positive, normal, "mobility", mobility("vft")},
+	{"tg", []units.Kind{units.Temperature}, "glass transition temperature", positive, normal, "material", Choice{}},
+	{"wlf_c1", []units.Kind{units.Dimensionless}, "WLF constant C1, > 0; default 17.44", positive, normal, "mobility", mobility("wlf")},
+	{"wlf_c2", []units.Kind{units.TemperatureDifference}, "WLF constant C2, > 0; default 51.6", positive, normal, "mobility", mobility("wlf")},
+	{"eta_g", []units.Kind{units.Viscosity}, "viscosity at Tg for WLF, > 0; default 1e12", positive, logNormal, "mobility", mobility("wlf")},
+	{"jump", []units.Kind{units.Length}, "jump distance λ, > 0; default v^(1/3)", positive, normal, "material", Choice{}},
 	// Crystallization from solution (driving solution).
-	{"supersaturation", []units.Kind{units.Dimensionless}, "fixed supersaturation ratio S = c/c_sat, > 0 (S <= 1: no driving force)", positive},
-	{"sat_temp", []units.Kind{units.Temperature}, "saturation temperature of the solution, where S = 1", positive},
-	{"dh_sol", []units.Kind{units.MolarEnergy}, "enthalpy of dissolution, positive, for the ideal (van 't Hoff) solubility law", positive},
-	{"conc", SolutionConcKinds, "solute concentration, in the units of the solubility table (mol/l, g/l, g/kg or a mole fraction)", positive},
-	{"molar_mass", []units.Kind{units.MolarMass}, "molar mass of the solute, for vm = molar_mass/density", positive},
-	{"density", []units.Kind{units.Density}, "density of the crystal, for vm = molar_mass/density", positive},
-	{"solvent_viscosity", []units.Kind{units.Viscosity}, "solvent viscosity, for the Stokes-Einstein diffusivity of the solute (mobility stokes-einstein)", positive},
-	{"solute_diffusivity", []units.Kind{units.Diffusivity}, "diffusivity of the solute in the solvent (mobility diffusivity)", positive},
-	{"number_conc", []units.Kind{units.NumberDensity}, "solute molecules per volume, for prefactor diffusion (default from conc)", positive},
-	{"growth_rate", []units.Kind{units.Velocity}, "measured crystal growth rate in the solution, for the polynuclear induction time", positive},
+	{"supersaturation", []units.Kind{units.Dimensionless}, "fixed supersaturation ratio S = c/c_sat, > 0 (S <= 1: no driving force)", positive, normal, "solution", solution},
+	{"sat_temp", []units.Kind{units.Temperature}, "saturation temperature of the solution, where S = 1", positive, normal, "solution", solution},
+	{"dh_sol", []units.Kind{units.MolarEnergy}, "enthalpy of dissolution, positive, for the ideal (van 't Hoff) solubility law", positive, normal, "solution", solution},
+	{"conc", concKinds, "solute concentration, in the units of the solubility table (mol/l, g/l, g/kg or a mole fraction)", positive, normal, "solution", solution},
+	{"molar_mass", []units.Kind{units.MolarMass}, "molar mass of the solute, for vm = molar_mass/density", positive, normal, "solution", Choice{}},
+	{"density", []units.Kind{units.Density}, "density of the crystal, for vm = molar_mass/density", positive, normal, "solution", Choice{}},
+	{"solvent_viscosity", []units.Kind{units.Viscosity}, "solvent viscosity, for the Stokes-Einstein diffusivity of the solute (mobility stokes-einstein)", positive, logNormal, "solution", mobility("stokes-einstein")},
+	{"solute_diffusivity", []units.Kind{units.Diffusivity}, "diffusivity of the solute in the solvent (mobility diffusivity)", positive, logNormal, "solution", mobility("diffusivity")},
+	{"number_conc", []units.Kind{units.NumberDensity}, "solute molecules per volume, for prefactor diffusion (default from conc)", positive, logNormal, "solution", Choice{"prefactor", "diffusion"}},
+	{"growth_rate", []units.Kind{units.Velocity}, "measured crystal growth rate in the solution, for the polynuclear induction time", positive, logNormal, "solution", Choice{}},
 }
 
-// SolutionConcKinds are the families a concentration or a solubility may be
+// concKinds are the families a concentration or a solubility may be
 // given in; a concentration and its solubility table must share one.
-var SolutionConcKinds = []units.Kind{units.AmountConcentration, units.MassConcentration, units.MassRatio, units.Dimensionless}
+var concKinds = []units.Kind{units.AmountConcentration, units.MassConcentration, units.MassRatio, units.Dimensionless}
 
 // ParamByKey returns the parameter with a card key, and whether it exists.
 func ParamByKey(key string) (Param, bool) {
@@ -67,6 +141,26 @@ func ParamByKey(key string) (Param, bool) {
 		}
 	}
 	return Param{}, false
+}
+
+// paramKeys are the keys of Params, in order.
+func paramKeys() []string {
+	out := make([]string, len(Params))
+	for i, p := range Params {
+		out[i] = p.Key
+	}
+	return out
+}
+
+// LogNormalKeys are the keys of the values whose spread is log-normal, in order.
+func LogNormalKeys() []string {
+	var out []string
+	for _, p := range Params {
+		if p.Spread == sample.LogNormal {
+			out = append(out, p.Key)
+		}
+	}
+	return out
 }
 
 // Choices are the model names a card or the command line may pick.

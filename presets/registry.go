@@ -38,7 +38,7 @@ func Preset(name string) (*Card, error) {
 // containing a path separator is a path).
 func Open(nameOrPath string) (*Card, error) {
 	if strings.HasSuffix(nameOrPath, ".toml") || strings.ContainsRune(nameOrPath, '/') {
-		return Load(nameOrPath)
+		return load(nameOrPath)
 	}
 	return Preset(nameOrPath)
 }

@@ -1,13 +1,11 @@
 package presets
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strings"
 
 	"undercool/cnt"
-	"undercool/kinetics"
 	"undercool/presets/units"
 )
 
@@ -22,8 +20,8 @@ import (
 // T_sat takes the place of the equilibrium temperature: S = 1 there, and a
 // cooling path starts there.
 
-// SolubilityColumns are the columns of a solubility table, one set per
-// family of concentration units (SolutionConcKinds); a file uses one.
+// solubilityColumns are the columns of a solubility table, one set per
+// family of concentration units (concKinds); a file uses one.
 func solubilityColumns(k units.Kind) []Column {
 	return []Column{
 		{Quantity: "temperature", Kind: units.Temperature, Required: true},
@@ -31,15 +29,15 @@ func solubilityColumns(k units.Kind) []Column {
 	}
 }
 
-// Solubility is a solubility table read from a file.
-type Solubility struct {
+// solubilityData is a solubility table read from a file.
+type solubilityData struct {
 	File  string
 	T, C  []float64  // K; solubility in the SI unit of Kind
 	Kind  units.Kind // the family of its concentration unit
 	Lines []int      // file line of every row
 }
 
-// ReadSolubility reads a CSV of temperature and solubility, such as
+// readSolubility reads a CSV of temperature and solubility, such as
 //
 //	temperature_c,solubility_g_per_kg
 //	10,9.8
@@ -48,12 +46,12 @@ type Solubility struct {
 // a mass concentration (solubility_g_per_l), a mass ratio
 // (solubility_g_per_kg, solubility_g_per_100g) or a plain mole fraction
 // (solubility). Errors name the file and line.
-func ReadSolubility(path string) (*Solubility, error) {
+func readSolubility(path string) (*solubilityData, error) {
 	var first error
-	for _, k := range SolutionConcKinds {
+	for _, k := range concKinds {
 		d, err := ReadDataFile(path, nil, solubilityColumns(k))
 		if err == nil {
-			return &Solubility{File: path, T: d.Columns["temperature"], C: d.Columns["solubility"], Kind: k, Lines: d.Lines}, nil
+			return &solubilityData{File: path, T: d.Columns["temperature"], C: d.Columns["solubility"], Kind: k, Lines: d.Lines}, nil
 		}
 		msg := err.Error()
 		headerProblem := strings.Contains(msg, `column "solubility`) && (strings.Contains(msg, "is not a unit of") || strings.Contains(msg, "needs a unit"))
@@ -84,63 +82,77 @@ func (c *Card) massVolume() (float64, bool) {
 	return 0, false
 }
 
-// solution sets the driving force and the saturation temperature of a
-// solution card on m.
-func (c *Card) solution(m *kinetics.Material) error {
+// solution is the driving force of a solution card, with its saturation
+// temperature.
+func (b *builder) solution() (cnt.DrivingForce, error) {
+	c := b.c
 	var tab *cnt.SolubilityTable
-	var sol *Solubility
+	var sol *solubilityData
 	if c.SolubilityFile != "" {
 		var err error
-		if tab, sol, err = c.solubilityTable(); err != nil {
-			return err
+		if tab, sol, err = b.solubilityTable(); err != nil {
+			return nil, err
 		}
 	}
 	switch {
 	case c.Has("supersaturation"):
-		m.Driving = cnt.Supersaturation{S: c.SI("supersaturation")}
+		s := cnt.Supersaturation{S: b.opt("supersaturation", 0)}
 		switch {
 		case tab != nil && c.tableBasis() == "conc":
 			ts, err := saturation(tab, sol)
 			if err != nil {
-				return err
+				return nil, err
 			}
-			m.Te = ts
-		case c.Has("sat_temp"):
-			m.Te = c.SI("sat_temp")
+			s.Tsat = ts
 		default:
-			return fmt.Errorf("%s: a fixed supersaturation also needs sat_temp, the saturation temperature (it starts every default temperature range and the undercooling column); give it in the card or with --sat-temp", c.File)
+			s.Tsat = b.need("sat_temp", "a fixed supersaturation also needs sat_temp, the saturation temperature: it starts every default temperature range and the undercooling column")
 		}
+		return s, b.err
 	case tab != nil:
-		m.Driving = tab
 		if basis := c.tableBasis(); basis != "sat_temp" {
 			ts, err := saturation(tab, sol)
 			if err != nil {
-				return err
+				return nil, err
 			}
 			if basis == "both" && math.Abs(ts-c.SI("sat_temp")) > 0.01 {
-				return fmt.Errorf("%s: conc %s and sat_temp %s disagree: the solubility table puts the saturation of conc at %.2f K; give one of them", c.File, c.Values["conc"].Text, c.Values["sat_temp"].Text, ts)
+				return nil, fmt.Errorf("%s: conc %s and sat_temp %s disagree: the solubility table puts the saturation of conc at %.2f K; give one of them", c.File, c.Values["conc"].Text, c.Values["sat_temp"].Text, ts)
 			}
-			m.Te = ts
 		} else {
-			m.Te = c.SI("sat_temp")
+			tab.Tsat = b.opt("sat_temp", 0)
 		}
+		return tab, nil
 	case c.Has("sat_temp") && c.Has("dh_sol"):
-		m.Driving = cnt.VantHoff{Tsat: c.SI("sat_temp"), DHsol: c.SI("dh_sol")}
-		m.Te = c.SI("sat_temp")
-	default:
-		return fmt.Errorf("%s: driving \"solution\" needs a supersaturation: supersaturation (with sat_temp), or sat_temp and dh_sol (van 't Hoff), or a solubility table (solubility_table, --solubility FILE.csv) with conc or sat_temp", c.File)
+		return cnt.VantHoff{Tsat: b.opt("sat_temp", 0), DHsol: b.opt("dh_sol", 0)}, nil
 	}
-	return nil
+	return nil, fmt.Errorf("%s: driving \"solution\" needs a supersaturation: supersaturation (with sat_temp), or sat_temp and dh_sol (van 't Hoff), or a solubility table (solubility_table) with conc or sat_temp", c.File)
+}
+
+// solubility is the card's solubility table as read, read on first use.
+func (c *Card) solubility() (*solubilityData, error) {
+	if c.SolubilityFile == "-" {
+		return nil, fmt.Errorf("%s: the solubility table must be a file, not stdin", c.File)
+	}
+	if c.tables == nil {
+		c.tables = &tables{}
+	}
+	t := c.tables
+	if t.sol != nil && t.solFile == c.SolubilityFile {
+		return t.sol, nil
+	}
+	sol, err := readSolubility(c.SolubilityFile)
+	if err != nil {
+		return nil, err
+	}
+	t.solFile, t.sol = c.SolubilityFile, sol
+	return sol, nil
 }
 
 // solubilityTable reads the card's solubility table and pairs it with the
 // concentration: conc (same family of units) or, without it, the solubility
 // at sat_temp.
-func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
-	if c.SolubilityFile == "-" {
-		return nil, nil, fmt.Errorf("%s: the solubility table must be a file, not stdin", c.File)
-	}
-	sol, err := ReadSolubility(c.SolubilityFile)
+func (b *builder) solubilityTable() (*cnt.SolubilityTable, *solubilityData, error) {
+	c := b.c
+	sol, err := c.solubility()
 	if err != nil {
 		return nil, nil, err
 	}
@@ -166,6 +178,7 @@ func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
 	switch c.tableBasis() {
 	case "conc", "both":
 		v := c.Values["conc"]
+		b.read["conc"] = v.SI
 		if v.Kind.Name != sol.Kind.Name {
 			return nil, nil, fmt.Errorf("%s: conc %s is a %s but the solubility table %s is a %s: give both in the same family of units", c.File, v.Text, familyName(v.Kind), sol.File, familyName(sol.Kind))
 		}
@@ -178,7 +191,7 @@ func (c *Card) solubilityTable() (*cnt.SolubilityTable, *Solubility, error) {
 			return nil, nil, fmt.Errorf("%s: conc %s lies outside the solubilities of %s (%.4g to %.4g %s): no saturation temperature in the table", c.File, v.Text, sol.File, lo, hi, sol.Kind.SI)
 		}
 	case "sat_temp":
-		ts := c.SI("sat_temp")
+		ts := b.opt("sat_temp", 0)
 		conc = probe.ConcentrationAt(ts)
 		if math.IsNaN(conc) {
 			return nil, nil, fmt.Errorf("%s: sat_temp %s lies outside the solubility table %s (%.2f to %.2f K)", c.File, c.Values["sat_temp"].Text, sol.File, probe.T[0], probe.T[len(probe.T)-1])
@@ -218,7 +231,7 @@ func (c *Card) tableBasis() string {
 
 // saturation is the saturation temperature of a table's concentration; a
 // solubility that does not rise with temperature is named by its file line.
-func saturation(tab *cnt.SolubilityTable, sol *Solubility) (float64, error) {
+func saturation(tab *cnt.SolubilityTable, sol *solubilityData) (float64, error) {
 	if ok, r := tab.Increasing(); !ok {
 		n := len(sol.Lines)
 		i := r - 1 // index in ascending temperature
@@ -241,15 +254,12 @@ func familyName(k units.Kind) string {
 	return k.Name
 }
 
-// errNoNumberConc is the error of a diffusion prefactor without a way to
-// count the solute molecules per volume.
-var errNoNumberConc = errors.New("the diffusion prefactor needs the number of solute molecules per volume: number_conc, or conc as an amount concentration (mol/l), or as a mass concentration (g/l) with molar_mass")
-
 // numberConc is the number concentration of solute molecules, m⁻³: given,
 // or from conc when it is an amount or (with molar_mass) a mass concentration.
-func (c *Card) numberConc() (float64, error) {
+func (b *builder) numberConc() (float64, error) {
+	c := b.c
 	if c.Has("number_conc") {
-		return c.SI("number_conc"), nil
+		return b.opt("number_conc", 0), nil
 	}
 	if !c.Has("conc") {
 		return 0, fmt.Errorf("%s: %v", c.File, errNoNumberConc)
@@ -257,10 +267,10 @@ func (c *Card) numberConc() (float64, error) {
 	v := c.Values["conc"]
 	switch v.Kind.Name {
 	case units.AmountConcentration.Name:
-		return v.SI * cnt.Avogadro, nil
+		return b.opt("conc", 0) * cnt.Avogadro, nil
 	case units.MassConcentration.Name:
 		if c.Has("molar_mass") {
-			return v.SI / c.SI("molar_mass") * cnt.Avogadro, nil
+			return b.opt("conc", 0) / b.opt("molar_mass", 0) * cnt.Avogadro, nil
 		}
 	}
 	return 0, fmt.Errorf("%s: %v", c.File, errNoNumberConc)

@@ -45,7 +45,7 @@ func solutionModel(t *testing.T, set map[string]string, table string) (*kinetics
 	if table != "" {
 		c.SolubilityFile = writeTemp(t, "sol.csv", table)
 	}
-	return c.Material()
+	return c.Model()
 }
 
 func TestSolutionCardDrivings(t *testing.T) {
@@ -58,16 +58,16 @@ func TestSolutionCardDrivings(t *testing.T) {
 	if want := 0.180 / 1400; math.Abs(m.Vm-want) > 1e-15 {
 		t.Errorf("vm = %g, want M/ρ = %g", m.Vm, want)
 	}
-	if vh, ok := m.Driving.(cnt.VantHoff); !ok || vh.Tsat != 313.15 || vh.DHsol != 25e3 || m.Te != 313.15 {
-		t.Errorf("sat_temp + dh_sol: driving %#v, Te %g", m.Driving, m.Te)
+	if vh, ok := m.Driving.(cnt.VantHoff); !ok || vh.Tsat != 313.15 || vh.DHsol != 25e3 || md.Te() != 313.15 {
+		t.Errorf("sat_temp + dh_sol: driving %#v, Te %g", m.Driving, md.Te())
 	}
 
 	md, err = solutionModel(t, map[string]string{"supersaturation": "2.5", "sat_temp": "300"}, "")
 	if err != nil {
 		t.Fatal(err)
 	}
-	if s, ok := md.Material().Driving.(cnt.Supersaturation); !ok || s.S != 2.5 || md.Material().Te != 300 {
-		t.Errorf("fixed S: driving %#v, Te %g", md.Material().Driving, md.Material().Te)
+	if s, ok := md.Material().Driving.(cnt.Supersaturation); !ok || s.S != 2.5 || md.Te() != 300 {
+		t.Errorf("fixed S: driving %#v, Te %g", md.Material().Driving, md.Te())
 	}
 
 	// A table in g/kg with conc in g/kg: T_sat where c_sat = conc (ln c linear in 1/T).
@@ -76,16 +76,16 @@ func TestSolutionCardDrivings(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if _, ok := md.Material().Driving.(*cnt.SolubilityTable); !ok || math.Abs(md.Material().Te-303.15) > 1e-9 {
-		t.Errorf("table + conc: driving %T, Te %g, want 303.15", md.Material().Driving, md.Material().Te)
+	if _, ok := md.Material().Driving.(*cnt.SolubilityTable); !ok || math.Abs(md.Te()-303.15) > 1e-9 {
+		t.Errorf("table + conc: driving %T, Te %g, want 303.15", md.Material().Driving, md.Te())
 	}
 	// The same with sat_temp: conc is the solubility there.
 	md, err = solutionModel(t, map[string]string{"sat_temp": "30C"}, table)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if tab := md.Material().Driving.(*cnt.SolubilityTable); math.Abs(tab.Conc-0.022) > 1e-15 || md.Material().Te != 303.15 {
-		t.Errorf("table + sat_temp: conc %g, Te %g", tab.Conc, md.Material().Te)
+	if tab := md.Material().Driving.(*cnt.SolubilityTable); math.Abs(tab.Conc-0.022) > 1e-15 || md.Te() != 303.15 {
+		t.Errorf("table + sat_temp: conc %g, Te %g", tab.Conc, md.Te())
 	}
 	// A value on the card gives way to the other one given on the command line.
 	c, _ := Parse([]byte(solutionCard+`sat_temp = { value = "40 C", source = "invented for the tests" }
@@ -94,7 +94,7 @@ func TestSolutionCardDrivings(t *testing.T) {
 	if err := c.Set("conc", "15 g/kg", "command line"); err != nil {
 		t.Fatal(err)
 	}
-	if md, err := c.Material(); err != nil || math.Abs(md.Material().Te-293.15) > 1e-9 {
+	if md, err := c.Model(); err != nil || math.Abs(md.Te()-293.15) > 1e-9 {
 		t.Errorf("card sat_temp, command-line conc: %v, Te %v; want 293.15", err, md)
 	}
 	// A fixed S wins over the table, which still gives T_sat.
@@ -102,8 +102,8 @@ func TestSolutionCardDrivings(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if _, ok := md.Material().Driving.(cnt.Supersaturation); !ok || math.Abs(md.Material().Te-293.15) > 1e-9 {
-		t.Errorf("fixed S + table: driving %T, Te %g", md.Material().Driving, md.Material().Te)
+	if _, ok := md.Material().Driving.(cnt.Supersaturation); !ok || math.Abs(md.Te()-293.15) > 1e-9 {
+		t.Errorf("fixed S + table: driving %T, Te %g", md.Material().Driving, md.Te())
 	}
 }
 
@@ -115,7 +115,7 @@ func TestSolutionCardMobilityAndDiffusion(t *testing.T) {
 		}
 	}
 	c.Mobility, c.Prefactor = "stokes-einstein", "diffusion"
-	md, err := c.Material()
+	md, err := c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -129,7 +129,7 @@ func TestSolutionCardMobilityAndDiffusion(t *testing.T) {
 	}
 	// A mass concentration needs the molar mass: 36 g/l / 0.180 kg/mol = 200 mol/m³.
 	c.Values["conc"], _ = ParseValue(mustParam("conc"), "36 g/l")
-	md, err = c.Material()
+	md, err = c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -137,7 +137,7 @@ func TestSolutionCardMobilityAndDiffusion(t *testing.T) {
 		t.Errorf("number concentration from g/l %g, want %g", md.Material().Conc, want)
 	}
 	c.Values["conc"], _ = ParseValue(mustParam("conc"), "36 g/kg")
-	if _, err := c.Material(); err == nil || !strings.Contains(err.Error(), "number_conc") {
+	if _, err := c.Model(); err == nil || !strings.Contains(err.Error(), "number_conc") {
 		t.Errorf("mass ratio without number_conc: %v", err)
 	}
 }
@@ -207,7 +207,7 @@ func TestParacetamolCard(t *testing.T) {
 	if err := c.Set("sat_temp", "40C", "test"); err != nil {
 		t.Fatal(err)
 	}
-	md, err := c.Material()
+	md, err := c.Model()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -242,10 +242,10 @@ func checkSolution(t *testing.T, c *Card, m *kinetics.Model) {
 	if g := mat.Gamma * 1e3; !(g >= 0.5 && g <= 50) {
 		t.Errorf("gamma = %g mJ/m2", g)
 	}
-	if s := m.At(mat.Te - 1).DrivingMole; !(s >= 5 && s <= 300) {
+	if s := m.At(m.Te() - 1).DrivingMole; !(s >= 5 && s <= 300) {
 		t.Errorf("dg per kelvin below saturation = %g J/(mol K)", s)
 	}
-	s := m.At(0.9 * mat.Te)
+	s := m.At(0.9 * m.Te())
 	if !(s.Dmu > 0) {
 		t.Fatalf("no driving force 10 %% below saturation")
 	}
@@ -272,7 +272,7 @@ func TestReadSolubilityFamilies(t *testing.T) {
 		{"solubility", 2, "number"},
 	} {
 		p := writeTemp(t, "s.csv", "temperature_k,"+c.header+"\n300,1\n310,2\n")
-		sol, err := ReadSolubility(p)
+		sol, err := readSolubility(p)
 		if err != nil {
 			t.Errorf("%s: %v", c.header, err)
 			continue

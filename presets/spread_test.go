@@ -5,7 +5,7 @@ import (
 	"strings"
 	"testing"
 
-	"undercool/kinetics"
+	"undercool/kinetics/sample"
 )
 
 // spreadCard is goodCard with a [spread] table (invented for the tests).
@@ -20,14 +20,14 @@ d0    = { value = "x3",       source = "invented for the tests" }
 func TestParseSpreadTable(t *testing.T) {
 	c := mustParse(t, spreadCard, "s.toml")
 	want := map[string]struct {
-		form kinetics.SpreadForm
+		form sample.Form
 		x    float64
 		line int
 	}{
-		"gamma": {kinetics.Relative, 0.02, 18},
-		"q":     {kinetics.Absolute, 3000, 19},
-		"te":    {kinetics.Absolute, 5, 20}, // a temperature difference: 5 K, not 5 K absolute
-		"d0":    {kinetics.Factor, 3, 21},
+		"gamma": {sample.Relative, 0.02, 18},
+		"q":     {sample.Absolute, 3000, 19},
+		"te":    {sample.Absolute, 5, 20}, // a temperature difference: 5 K, not 5 K absolute
+		"d0":    {sample.Factor, 3, 21},
 	}
 	if len(c.Spreads) != len(want) {
 		t.Fatalf("spreads %v, want %d", c.Spreads, len(want))
@@ -69,20 +69,20 @@ func TestParseSpreadTableErrors(t *testing.T) {
 func TestParseSpread(t *testing.T) {
 	cases := []struct {
 		key, text string
-		form      kinetics.SpreadForm
+		form      sample.Form
 		x         float64
 	}{
-		{"gamma", "2%", kinetics.Relative, 0.02},
-		{"gamma", " 2.5 % ", kinetics.Relative, 0.025},
-		{"gamma", "5 mJ/m2", kinetics.Absolute, 5e-3},
-		{"te", "9F", kinetics.Absolute, 5},
-		{"te", "3C", kinetics.Absolute, 3},
-		{"q", "0.1eV", kinetics.Absolute, 0.1 * 96485.33212},
-		{"dh", "1e7 J/m3", kinetics.Absolute, 1e7},
-		{"sites", "x10", kinetics.Factor, 10},
-		{"sites", "×2", kinetics.Factor, 2},
-		{"theta", "5", kinetics.Absolute, 5},
-		{"gamma", "0%", kinetics.Relative, 0},
+		{"gamma", "2%", sample.Relative, 0.02},
+		{"gamma", " 2.5 % ", sample.Relative, 0.025},
+		{"gamma", "5 mJ/m2", sample.Absolute, 5e-3},
+		{"te", "9F", sample.Absolute, 5},
+		{"te", "3C", sample.Absolute, 3},
+		{"q", "0.1eV", sample.Absolute, 0.1 * 96485.33212},
+		{"dh", "1e7 J/m3", sample.Absolute, 1e7},
+		{"sites", "x10", sample.Factor, 10},
+		{"sites", "×2", sample.Factor, 2},
+		{"theta", "5", sample.Absolute, 5},
+		{"gamma", "0%", sample.Relative, 0},
 	}
 	for _, c := range cases {
 		s, err := ParseSpread(c.key, c.text)
@@ -110,29 +110,90 @@ func TestParseSpread(t *testing.T) {
 	}
 }
 
-// TestSpreadOfMaterial: a per-volume enthalpy spread is converted per mole;
-// a relative one needs no conversion.
-func TestSpreadOfMaterial(t *testing.T) {
+// TestResolve: spreads about the card's values and its defaults, a
+// per-volume enthalpy spread converted per mole, a relative one as it is,
+// and a value the card's models do not read refused with the reason.
+func TestResolve(t *testing.T) {
 	c := mustParse(t, goodCard, "g.toml")
-	md, err := c.Material()
+	spec := func(key, text string) SpreadSpec {
+		s, err := ParseSpread(key, text)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return s
+	}
+	got, err := c.Resolve(map[string]SpreadSpec{
+		"d0": spec("d0", "50%"), "dh": spec("dh", "1e7 J/m3"), "theta": spec("theta", "10"),
+	})
 	if err != nil {
 		t.Fatal(err)
 	}
-	m := md.Material()
-	s, _ := ParseSpread("dh", "1e7 J/m3")
-	sp, err := s.Spread(m)
+	// In the order of Params: dh, theta, d0.
+	if len(got) != 3 || got[0].Key != "dh" || got[1].Key != "theta" || got[2].Key != "d0" {
+		t.Fatalf("spreads %+v, want dh, theta, d0", got)
+	}
+	if want := 1e7 * 9.8e-6; math.Abs(got[0].SD-want) > 1e-9*want || got[0].Dist != sample.Normal || got[0].Base != 14200 {
+		t.Errorf("dh spread %+v, want normal σ = %v J/mol about 14200", got[0], want)
+	}
+	if got[1].Base != 180 || got[1].SD != 10 || !got[1].Range.Contains(180) || got[1].Range.Contains(180.1) {
+		t.Errorf("theta spread %+v, want σ = 10 about the default 180 within (0, 180]", got[1])
+	}
+	if d := got[2]; d.Dist != sample.LogNormal || math.Abs(d.SD-math.Log(1.5)) > 1e-15 || d.Base != 2e-7 {
+		t.Errorf("d0 spread %+v, want log-normal σ_ln = ln 1.5 about 2e-7", d)
+	}
+	for key, want := range map[string]string{
+		"vft_a": "vft_a: the material has no such value (mobility arrhenius, not vft)",
+		"j0":    "j0: the material has no such value (prefactor attachment, not fixed)",
+		"tg":    "tg: the material has no such value (not given)",
+	} {
+		if _, err := c.Resolve(map[string]SpreadSpec{key: spec(key, "1%")}); err == nil || err.Error() != want {
+			t.Errorf("%s: %v, want %q", key, err, want)
+		}
+	}
+	if _, err := c.Resolve(map[string]SpreadSpec{"q": spec("q", "1 J/mol")}); err != nil {
+		t.Errorf("q: %v", err)
+	}
+}
+
+// TestVary: the model of a sample is the card's with the drawn values, by
+// the same path as the card's own; values at their bases change nothing.
+func TestVary(t *testing.T) {
+	c := mustParse(t, goodCard, "g.toml")
+	spreads, err := c.Resolve(map[string]SpreadSpec{"gamma": {Key: "gamma", Form: sample.Relative, X: 0.02}, "sites": {Key: "sites", Form: sample.Relative, X: 0.1}})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if want := 1e7 * 9.8e-6; math.Abs(sp.SD-want) > 1e-9*want || sp.Dist != kinetics.Normal {
-		t.Errorf("dh spread %+v, want normal σ = %v J/mol", sp, want)
+	build := c.Vary(spreads)
+	base, _ := c.Model()
+	same, err := build([]float64{spreads[0].Base, spreads[1].Base})
+	if err != nil || same.Material() != base.Material() {
+		t.Errorf("at the bases: %+v (%v), want the card's %+v", same.Material(), err, base.Material())
 	}
-	s, _ = ParseSpread("d0", "50%")
-	if sp, _ = s.Spread(m); sp.Dist != kinetics.LogNormal || math.Abs(sp.SD-math.Log(1.5)) > 1e-15 {
-		t.Errorf("d0 spread %+v, want log-normal σ_ln = ln 1.5", sp)
+	md, err := build([]float64{0.12, 2e28})
+	if err != nil {
+		t.Fatal(err)
 	}
-	s, _ = ParseSpread("vft_a", "0.1")
-	if _, err := s.Spread(m); err == nil || !strings.Contains(err.Error(), "vft_a: the material has no such value") {
-		t.Errorf("vft_a on an arrhenius card: %v", err)
+	if m := md.Material(); m.Gamma != 0.12 || m.Sites != 2e28 {
+		t.Errorf("varied: gamma %v sites %v, want 0.12 and 2e28", m.Gamma, m.Sites)
+	}
+	if c.Values["gamma"].SI != 0.118 || c.Has("sites") {
+		t.Error("Vary changed the card")
+	}
+}
+
+// BenchmarkVary is the build of one Monte Carlo sample from a card: a copy
+// of its values with two set, and the model built from them.
+func BenchmarkVary(b *testing.B) {
+	c := mustParse(b, goodCard, "g.toml")
+	spreads, err := c.Resolve(map[string]SpreadSpec{"gamma": {Key: "gamma", Form: sample.Relative, X: 0.02}, "d0": {Key: "d0", Form: sample.Factor, X: 2}})
+	if err != nil {
+		b.Fatal(err)
+	}
+	build := c.Vary(spreads)
+	x := []float64{0.12, 3e-7}
+	for b.Loop() {
+		if _, err := build(x); err != nil {
+			b.Fatal(err)
+		}
 	}
 }

@@ -1,13 +1,19 @@
 package main
 
 import (
+	"encoding/json"
+	"errors"
 	"fmt"
-	"strconv"
-	"strings"
+	"math"
 
 	"github.com/spf13/pflag"
+	"gonum.org/v1/gonum/floats"
+	"gonum.org/v1/plot/plotter"
 
+	"undercool/cnt"
 	"undercool/kinetics"
+	"undercool/presets"
+	"undercool/presets/answer"
 	"undercool/presets/units"
 )
 
@@ -21,209 +27,285 @@ func init() {
 	}
 }
 
-// coolFlags are the flags of the cool command besides the material's.
+// coolFlags are the flags of the cool command.
 type coolFlags struct {
-	rate, end, fraction, volume, curve, ccurve, band string
-	critical                                         bool
-	fs                                               *pflag.FlagSet
+	mf       *materialFlags
+	rate     *ratesFlag
+	critical bool
+	fraction *fractionFlag
+	end      *tempFlag
+	volume   *quantityFlag
+	curve    *textFlag
+	ccurve   *ccurveFlag
+	band     *quantityFlag
+	plot     *plotFlag
+	format   *choiceFlag
+	spread   *spreadFlags
 }
 
-func addCoolFlags(fs *pflag.FlagSet) *coolFlags {
-	cf := &coolFlags{fs: fs}
-	fs.StringVar(&cf.rate, "rate", "", "linear cooling rate from Te, K/s, K/min, K/h or C/s (> 0); several, comma-separated, give a CCT table, e.g. 1,10,100K/s (a bare number takes the unit of the last)")
+// The modes of cool: what path, and what is asked of it.
+type coolMode int
+
+const (
+	coolRates    coolMode = iota // linear cooling at given rates: the CCT table
+	coolCritical                 // linear cooling: the critical rate
+	coolCurve                    // a measured curve
+	coolZone                     // a solution cooled at given rates: the metastable zone
+)
+
+func setupCool(fs *pflag.FlagSet, e *env) func([]string) error {
+	cf := &coolFlags{mf: addMaterialFlags(fs), rate: &ratesFlag{}}
+	fs.Var(cf.rate, "rate", "linear cooling rate from Te, K/s, K/min, K/h or C/s (> 0); several, comma-separated, give a CCT table, e.g. 1,10,100K/s (a bare number takes the unit of the last)")
 	fs.BoolVar(&cf.critical, "critical", false, "the critical cooling rate to stay below --fraction, from the exact integral (X_ext scales as rate^-4), with the nose estimate beside it")
-	fs.StringVar(&cf.fraction, "fraction", defaultFraction, "transformed fraction to stay below or to reach, strictly between 0 and 1 (1e-6: the usual detection limit)")
-	fs.StringVar(&cf.end, "end", "", "end of linear cooling, K, C or F below Te (default: Tg where the card has one, else where the rest of the path adds less than 1e-6 of the extended volume)")
-	fs.StringVar(&cf.volume, "volume", "", "sample volume for the onset of nucleation (first nucleus expected), m3, mm3, uL, mL, L or um3 (> 0)")
-	fs.StringVar(&cf.curve, "curve", "", "measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c), time strictly increasing")
-	fs.StringVar(&cf.ccurve, "c-curve", "", "Evancho-Staley C-curve constants k1=..,k2=..,k3=..,k4=..,k5=.. (k1 < 0 dimensionless, k2 s, k3 and k5 J/mol, k4 K) for the quench factor of --curve; default: the material's TTT curve")
-	fs.StringVar(&cf.band, "band", "25K", "width of the temperature bands of the quench-factor table, K (> 0)")
-	return cf
-}
-
-func (cf *coolFlags) set(name string) bool { return cf.fs.Changed(name) }
-
-// fractionValue parses --fraction.
-func (cf *coolFlags) fractionValue() (float64, error) {
-	X, err := strconv.ParseFloat(strings.TrimSpace(cf.fraction), 64)
-	if err != nil || !(X > 0 && X < 1) {
-		return 0, usagef("--fraction: %q is not a number strictly between 0 and 1", cf.fraction)
+	cf.fraction = addFraction(fs, false, "transformed fraction to stay below or to reach, strictly between 0 and 1 (1e-6: the usual detection limit)")
+	cf.end = addTemp(fs, e, "end", "end of linear cooling, K, C or F below Te (default: Tg where the card has one, else where the rest of the path adds less than 1e-6 of the extended volume)")
+	cf.volume = addVolume(fs, "a sample volume", "sample volume for the onset of nucleation (first nucleus expected), m3, mm3, uL, mL, L or um3 (> 0)")
+	cf.curve = addText(fs, "curve", "measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c), time strictly increasing")
+	cf.ccurve = &ccurveFlag{}
+	fs.Var(cf.ccurve, "c-curve", "Evancho-Staley C-curve constants k1=..,k2=..,k3=..,k4=..,k5=.. (k1 < 0 dimensionless, k2 s, k3 and k5 J/mol, k4 K) for the quench factor of --curve; default: the material's TTT curve")
+	cf.band = &quantityFlag{kind: units.TemperatureDifference, what: "a band width, K"}
+	if err := cf.band.Set("25K"); err != nil {
+		panic(err)
 	}
-	return X, nil
-}
-
-// rates parses --rate: one or more positive cooling rates in K/s.
-func (cf *coolFlags) rates() ([]float64, error) {
-	parts := strings.Split(cf.rate, ",")
-	last := strings.TrimSpace(parts[len(parts)-1])
-	_, unit := splitUnit(last)
-	var out []float64
-	for _, p := range parts {
-		s := strings.TrimSpace(p)
-		if n, u := splitUnit(s); u == "" && n != "" {
-			s += unit
-		}
-		q, err := units.Parse(s, units.CoolingRate)
-		if err != nil {
-			return nil, usagef("--rate: %v", err)
-		}
-		if !(q > 0) {
-			return nil, usagef("--rate: %q must be positive (a cooling rate, K/s)", strings.TrimSpace(p))
-		}
-		out = append(out, q)
-	}
-	return out, nil
-}
-
-// splitUnit splits "10K/s" into "10" and "K/s".
-func splitUnit(s string) (num, unit string) {
-	i := strings.IndexFunc(s, func(r rune) bool {
-		return !(r >= '0' && r <= '9' || r == '.' || r == '+' || r == '-' || r == 'e' || r == 'E')
-	})
-	// an exponent 'e' followed by a letter is a unit, not an exponent
-	for i > 0 && (s[i-1] == 'e' || s[i-1] == 'E') {
-		i--
-	}
-	if i < 0 {
-		return s, ""
-	}
-	return s[:i], s[i:]
-}
-
-// volumeValue parses --volume (m³).
-func (cf *coolFlags) volumeValue() (float64, error) {
-	return parsePositive("volume", cf.volume, units.Volume, "a sample volume")
-}
-
-// bandValue parses --band (K).
-func (cf *coolFlags) bandValue() (float64, error) {
-	return parsePositive("band", cf.band, units.TemperatureDifference, "a band width, K")
-}
-
-// materialGiven reports whether the command line names a material or any
-// of its values.
-func materialGiven(fs *pflag.FlagSet, mf *materialFlags) bool {
-	if fs.Changed("material") || fs.Changed("driving") || fs.Changed("mobility") || fs.Changed("prefactor") {
-		return true
-	}
-	for k := range mf.values {
-		if fs.Changed(flagName(k)) {
-			return true
-		}
-	}
-	return false
-}
-
-func setupCool(fs *pflag.FlagSet) func(*env, []string) error {
-	mf := addMaterialFlags(fs)
-	cf := addCoolFlags(fs)
-	pf := addPlotFlag(fs, "draw the CCT curve for --fraction over the TTT curve, with the cooling lines of --rate,")
-	ff := addFormatFlag(fs)
-	sf := addSpreadFlags(fs)
-	return func(e *env, args []string) error {
-		if err := checkStart("cool", args, ff, sf); err != nil {
-			return err
-		}
-		X, err := cf.fractionValue()
-		if err != nil {
+	cf.band.set = false
+	fs.Var(cf.band, "band", "width of the temperature bands of the quench-factor table, K (> 0)")
+	cf.plot = addPlot(fs, "draw the CCT curve for --fraction over the TTT curve, with the cooling lines of --rate,")
+	cf.format = addFormat(fs)
+	cf.spread = addSpreadFlags(fs)
+	return func(args []string) error {
+		if err := start("cool", args, cf.spread); err != nil {
 			return err
 		}
 		switch {
-		case cf.critical && cf.set("rate"):
+		case cf.critical && cf.rate.set:
 			return usagef("--critical and --rate: give one or the other (--critical finds the rate; --rate uses the one you give)")
-		case cf.set("curve") && (cf.critical || cf.set("rate")):
+		case cf.curve.set && (cf.critical || cf.rate.set):
 			return usagef("--curve and --rate/--critical: give one path, a measured curve or linear cooling")
-		case !cf.set("curve") && !cf.critical && !cf.set("rate"):
+		case !cf.curve.set && !cf.critical && !cf.rate.set:
 			return usagef("cool: give --rate Q, --critical or --curve FILE.csv (see undercool cool --help)")
-		case cf.set("c-curve") && !cf.set("curve"):
+		case cf.ccurve.set && !cf.curve.set:
 			return usagef("--c-curve: the quench factor needs a measured path, give --curve FILE.csv")
-		case cf.set("end") && cf.set("curve"):
+		case cf.end.set && cf.curve.set:
 			return usagef("--end: applies to linear cooling; a measured curve ends where its file does")
 		}
-		var V float64
-		if cf.set("volume") {
-			if V, err = cf.volumeValue(); err != nil {
-				return err
-			}
-		}
-		band, err := cf.bandValue()
-		if err != nil {
-			return err
-		}
-		if err := pf.check(); err != nil {
-			return err
-		}
-		if cf.set("curve") {
-			if pf.wanted() {
+		if cf.curve.set {
+			if cf.plot.set {
 				return usagef("--plot: draws the CCT of linear cooling; it does not apply to --curve")
 			}
-			return runCurve(e, fs, mf, cf, ff.value, X, V, band, sf)
+			return cf.runCurve(e)
 		}
-		c, md, err := mf.model()
+		c, md, err := cf.mf.model()
 		if err != nil {
 			return err
 		}
-		if done, err := solutionCool(e, cf, pf, c, md, V, ff.value); done { // solution_cool.go
-			return err
-		}
-		if err := coolError(md); err != nil {
-			return err
-		}
-		end := 0.0
-		if cf.set("end") {
-			if end, err = parseTemp(e, "end", cf.end); err != nil {
-				return err
-			}
-			if !(end < md.Material().Te) {
-				return usagef("--end: %s is not below the equilibrium temperature %.2f K", cf.end, md.Material().Te)
-			}
-		}
-		var rates []float64
-		if cf.set("rate") {
-			if rates, err = cf.rates(); err != nil {
-				return err
-			}
-		}
-		cl, err := md.LinearCooling(end)
-		if err != nil {
-			return fmt.Errorf("cool: %v", err)
-		}
-		about, inputs := describeCard(c, md)
-		lc := &linearCool{cl: cl, md: md, X: X, V: V, rates: rates, critical: cf.critical, name: c.Name}
-		r, err := lc.result(about, inputs)
+		mode, err := cf.linearMode(md)
 		if err != nil {
 			return err
 		}
-		heads, eval := coolHeadlines(end, X, V, rates, cf.critical)
-		if err := sf.apply(e, r, c, md, heads, eval, nil); err != nil {
-			return err
+		if mode == coolZone {
+			return cf.runZone(e, c, md)
 		}
-		return renderWithPlot(e, r, ff.value, pf, func() error { return lc.plot(pf) })
+		return cf.runLinear(e, c, md, mode)
 	}
 }
 
-// coolError turns a model that cannot give a fraction into a usage error.
-func coolError(md *kinetics.Model) error {
-	if !md.HasGrowth() {
-		return usagef("the material has no mobility law, so no growth rate and no transformed fraction: give --mobility with its values (--d0 and --q, or --vft-a, --vft-b and --vft-t0, or --tg)")
+// linearMode chooses between linear cooling and a metastable zone: a
+// solution cooled at given rates into a volume has a zone; a solution
+// without --volume has the transformed fraction of a melt when it has a
+// growth rate.
+func (cf *coolFlags) linearMode(md *kinetics.Model) (coolMode, error) {
+	sol, isSol := md.Solution()
+	switch {
+	case cf.critical:
+		return coolCritical, nil
+	case !isSol:
+		return coolRates, nil
+	case !cf.volume.set && md.HasGrowth():
+		return coolRates, nil // the transformed fraction on cooling, as for a melt
+	case !cf.volume.set:
+		return 0, usagef("--volume: required for a cooled solution: the metastable zone ends where the expected number of nuclei in the volume, V times the integral of J dt, reaches 1")
+	}
+	if _, fixed := sol.(cnt.Supersaturation); fixed {
+		return 0, usagef("cool: a fixed supersaturation does not change on cooling; the metastable zone width needs a solubility law: --sat-temp with --dh-sol, or a solubility table (--solubility FILE.csv with --conc)")
 	}
 	if !md.HasRate() {
-		return usagef("%v", kinetics.ErrNoRate)
+		return 0, usagef("the material has no nucleation rate, so no metastable zone: give --prefactor fixed with --j0 (the apparent A that fit induction gives), or a mobility law (--solvent-viscosity, --solute-diffusivity)")
 	}
-	return nil
+	return coolZone, nil
 }
 
-// endLine says where and why the linear path ends.
-func endLine(cl *kinetics.Cooling) string {
-	switch cl.Reason {
-	case kinetics.EndGlass:
-		return fmt.Sprintf("path: linear cooling from Te = %.2f K to Tg = %.2f K (below the glass transition the melt is frozen)", cl.Te, cl.End)
-	case kinetics.EndGiven:
-		return fmt.Sprintf("path: linear cooling from Te = %.2f K to %.2f K (--end)", cl.Te, cl.End)
-	default:
-		return fmt.Sprintf("path: linear cooling from Te = %.2f K to %.2f K, where the rest of the path adds less than %.0e of the extended volume", cl.Te, cl.End, kinetics.NegligibleRest)
+// runLinear answers linear cooling from T_e: at given rates, or the critical rate.
+func (cf *coolFlags) runLinear(e *env, c *presets.Card, md *kinetics.Model, mode coolMode) error {
+	switch {
+	case !md.HasGrowth():
+		return noMobility("transformed fraction")
+	case !md.HasRate():
+		return usage(kinetics.ErrNoRate)
+	case cf.end.set && !(cf.end.x < md.Te()):
+		return usagef("--end: %s is not below the equilibrium temperature %.2f K", cf.end.text, md.Te())
 	}
+	smp, err := cf.spread.sampling(e, c)
+	if err != nil {
+		return err
+	}
+	a, err := answer.Cool(answer.LinearInput{Card: c, Model: md, End: cf.end.x, X: cf.fraction.X[0], V: cf.volume.x,
+		Rates: cf.rate.q, Critical: mode == coolCritical, Sampling: smp, Names: flagNames})
+	if err != nil {
+		return err
+	}
+	return renderWithPlot(e, a, cf.format.value, cf.plot, func() error {
+		if cr, ok := a.(*answer.Critical); ok {
+			return cctPlot(cf.plot, cr.Path, md, cr.Name, cr.X, []float64{cr.Qc}, true, cr.Qc)
+		}
+		cct := a.(*answer.CCT)
+		return cctPlot(cf.plot, cct.Path, md, cct.Name, cct.X, cct.Rates, false, cct.Qc)
+	})
 }
 
-// transformLine names the transformation model of every cool result.
-const transformLine = "transformation: extended volume Xext = (4 pi/3) integral J(t') [integral u ds]^3 dt' (continuous nucleation at J(T), spherical growth at u(T)), X = 1 - exp(-Xext)"
+// curveColumns are the columns of a measured cooling curve.
+var curveColumns = []presets.Column{
+	{Quantity: "time", Kind: units.Time, Required: true},
+	{Quantity: "temperature", Kind: units.Temperature, Required: true},
+}
+
+// readCurve reads a measured curve and checks it as a path; errors name the
+// file and line.
+func readCurve(path string, e *env) (kinetics.Path, *presets.Data, error) {
+	d, err := presets.ReadDataFile(path, e.stdin, curveColumns)
+	if err != nil {
+		return kinetics.Path{}, nil, usagef("--curve: %v", err)
+	}
+	p, err := kinetics.NewPath(d.Columns["time"], d.Columns["temperature"])
+	if err != nil {
+		var pe *kinetics.PointError
+		if errors.As(err, &pe) {
+			return kinetics.Path{}, nil, usagef("--curve: %s:%d: %s (time must increase strictly from row to row)", d.File, d.Lines[pe.Index], pe.Msg)
+		}
+		return kinetics.Path{}, nil, usagef("--curve: %s: %v", d.File, err)
+	}
+	return p, d, nil
+}
+
+// runCurve answers a measured curve.
+func (cf *coolFlags) runCurve(e *env) error {
+	withMaterial := cf.mf.given() != ""
+	switch {
+	case !withMaterial && !cf.ccurve.set:
+		return usagef("--curve: needs --material (for the fraction and the additivity sum) or --c-curve (for a quench factor alone)")
+	case !withMaterial && cf.volume.set:
+		return usagef("--volume: the onset of nucleation needs --material")
+	}
+	p, d, err := readCurve(cf.curve.text, e)
+	if err != nil {
+		return err
+	}
+	in := answer.CurveInput{Path: p, Data: d, X: cf.fraction.X[0], V: cf.volume.x, Band: cf.band.x, CCurve: cf.ccurve.c}
+	if withMaterial {
+		if in.Card, in.Model, err = cf.mf.model(); err != nil {
+			return err
+		}
+		switch md := in.Model; {
+		case !md.HasGrowth():
+			return noMobility("transformed fraction")
+		case !md.HasRate():
+			return usage(kinetics.ErrNoRate)
+		}
+		if in.Sampling, err = cf.spread.sampling(e, in.Card); err != nil {
+			return err
+		}
+	}
+	a, err := answer.Curves(in)
+	if errors.Is(err, kinetics.ErrTooManyBands) {
+		return usagef("--band: %g K over a curve spanning %.2f K gives more than %d bands; use a wider band", cf.band.x, floats.Max(p.Temp)-floats.Min(p.Temp), kinetics.MaxBands)
+	}
+	if err != nil {
+		return err
+	}
+	return render(e.stdout, cf.format.value, a)
+}
+
+// runZone answers the metastable zone of a cooled solution.
+func (cf *coolFlags) runZone(e *env, c *presets.Card, md *kinetics.Model) error {
+	a, err := answer.Zones(answer.ZoneInput{Card: c, Model: md, V: cf.volume.x, VolumeText: cf.volume.text, Rates: cf.rate.q,
+		End: cf.end.x, EndText: cf.end.text, Names: flagNames})
+	if err != nil {
+		return err
+	}
+	var notes []string
+	if cf.plot.set {
+		var pts plotter.XYs
+		for _, r := range a.Rows {
+			if w := float64(r.Width); !math.IsNaN(w) {
+				pts = append(pts, plotter.XY{X: float64(r.RateMin), Y: w})
+			}
+		}
+		if len(pts) == 0 {
+			return usagef("--plot: no rate reaches an onset on this path; nothing to draw")
+		}
+		if err := zonePlot(cf.plot, c.Name, pts); err != nil {
+			return err
+		}
+		notes = append(notes, "plot written: "+cf.plot.path)
+	}
+	return render(e.stdout, cf.format.value, annotated{a, notes})
+}
+
+// annotated is an answer with notes of the command's own (files written).
+type annotated struct {
+	answer.Answer
+	notes []string
+}
+
+func (a annotated) Doc() answer.Doc {
+	d := a.Answer.Doc()
+	d.Notes = append(d.Notes, a.notes...)
+	return d
+}
+
+func (a annotated) MarshalJSON() ([]byte, error) { return json.Marshal(a.Answer) }
+
+// cctPlotRates is the number of rates the CCT curve of a plot is drawn with.
+const cctPlotRates = 120
+
+// cctPlot draws the TTT curve for X with the CCT curve over it: for rates
+// spread over eight decades below the critical rate qc, where linear
+// cooling reaches X; and the cooling lines of the given rates.
+func cctPlot(pf *plotFlag, cl *kinetics.Cooling, md *kinetics.Model, name string, X float64, rates []float64, critical bool, qc float64) error {
+	if !(qc > 0) {
+		return usagef("--plot: nothing to draw: nothing nucleates on the path")
+	}
+	lo, hi := cl.End, cl.Te*(1-1e-4)
+	temps := answer.Spread(hi, lo, plotPoints)
+	ttt, err := md.TTT(temps, []float64{X}, kinetics.JMAK{}, lo, hi)
+	if err != nil {
+		return err
+	}
+	fig := &tttFigure{
+		title:     fmt.Sprintf("CCT over TTT, %s: X = %s", name, answer.FracLabel(X)),
+		fractions: []float64{X},
+		T:         temps,
+		te:        md.Te(),
+		tg:        md.Material().Tg,
+	}
+	fig.times = make([][]float64, len(temps))
+	for i := range temps {
+		t, _ := answer.Seconds(ttt.LnTime[i][0])
+		fig.times[i] = []float64{t}
+	}
+	if n := ttt.Noses[0]; n.Inside() {
+		t, _ := answer.Seconds(n.LnTime)
+		fig.noses = [][2]float64{{n.T, t}}
+	}
+	p, err := fig.plot()
+	if err != nil {
+		return err
+	}
+	var cct plotter.XYs
+	for i := 0; i < cctPlotRates; i++ {
+		q := qc * math.Pow(10, -8*float64(i)/(cctPlotRates-1))
+		if pt := cl.Reach(q, X); pt.Reached && finitePositive(pt.Time) {
+			cct = append(cct, plotter.XY{X: pt.Time, Y: pt.Temp})
+		}
+	}
+	return drawCCT(pf, p, fig, cl, cct, X, rates, critical)
+}

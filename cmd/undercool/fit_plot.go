@@ -4,13 +4,14 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"undercool/presets/answer"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
-	"undercool/kinetics"
+	"undercool/kinetics/fit"
 )
 
 // inverseTempTicks label an axis of 1000/T (1/K) with the value and the
@@ -31,12 +32,12 @@ func (inverseTempTicks) Ticks(lo, hi float64) []plot.Tick {
 func dataAndLine(p *plot.Plot, pts, line plotter.XYs, dataName, lineName string) error {
 	s, err := plotter.NewScatter(pts)
 	if err != nil {
-		return fmt.Errorf("--plot: %v", err)
+		return placef("--plot: %v", err)
 	}
 	s.GlyphStyle = draw.GlyphStyle{Color: curveColor(0), Radius: vg.Points(3), Shape: draw.CircleGlyph{}}
 	l, err := plotter.NewLine(line)
 	if err != nil {
-		return fmt.Errorf("--plot: %v", err)
+		return placef("--plot: %v", err)
 	}
 	l.Color = curveColor(1)
 	l.Width = vg.Points(1.5)
@@ -47,8 +48,8 @@ func dataAndLine(p *plot.Plot, pts, line plotter.XYs, dataName, lineName string)
 	return nil
 }
 
-// fitPlot draws a fitted straight line over its range of x, on n points.
-func fitPlot(lo, hi float64, n int, at func(x float64) (float64, bool)) plotter.XYs {
+// fittedLine draws a fitted line over its range of x, on n points.
+func fittedLine(lo, hi float64, n int, at func(x float64) (float64, bool)) plotter.XYs {
 	var out plotter.XYs
 	for i := range n {
 		x := lo + (hi-lo)*float64(i)/float64(n-1)
@@ -68,9 +69,24 @@ func span(xs []float64) (lo, hi float64) {
 	return lo - pad, hi + pad
 }
 
+// fitPlot draws the data and the fit of an answer of fit.
+func fitPlot(pf *plotFlag, a answer.Answer) error {
+	switch a := a.(type) {
+	case *answer.FitArrhenius:
+		return arrheniusPlot(pf, a.Data.Name(), a.Inputs.Quantity, a.AUnit, a.T, a.Y, a.Fit)
+	case *answer.FitInterface:
+		return interfacePlot(pf, a.Data.Name(), a.T, a.LnJ, a.Fit)
+	case *answer.FitAvrami:
+		return avramiPlot(pf, a.Data.Name(), a.Time, a.X, a.Fit)
+	case *answer.FitInduction:
+		return inductionPlot(pf, a.Data.Name(), a.Times, a.Fit)
+	}
+	panic(fmt.Sprintf("undercool: fitPlot: %T", a))
+}
+
 // arrheniusPlot is y on a log axis against 1000/T, with the temperature in
 // kelvin under each tick.
-func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit *kinetics.ArrheniusFit) error {
+func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, res *fit.ArrheniusFit) error {
 	x := make([]float64, len(T))
 	pts := make(plotter.XYs, len(T))
 	for i, t := range T {
@@ -78,8 +94,8 @@ func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit 
 		pts[i] = plotter.XY{X: x[i], Y: y[i]}
 	}
 	lo, hi := span(x)
-	line := fitPlot(lo, hi, 50, func(x float64) (float64, bool) {
-		return math.Exp(fit.Line.At(x / 1000)), true
+	line := fittedLine(lo, hi, 50, func(x float64) (float64, bool) {
+		return math.Exp(res.Line.At(x / 1000)), true
 	})
 	p := plot.New()
 	p.Title.Text = "Arrhenius fit, " + file
@@ -89,29 +105,29 @@ func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, fit 
 	p.Y.Scale = plot.LogScale{}
 	p.Y.Tick.Marker = decadeTicks{}
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", fit.Q/1e3)); err != nil {
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", res.Q/1e3)); err != nil {
 		return err
 	}
 	return savePlots(pf.path, pf.format, p)
 }
 
 // avramiPlot is the linearized plot, ln(−ln(1−X)) against ln t, of the points used.
-func avramiPlot(pf *plotFlag, file string, t, X []float64, fit *kinetics.AvramiFit) error {
+func avramiPlot(pf *plotFlag, file string, t, X []float64, res *fit.AvramiFit) error {
 	var pts plotter.XYs
 	var xs []float64
-	for _, i := range fit.Used {
+	for _, i := range res.Used {
 		lx := math.Log(t[i])
 		pts = append(pts, plotter.XY{X: lx, Y: math.Log(-math.Log1p(-X[i]))})
 		xs = append(xs, lx)
 	}
 	lo, hi := span(xs)
-	line := fitPlot(lo, hi, 2, func(x float64) (float64, bool) { return fit.Line.At(x), true })
+	line := fittedLine(lo, hi, 2, func(x float64) (float64, bool) { return res.Line.At(x), true })
 	p := plot.New()
 	p.Title.Text = "Avrami fit, " + file
 	p.X.Label.Text = "ln(t / 1 s)"
 	p.Y.Label.Text = "ln(-ln(1 - X))"
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data used", fmt.Sprintf("fit, n = %.4g", fit.N)); err != nil {
+	if err := dataAndLine(p, pts, line, "data used", fmt.Sprintf("fit, n = %.4g", res.N)); err != nil {
 		return err
 	}
 	return savePlots(pf.path, pf.format, p)
@@ -119,15 +135,15 @@ func avramiPlot(pf *plotFlag, file string, t, X []float64, fit *kinetics.AvramiF
 
 // interfacePlot is two panels: log10 J measured and fitted against T, and
 // the classical straight line.
-func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.InterfaceFit) error {
+func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, res *fit.InterfaceFit) error {
 	pts := make(plotter.XYs, len(T))
 	for i, t := range T {
 		pts[i] = plotter.XY{X: t, Y: lnJ[i] / math.Ln10}
 	}
 	lo, hi := span(T)
-	line := fitPlot(lo, hi, 60, func(t float64) (float64, bool) {
-		l := fit.Model.LnJ(t)
-		return (l + fit.LnScale) / math.Ln10, !math.IsInf(l, 0)
+	line := fittedLine(lo, hi, 60, func(t float64) (float64, bool) {
+		l := res.Model.LnJ(t)
+		return (l + res.LnScale) / math.Ln10, !math.IsInf(l, 0)
 	})
 	p := plot.New()
 	p.Title.Text = "interfacial energy fit, " + file
@@ -135,17 +151,17 @@ func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.In
 	p.Y.Label.Text = "log10 J (m^-3 s^-1)"
 	p.X.Tick.Marker = plainTicks{}
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g J/m2", fit.Gamma)); err != nil {
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g J/m2", res.Gamma)); err != nil {
 		return err
 	}
 	plots := []*plot.Plot{p}
-	if fit.Linear != nil {
+	if res.Linear != nil {
 		cp := make(plotter.XYs, len(T))
 		for i := range T {
-			cp[i] = plotter.XY{X: fit.LinearX[i] * 1e20, Y: fit.LinearY[i]}
+			cp[i] = plotter.XY{X: res.LinearX[i] * 1e20, Y: res.LinearY[i]}
 		}
-		xlo, xhi := span(fit.LinearX)
-		cl := fitPlot(xlo, xhi, 2, func(x float64) (float64, bool) { return fit.Linear.At(x), true })
+		xlo, xhi := span(res.LinearX)
+		cl := fittedLine(xlo, xhi, 2, func(x float64) (float64, bool) { return res.Linear.At(x), true })
 		for i := range cl {
 			cl[i].X *= 1e20
 		}
@@ -153,13 +169,13 @@ func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.In
 		q.Title.Text = "classical plot (for comparison)"
 		q.X.Label.Text = "1e20/(T dg_v^2) (m6/(J2 K))"
 		q.Y.Label.Text = "ln J - ln D"
-		if fit.Model.Material().Mobility == nil {
+		if res.Model.Material().Mobility == nil {
 			q.Y.Label.Text = "ln J"
 		}
 		q.X.Min, q.X.Max = xlo*1e20, xhi*1e20
 		name := "straight line"
-		if !math.IsNaN(fit.LinearGamma) {
-			name = fmt.Sprintf("straight line, gamma = %.4g J/m2", fit.LinearGamma)
+		if !math.IsNaN(res.LinearGamma) {
+			name = fmt.Sprintf("straight line, gamma = %.4g J/m2", res.LinearGamma)
 		}
 		if err := dataAndLine(q, cp, cl, "data", name); err != nil {
 			return err
@@ -167,4 +183,29 @@ func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, fit *kinetics.In
 		plots = append(plots, q)
 	}
 	return savePlots(pf.path, pf.format, plots...)
+}
+
+// inductionPlot is the induction time on a log axis against 1/(T³·ln²S),
+// with the fitted straight line.
+func inductionPlot(pf *plotFlag, file string, t []float64, res *fit.InductionFit) error {
+	pts := make(plotter.XYs, len(t))
+	for i := range t {
+		pts[i] = plotter.XY{X: res.X[i] * 1e8, Y: t[i]}
+	}
+	lo, hi := span(res.X)
+	line := fittedLine(lo, hi, 50, func(x float64) (float64, bool) { return math.Exp(res.Line.At(x)), true })
+	for i := range line {
+		line[i].X *= 1e8
+	}
+	p := plot.New()
+	p.Title.Text = "induction times, " + file
+	p.X.Label.Text = "1/(T^3 ln^2 S) (1e-8 K^-3)"
+	p.Y.Label.Text = "induction time (s), log scale"
+	p.Y.Scale = plot.LogScale{}
+	p.Y.Tick.Marker = decadeTicks{}
+	p.X.Min, p.X.Max = lo*1e8, hi*1e8
+	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g mJ/m2", res.Gamma*1e3)); err != nil {
+		return err
+	}
+	return savePlots(pf.path, pf.format, p)
 }

@@ -64,7 +64,7 @@ func fuzzFlagNames(name string) []string {
 		return nil
 	}
 	fs := pflag.NewFlagSet(name, pflag.ContinueOnError)
-	cmd.setup(fs)
+	cmd.setup(fs, &env{})
 	var names []string
 	fs.VisitAll(func(f *pflag.Flag) { names = append(names, f.Name) })
 	sort.Strings(names)

@@ -9,6 +9,9 @@ import (
 	"strings"
 
 	"github.com/spf13/pflag"
+
+	"undercool/presets"
+	"undercool/presets/answer"
 )
 
 func main() {
@@ -20,6 +23,7 @@ type env struct {
 	stdin          io.Reader
 	stdout, stderr io.Writer
 	notes          []string // printed on stderr once the command succeeds
+	finish         []func() // run when the command returns (a progress bar clears its line)
 }
 
 // note keeps a one-line remark for stderr: the result stands, but the
@@ -29,31 +33,69 @@ func (e *env) note(format string, a ...any) {
 	e.notes = append(e.notes, fmt.Sprintf("undercool: note: "+format+"\n", a...))
 }
 
-// command is one subcommand: its flags are set up by setup, its work done by run.
+// command is one subcommand: setup declares its flags and returns the
+// work, run once the flags are parsed.
 type command struct {
 	summary string
 	usage   string // "undercool rate [flags]"
 	example string
-	setup   func(fs *pflag.FlagSet) func(e *env, args []string) error
+	setup   func(fs *pflag.FlagSet, e *env) func(args []string) error
 }
 
 // commands is filled by each command's file in an init function.
 var commands = map[string]*command{}
 
 // usageError is bad usage or bad input: exit status 2.
-type usageError struct{ msg string }
+type usageError struct{ err error }
 
-func (e *usageError) Error() string { return e.msg }
+func (e *usageError) Error() string { return e.err.Error() }
+func (e *usageError) Unwrap() error { return e.err }
 
-func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(format, a...)} }
+func usagef(format string, a ...any) error { return &usageError{fmt.Errorf(format, a...)} }
 
-// exitCode maps an error to the exit status: 2 for bad input, 1 for a failed computation.
-func exitCode(err error) int {
-	var u *usageError
-	if errors.As(err, &u) {
-		return 2
+// usage marks an error of the input as bad usage.
+func usage(err error) error { return &usageError{err} }
+
+// placed is a failed computation that names its place, a flag or a file,
+// rather than the command: a figure that cannot be drawn, a file that
+// cannot be written.
+type placed struct{ msg string }
+
+func (e *placed) Error() string { return e.msg }
+
+func placef(format string, a ...any) error { return &placed{fmt.Sprintf(format, a...)} }
+
+// explain turns an error into the one line the user reads, and its exit
+// status: the errors of the library that carry an input's name (a missing
+// card value, an input that does not fit, a data file) are bad input and
+// name the flag that gives it; a failed computation names its place (a
+// flag, a file) or else the command. This is the one place a key becomes
+// a flag, and the one rule for how a message begins.
+func explain(cmd string, err error) (string, int) {
+	var (
+		missing *presets.MissingError
+		input   *answer.InputError
+		data    *answer.BadData
+		many    *answer.TooManyError
+		draws   *answer.SamplingError
+		u       *usageError
+		p       *placed
+	)
+	switch {
+	case errors.As(err, &input):
+		return fmt.Sprintf("%s: %v", flagNames(input.Input), input.Err), 2
+	case errors.As(err, &many):
+		return fmt.Sprintf("--samples: %v; use fewer samples or fewer rows", many), 2
+	case errors.As(err, &draws):
+		return fmt.Sprintf("--spread: %v", draws), 2
+	case errors.As(err, &missing):
+		return fmt.Sprintf("%v; give it in the card or with %s", err, flagNames(missing.Key)), 2
+	case errors.As(err, &data), errors.As(err, &u):
+		return err.Error(), 2
+	case errors.As(err, &p):
+		return err.Error(), 1
 	}
-	return 1
+	return cmd + ": " + err.Error(), 1
 }
 
 func commandNames() []string {
@@ -67,10 +109,9 @@ func commandNames() []string {
 
 // run is the whole program; it returns the exit status.
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	fail := func(err error) int {
-		msg := strings.ReplaceAll(err.Error(), "\n", " ")
-		fmt.Fprintf(stderr, "undercool: %s\n", msg)
-		return exitCode(err)
+	fail := func(msg string, code int) int {
+		fmt.Fprintf(stderr, "undercool: %s\n", strings.ReplaceAll(msg, "\n", " "))
+		return code
 	}
 	if len(args) == 0 {
 		fmt.Fprint(stderr, manual())
@@ -88,25 +129,42 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	}
 	cmd, ok := commands[name]
 	if !ok {
-		return fail(usagef("unknown command %q (commands: %s; see undercool --help)", name, strings.Join(commandNames(), ", ")))
+		return fail(fmt.Sprintf("unknown command %q (commands: %s; see undercool --help)", name, strings.Join(commandNames(), ", ")), 2)
 	}
 	fs := pflag.NewFlagSet(name, pflag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	fs.SortFlags = false
-	do := cmd.setup(fs)
+	e := &env{stdin: stdin, stdout: stdout, stderr: stderr}
+	do := cmd.setup(fs, e)
 	if err := fs.Parse(args[1:]); err != nil {
-		if errors.Is(err, pflag.ErrHelp) {
+		var bad *pflag.InvalidValueError
+		var v *valueError
+		switch {
+		case errors.Is(err, pflag.ErrHelp):
 			fmt.Fprintf(stdout, "%s\n\n%s\n\nFlags:\n%s\nExample:\n  %s\n", cmd.usage, cmd.summary, fs.FlagUsages(), cmd.example)
 			return 0
+		case errors.As(err, &bad) && errors.As(err, &v):
+			return fail(fmt.Sprintf("--%s: %v", bad.GetFlag().Name, v), 2)
 		}
-		return fail(usagef("%s: %v (see undercool %s --help)", name, err, name))
+		return fail(fmt.Sprintf("%s: %v (see undercool %s --help)", name, err, name), 2)
 	}
-	e := &env{stdin: stdin, stdout: stdout, stderr: stderr}
-	if err := do(e, fs.Args()); err != nil {
-		return fail(err)
+	err := do(fs.Args())
+	for _, f := range e.finish {
+		f()
+	}
+	if err != nil {
+		return fail(explain(name, err))
 	}
 	for _, n := range e.notes {
 		fmt.Fprint(stderr, n)
 	}
 	return 0
+}
+
+// noArgs rejects arguments to a command that takes none.
+func noArgs(name string, args []string) error {
+	if len(args) > 0 {
+		return usagef("%s: unexpected argument %q", name, args[0])
+	}
+	return nil
 }

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"fmt"
 	"io"
 	"os"
 	"path/filepath"
@@ -25,14 +24,14 @@ func writeFileAtomic(path string, write func(io.Writer) error) error {
 	// CreateTemp makes the file private (0600); an output is an ordinary file.
 	if err := tmp.Chmod(0o644); err != nil {
 		tmp.Close()
-		return fmt.Errorf("cannot write %s: %v", path, err)
+		return placef("cannot write %s: %v", path, err)
 	}
 	if err := tmp.Sync(); err != nil {
 		tmp.Close()
-		return fmt.Errorf("cannot write %s: %v", path, err)
+		return placef("cannot write %s: %v", path, err)
 	}
 	if err := tmp.Close(); err != nil {
-		return fmt.Errorf("cannot write %s: %v", path, err)
+		return placef("cannot write %s: %v", path, err)
 	}
 	if err := os.Rename(name, path); err != nil {
 		return usagef("cannot write %s: %v", path, unwrapPath(err))

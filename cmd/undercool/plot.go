@@ -10,12 +10,14 @@ import (
 	"strconv"
 	"strings"
 
+	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
 	"undercool/kinetics"
+	"undercool/presets/answer"
 )
 
 // Plot files: what --plot accepts and how big a figure is.
@@ -26,31 +28,43 @@ const (
 	plotPanelHeight = 10 * vg.Centimeter
 )
 
-// checkPlotPath checks a --plot path before any work is done: the extension
-// must be .svg or .png and the directory must exist. It returns the format
-// name ("svg" or "png"). The file itself is written later, whole or not at
-// all, by savePlots.
-func checkPlotPath(flag, path string) (string, error) {
-	ext := strings.ToLower(filepath.Ext(path))
+// checkPlotPath checks a plot's path before any work is done: the
+// extension must be .svg or .png and the directory must exist. It returns
+// the format name ("svg" or "png"). The file itself is written later,
+// whole or not at all, by savePlots.
+func checkPlotPath(path string) (string, error) {
+	ext := strings.ToLower(extension(path))
 	if !contains(plotFormats, ext) {
-		return "", usagef("--%s: %q: unsupported plot file type %q (use .svg or .png)", flag, path, filepath.Ext(path))
+		return "", bad("%q: unsupported plot file type %q (use .svg or .png)", path, extension(path))
 	}
 	if filepath.Base(path) == ext {
-		return "", usagef("--%s: %q has no file name", flag, path)
+		return "", bad("%q has no file name", path)
 	}
-	dir := filepath.Dir(path)
-	st, err := os.Stat(dir)
-	if err != nil {
-		return "", usagef("--%s: cannot write %s: directory %s: %v", flag, path, dir, unwrapPath(err))
-	}
-	if !st.IsDir() {
-		return "", usagef("--%s: cannot write %s: %s is not a directory", flag, path, dir)
-	}
-	if st, err := os.Stat(path); err == nil && st.IsDir() {
-		return "", usagef("--%s: cannot write %s: it is a directory", flag, path)
+	if err := checkDir(path); err != nil {
+		return "", err
 	}
 	return ext[1:], nil
 }
+
+// checkDir checks that a file can be made at path: its directory exists
+// and it is not itself a directory.
+func checkDir(path string) error {
+	dir := filepath.Dir(path)
+	st, err := os.Stat(dir)
+	if err != nil {
+		return bad("cannot write %s: directory %s: %v", path, dir, unwrapPath(err))
+	}
+	if !st.IsDir() {
+		return bad("cannot write %s: %s is not a directory", path, dir)
+	}
+	if st, err := os.Stat(path); err == nil && st.IsDir() {
+		return bad("cannot write %s: it is a directory", path)
+	}
+	return nil
+}
+
+// extension is the extension of a file name, with its dot.
+func extension(path string) string { return filepath.Ext(path) }
 
 // savePlots draws the plots as panels stacked top to bottom on one figure
 // and writes it to path in the given format, whole or not at all.
@@ -58,7 +72,7 @@ func savePlots(path, format string, plots ...*plot.Plot) error {
 	h := plotPanelHeight * vg.Length(len(plots))
 	c, err := draw.NewFormattedCanvas(plotWidth, h, format)
 	if err != nil {
-		return fmt.Errorf("plot: %v", err)
+		return placef("--plot: %v", err)
 	}
 	dc := draw.New(c)
 	if len(plots) == 1 {
@@ -215,7 +229,7 @@ func (f *tttFigure) plot() (*plot.Plot, error) {
 		}
 	}
 	if math.IsInf(tmin, 1) {
-		return nil, fmt.Errorf("--plot: nothing to draw: no finite time in the temperature range (nothing transforms there)")
+		return nil, placef("--plot: nothing to draw: no finite time in the temperature range (nothing transforms there)")
 	}
 	tmax = math.Min(tmax, tmin*math.Pow(10, tttMaxDecades))
 	xmin, xmax := tmin/3, tmax*3
@@ -235,7 +249,7 @@ func (f *tttFigure) plot() (*plot.Plot, error) {
 		}
 		l, err := plotter.NewLine(pts)
 		if err != nil {
-			return nil, fmt.Errorf("--plot: %v", err)
+			return nil, placef("--plot: %v", err)
 		}
 		l.Color = curveColor(k)
 		l.Width = vg.Points(1.5)
@@ -249,16 +263,16 @@ func (f *tttFigure) plot() (*plot.Plot, error) {
 		}
 		s, err := plotter.NewScatter(plotter.XYs{{X: n[1], Y: n[0]}})
 		if err != nil {
-			return nil, fmt.Errorf("--plot: %v", err)
+			return nil, placef("--plot: %v", err)
 		}
 		s.GlyphStyle = draw.GlyphStyle{Color: curveColor(k), Radius: vg.Points(3.5), Shape: draw.CircleGlyph{}}
 		p.Add(s)
 		switch {
 		case len(f.fractions) == 1:
-			p.Legend.Add(fmt.Sprintf("nose %.1f K, %s", n[0], readableTime(n[1])), s)
+			p.Legend.Add(fmt.Sprintf("nose %.1f K, %s", n[0], answer.ReadableTime(n[1])), s)
 			entries++
 		case k == 0:
-			p.Legend.Add(fmt.Sprintf("nose of X = %s: %.1f K, %s", strconv.FormatFloat(f.fractions[0], 'g', 4, 64), n[0], readableTime(n[1])), s)
+			p.Legend.Add(fmt.Sprintf("nose of X = %s: %.1f K, %s", strconv.FormatFloat(f.fractions[0], 'g', 4, 64), n[0], answer.ReadableTime(n[1])), s)
 			entries++
 		}
 	}
@@ -321,7 +335,7 @@ func (f *rateFigure) plots() ([]*plot.Plot, error) {
 		}
 	}
 	if len(jpts) == 0 && len(upts) == 0 {
-		return nil, fmt.Errorf("--plot: nothing to draw: no finite rate in the temperature range")
+		return nil, placef("--plot: nothing to draw: no finite rate in the temperature range")
 	}
 	var out []*plot.Plot
 	panel := func(title, ylabel string, pts plotter.XYs, c color.Color) (*plot.Plot, error) {
@@ -334,7 +348,7 @@ func (f *rateFigure) plots() ([]*plot.Plot, error) {
 		p.Add(plotter.NewGrid())
 		l, err := plotter.NewLine(pts)
 		if err != nil {
-			return nil, fmt.Errorf("--plot: %v", err)
+			return nil, placef("--plot: %v", err)
 		}
 		l.Color = c
 		l.Width = vg.Points(1.5)
@@ -393,19 +407,12 @@ func (f *rateFigure) plots() ([]*plot.Plot, error) {
 // temperatures spanning the table's, and writes the file. It is the
 // --plot of the rate command.
 func writeRatePlot(pf *plotFlag, name string, md *kinetics.Model, temps []float64) error {
-	if !pf.wanted() {
-		return nil
-	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, T := range temps {
-		lo, hi = math.Min(lo, T), math.Max(hi, T)
-	}
+	lo, hi := floats.Min(temps), floats.Max(temps)
 	if !(lo < hi) {
 		return usagef("--plot: a rate plot needs more than one temperature (give --range or several --temps)")
 	}
-	m := md.Material()
-	fig := &rateFigure{title: "nucleation and growth rates, " + name, te: m.Te, tg: m.Tg}
-	for _, T := range spread(hi, lo, plotPoints) {
+	fig := &rateFigure{title: "nucleation and growth rates, " + name, te: md.Te(), tg: md.Material().Tg}
+	for _, T := range answer.Spread(hi, lo, plotPoints) {
 		s := md.At(T)
 		fig.T = append(fig.T, T)
 		fig.log10J = append(fig.log10J, s.Log10J())
@@ -431,7 +438,7 @@ func addRefLines(p *plot.Plot, te, tg float64, seg func(T float64) plotter.XYs) 
 		}
 		l, err := plotter.NewLine(seg(r.T))
 		if err != nil {
-			return nil, fmt.Errorf("--plot: %v", err)
+			return nil, placef("--plot: %v", err)
 		}
 		l.Color = grey
 		l.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
@@ -440,4 +447,88 @@ func addRefLines(p *plot.Plot, te, tg float64, seg func(T float64) plotter.XYs) 
 		drawn = append(drawn, r.T)
 	}
 	return drawn, nil
+}
+
+// drawCCT finishes the figure of linear cooling: the CCT curve over the
+// TTT curve p, and the cooling lines of the rates (the critical one, with
+// critical), then writes the file.
+func drawCCT(pf *plotFlag, p *plot.Plot, fig *tttFigure, cl *kinetics.Cooling, cct plotter.XYs, X float64, rates []float64, critical bool) error {
+	xmin, xmax := p.X.Min, p.X.Max
+	var all plotter.XYs
+	for i := range fig.T {
+		if t := fig.times[i][0]; finitePositive(t) {
+			all = append(all, plotter.XY{X: t, Y: fig.T[i]})
+		}
+	}
+	all = append(all, cct...)
+	if len(cct) > 1 {
+		l, err := plotter.NewLine(cct)
+		if err != nil {
+			return placef("--plot: %v", err)
+		}
+		l.Color = curveColor(1)
+		l.Width = vg.Points(1.5)
+		p.Add(l)
+		p.Legend.Add("CCT, X = "+answer.FracLabel(X), l)
+		for _, q := range cct {
+			xmin, xmax = math.Min(xmin, q.X/3), math.Max(xmax, q.X*3)
+		}
+	}
+	for k, q := range rates {
+		// T = Te − q·t on a log time axis
+		var pts plotter.XYs
+		tEnd := (cl.Te - cl.End) / q
+		for i := 0; i <= 100; i++ {
+			t := xmin * math.Pow(xmax/xmin, float64(i)/100)
+			if t >= tEnd {
+				break
+			}
+			pts = append(pts, plotter.XY{X: t, Y: cl.Te - q*t})
+		}
+		if tEnd > xmin && tEnd < xmax {
+			pts = append(pts, plotter.XY{X: tEnd, Y: cl.End})
+		}
+		all = append(all, pts...)
+		if len(pts) < 2 {
+			continue
+		}
+		l, err := plotter.NewLine(pts)
+		if err != nil {
+			return placef("--plot: %v", err)
+		}
+		l.Color = curveColor(2 + k)
+		l.Dashes = []vg.Length{vg.Points(2), vg.Points(2)}
+		p.Add(l)
+		label := "cooling at " + answer.CoolingRateText(q)
+		if critical {
+			label = "critical rate " + answer.CoolingRateText(q)
+		}
+		p.Legend.Add(label, l)
+	}
+	p.X.Min, p.X.Max = xmin, xmax
+	placeLegend(p, all)
+	return savePlots(pf.path, pf.format, p)
+}
+
+// zonePlot draws the metastable zone width against the cooling rate, the
+// rate on a log axis.
+func zonePlot(pf *plotFlag, name string, pts plotter.XYs) error {
+	l, s, err := plotter.NewLinePoints(pts)
+	if err != nil {
+		return placef("--plot: %v", err)
+	}
+	l.Color, s.Color = curveColor(0), curveColor(0)
+	p := plot.New()
+	p.Title.Text = "metastable zone width, " + name
+	p.X.Label.Text = "cooling rate (K/min), log scale"
+	p.Y.Label.Text = "width T_sat - T_onset (K)"
+	p.X.Scale = plot.LogScale{}
+	p.X.Tick.Marker = plot.LogTicks{}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, q := range pts {
+		lo, hi = math.Min(lo, q.X), math.Max(hi, q.X)
+	}
+	p.X.Min, p.X.Max = lo/1.5, hi*1.5 // room for the decade labels at the ends
+	p.Add(plotter.NewGrid(), l, s)
+	return savePlots(pf.path, pf.format, p)
 }

@@ -26,6 +26,12 @@ type Kind struct {
 	fold  map[string]string // lower-case spelling → proper spelling
 }
 
+// CelsiusOffset is the kelvin value of 0 °C (exact by definition of the scale).
+const CelsiusOffset = 273.15 // K
+
+// Celsius is a temperature T in kelvin written in degrees Celsius.
+func Celsius(T float64) float64 { return T - CelsiusOffset }
+
 const (
 	eV      = 1.602176634e-19 // J, exact (SI 2019)
 	avog    = 6.02214076e23   // 1/mol, exact (SI 2019)
@@ -67,7 +73,7 @@ func (k Kind) lookup(u string) (unit, bool) {
 // each other.
 var (
 	Temperature = k("temperature", "K", true, map[string]unit{
-		"K": {1, 0}, "C": {1, 273.15}, "°C": {1, 273.15}, "degC": {1, 273.15},
+		"K": {1, 0}, "C": {1, CelsiusOffset}, "°C": {1, CelsiusOffset}, "degC": {1, CelsiusOffset},
 		"F": {5.0 / 9, 459.67}, "°F": {5.0 / 9, 459.67}, "degF": {5.0 / 9, 459.67},
 	})
 	TemperatureDifference = k("temperature difference", "K", true, map[string]unit{

@@ -1,0 +1,189 @@
+package main
+
+import (
+	"bytes"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// goldenDir holds the pinned outputs of every command and mode, refreshed with
+//
+//	go test ./cmd/undercool -run TestGolden -update
+//
+// A change to one of them is a change of behaviour: it must be meant, and
+// said so in the commit that makes it.
+const goldenDir = "../../testdata/golden"
+
+// goldenCases are the pinned runs: name (the file, whose extension is the
+// output's format) and arguments. Paths are relative to this directory, so
+// the outputs that name a file are the same in every checkout. Every
+// material is shipped or in testdata, and invented where it says so.
+var goldenCases = []struct {
+	name string
+	args []string
+}{
+	// rate
+	{"rate-demo.json", []string{"rate", "--material", "demo-alloy", "--format", "json"}},
+	{"rate-demo.txt", []string{"rate", "--material", "demo-alloy", "--range", "1100:700:100"}},
+	{"rate-demo.csv", []string{"rate", "--material", "demo-alloy", "--range", "1100:700:100", "--format", "csv"}},
+	{"rate-demo.md", []string{"rate", "--material", "demo-alloy", "--range", "1100:700:100", "--format", "markdown"}},
+	{"rate-ice.json", []string{"rate", "--material", "ice", "--range", "273:200:10", "--format", "json"}},
+	{"rate-fixed.json", []string{"rate", "--te", "1000", "--dh", "10kJ/mol", "--vm", "7cm3/mol", "--gamma", "0.1J/m2",
+		"--prefactor", "fixed", "--j0", "1e40", "--temps", "900,1000,1100", "--format", "json"}},
+	{"rate-nomobility.txt", []string{"rate", "--te", "1000", "--dh", "10kJ/mol", "--vm", "7cm3/mol", "--gamma", "0.1J/m2", "--temps", "900"}},
+	{"rate-hetero.json", []string{"rate", "--material", "demo-alloy", "--gamma", "118mJ/m2", "--theta", "90", "--sites", "1e20",
+		"--temps", "1000", "--format", "json"}},
+	{"rate-spread.json", []string{"rate", "--material", "demo-alloy", "--temps", "1000,900", "--spread", "gamma=2%",
+		"--spread", "q=3kJ/mol", "--spread", "d0=x2", "--samples", "200", "--format", "json"}},
+	{"rate-spread.txt", []string{"rate", "--material", "demo-alloy", "--temps", "1000,900", "--spread", "gamma=2%",
+		"--spread", "q=3kJ/mol", "--spread", "d0=x2", "--samples", "200"}},
+	// ttt
+	{"ttt-demo.json", []string{"ttt", "--material", "demo-alloy", "--format", "json"}},
+	{"ttt-demo.txt", []string{"ttt", "--material", "demo-alloy", "--range", "1100:700:50"}},
+	{"ttt-fractions.json", []string{"ttt", "--material", "demo-alloy", "--fraction", "0.01,0.5,0.99", "--range", "1100:700:50", "--format", "json"}},
+	{"ttt-fractions.txt", []string{"ttt", "--material", "demo-alloy", "--fraction", "0.01,0.5,0.99", "--range", "1100:700:50"}},
+	{"ttt-fractions.csv", []string{"ttt", "--material", "demo-alloy", "--fraction", "0.01,0.5,0.99", "--range", "1100:700:50", "--format", "csv"}},
+	{"ttt-lag.json", []string{"ttt", "--material", "demo-alloy", "--lag", "--format", "json"}},
+	{"ttt-nuclei.json", []string{"ttt", "--material", "demo-alloy", "--nuclei", "1e14", "--format", "json"}},
+	{"ttt-outside.json", []string{"ttt", "--material", "demo-alloy", "--range", "1100:1000:50", "--format", "json"}},
+	{"ttt-glass.json", []string{"ttt", "--material", "lithium-disilicate", "--format", "json"}},
+	{"ttt-spread.json", []string{"ttt", "--material", "demo-alloy", "--range", "1100:700:50", "--fraction", "0.01,0.5",
+		"--spread", "gamma=1%", "--spread", "d0=x2", "--samples", "100", "--format", "json"}},
+	// hold
+	{"hold-demo.json", []string{"hold", "--material", "demo-alloy", "--at", "800K", "--format", "json"}},
+	{"hold-demo.txt", []string{"hold", "--material", "demo-alloy", "--at", "800K"}},
+	{"hold-demo.csv", []string{"hold", "--material", "demo-alloy", "--at", "800K", "--format", "csv"}},
+	{"hold-lag.json", []string{"hold", "--material", "demo-alloy", "--at", "800K", "--lag", "--format", "json"}},
+	{"hold-nuclei.json", []string{"hold", "--material", "demo-alloy", "--at", "800K", "--nuclei", "1e18", "--format", "json"}},
+	{"hold-never.json", []string{"hold", "--material", "demo-alloy", "--at", "1200K", "--format", "json"}},
+	{"hold-never.txt", []string{"hold", "--material", "demo-alloy", "--at", "1200K"}},
+	{"hold-spread.json", []string{"hold", "--material", "demo-alloy", "--at", "900", "--spread", "gamma=2%", "--spread", "q=2%",
+		"--samples", "200", "--seed", "5", "--format", "json"}},
+	// hold of a solution: the induction time of a volume
+	{"hold-induction.json", []string{"hold", "--material", "../../testdata/solution/velsorin.toml", "--at", "25C",
+		"--supersaturation", "2", "--volume", "100mL", "--format", "json"}},
+	{"hold-induction.txt", []string{"hold", "--material", "../../testdata/solution/velsorin.toml", "--at", "25C",
+		"--supersaturation", "2", "--volume", "100mL"}},
+	{"hold-induction.csv", []string{"hold", "--material", "../../testdata/solution/velsorin.toml", "--at", "25C",
+		"--supersaturation", "2", "--volume", "100mL", "--format", "csv"}},
+	{"hold-induction-spread.json", []string{"hold", "--material", "paracetamol-acetone-water", "--at", "285", "--volume", "1mL",
+		"--prefactor", "fixed", "--j0", "1e20", "--spread", "gamma=5%", "--spread", "sat_temp=1K", "--samples", "100", "--format", "json"}},
+	// cool: linear cooling from Te
+	{"cool-rates.json", []string{"cool", "--material", "demo-alloy", "--rate", "1,10,100K/s", "--format", "json"}},
+	{"cool-rates.txt", []string{"cool", "--material", "demo-alloy", "--rate", "1,10,100K/s"}},
+	{"cool-rate-volume.json", []string{"cool", "--material", "demo-alloy", "--rate", "1K/s", "--volume", "1mm3", "--format", "json"}},
+	{"cool-rate-volume.txt", []string{"cool", "--material", "demo-alloy", "--rate", "1K/s", "--volume", "1mm3"}},
+	{"cool-rate-end.json", []string{"cool", "--material", "demo-alloy", "--rate", "1e4K/s", "--end", "585K", "--format", "json"}},
+	{"cool-critical.json", []string{"cool", "--material", "demo-alloy", "--critical", "--format", "json"}},
+	{"cool-critical.txt", []string{"cool", "--material", "demo-alloy", "--critical"}},
+	{"cool-critical.csv", []string{"cool", "--material", "demo-alloy", "--critical", "--format", "csv"}},
+	{"cool-critical-volume.json", []string{"cool", "--material", "demo-alloy", "--critical", "--volume", "1mm3", "--format", "json"}},
+	{"cool-critical-vit1.json", []string{"cool", "--material", "vit1", "--critical", "--format", "json"}},
+	{"cool-critical-spread.json", []string{"cool", "--material", "demo-alloy", "--critical", "--volume", "1mm3", "--spread", "gamma=2%",
+		"--spread", "d0=x2", "--samples", "100", "--format", "json"}},
+	{"cool-rates-spread.json", []string{"cool", "--material", "demo-alloy", "--rate", "1,100K/s", "--spread", "gamma=2%",
+		"--samples", "100", "--format", "json"}},
+	// cool: a measured curve
+	{"cool-curve.json", []string{"cool", "--material", "demo-alloy", "--curve", "../../testdata/curves/demo-quench.csv", "--format", "json"}},
+	{"cool-curve.txt", []string{"cool", "--material", "demo-alloy", "--curve", "../../testdata/curves/demo-quench.csv", "--volume", "1mm3"}},
+	{"cool-curve-volume.json", []string{"cool", "--material", "demo-alloy", "--curve", "../../testdata/curves/demo-quench.csv",
+		"--volume", "1mm3", "--format", "json"}},
+	{"cool-curve-ccurve.json", []string{"cool", "--curve", "../../testdata/curves/demo-plate-quench.csv",
+		"--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol", "--band", "50K", "--format", "json"}},
+	{"cool-curve-ccurve.csv", []string{"cool", "--curve", "../../testdata/curves/demo-plate-quench.csv",
+		"--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol", "--band", "50K", "--format", "csv"}},
+	{"cool-curve-spread.json", []string{"cool", "--material", "demo-alloy", "--curve", "../../testdata/curves/demo-quench.csv",
+		"--volume", "1mm3", "--spread", "gamma=2%", "--samples", "50", "--format", "json"}},
+	// cool: the metastable zone of a cooled solution
+	{"cool-zone.json", []string{"cool", "--material", "../../testdata/solution/velsorin.toml", "--rate", "0.1,0.5,2,10K/min",
+		"--volume", "100mL", "--format", "json"}},
+	{"cool-zone.txt", []string{"cool", "--material", "../../testdata/solution/velsorin.toml", "--rate", "0.1,0.5,2,10K/min",
+		"--volume", "100mL"}},
+	{"cool-zone-one.json", []string{"cool", "--material", "../../testdata/solution/velsorin.toml", "--rate", "0.5K/min",
+		"--volume", "100mL", "--format", "json"}},
+	{"cool-zone-table.json", []string{"cool", "--material", "../../testdata/solution/velsorin.toml", "--rate", "0.5K/min",
+		"--volume", "100mL", "--solubility", "../../testdata/solution/velsorin-solubility.csv", "--conc", "22g/kg", "--format", "json"}},
+	// solution rates
+	{"rate-solution.json", []string{"rate", "--material", "../../testdata/solution/velsorin.toml", "--temps", "30C,20C,10C", "--format", "json"}},
+	{"rate-solution.txt", []string{"rate", "--material", "../../testdata/solution/velsorin.toml", "--temps", "30C,20C,10C"}},
+	{"rate-solution-fixed.json", []string{"rate", "--material", "../../testdata/solution/velsorin.toml", "--supersaturation", "1.5",
+		"--temps", "25C", "--format", "json"}},
+	{"rate-paracetamol.json", []string{"rate", "--material", "paracetamol-acetone-water", "--temps", "20C,10C", "--format", "json"}},
+	// fit
+	{"fit-arrhenius.json", []string{"fit", "arrhenius", "../../testdata/fit/diffusion.csv", "--format", "json"}},
+	{"fit-arrhenius.txt", []string{"fit", "arrhenius", "../../testdata/fit/diffusion.csv"}},
+	{"fit-arrhenius.csv", []string{"fit", "arrhenius", "../../testdata/fit/diffusion.csv", "--format", "csv"}},
+	{"fit-interface.json", []string{"fit", "interface", "../../testdata/fit/nucleation-rates.csv", "--material", "demo-alloy", "--format", "json"}},
+	{"fit-interface.txt", []string{"fit", "interface", "../../testdata/fit/nucleation-rates.csv", "--material", "demo-alloy"}},
+	{"fit-avrami.json", []string{"fit", "avrami", "../../testdata/fit/crystallized-fraction.csv", "--format", "json"}},
+	{"fit-avrami.txt", []string{"fit", "avrami", "../../testdata/fit/crystallized-fraction.csv"}},
+	{"fit-induction.json", []string{"fit", "induction", "../../testdata/solution/velsorin-induction.csv",
+		"--material", "../../testdata/solution/velsorin.toml", "--volume", "100mL", "--format", "json"}},
+	{"fit-induction.txt", []string{"fit", "induction", "../../testdata/solution/velsorin-induction.csv",
+		"--material", "../../testdata/solution/velsorin.toml", "--volume", "100mL"}},
+	{"fit-induction-novolume.json", []string{"fit", "induction", "../../testdata/solution/velsorin-induction.csv",
+		"--vm", "120cm3/mol", "--format", "json"}},
+	// materials
+	{"materials.json", []string{"materials", "--format", "json"}},
+	{"materials.txt", []string{"materials"}},
+	{"materials-demo.json", []string{"materials", "demo-alloy", "--format", "json"}},
+	{"materials-demo.txt", []string{"materials", "demo-alloy"}},
+	{"materials-paracetamol.json", []string{"materials", "paracetamol-acetone-water", "--format", "json"}},
+	// report: the memo
+	{"report-demo.md", []string{"report", "--material", "demo-alloy", "--date", "2026-01-15", "--out", "-"}},
+	{"report-full.md", []string{"report", "--material", "demo-alloy", "--at", "900K", "--curve", "../../testdata/curves/demo-quench.csv",
+		"--volume", "1mm3", "--spread", "gamma=2%", "--spread", "d0=x2", "--samples", "100", "--date", "2026-01-15", "--out", "-"}},
+	{"report-glass.md", []string{"report", "--material", "lithium-disilicate", "--at", "750K", "--date", "2026-01-15", "--out", "-"}},
+	{"report-nuclei.md", []string{"report", "--material", "demo-alloy", "--nuclei", "1e12", "--date", "2026-01-15", "--out", "-"}},
+}
+
+// TestGolden runs every pinned case in-process and compares its standard
+// output with the golden file byte for byte.
+func TestGolden(t *testing.T) {
+	for _, c := range goldenCases {
+		t.Run(c.name, func(t *testing.T) {
+			var stdout, stderr bytes.Buffer
+			if code := run(c.args, nil, &stdout, &stderr); code != 0 {
+				t.Fatalf("exit %d: %s", code, stderr.String())
+			}
+			path := filepath.Join(goldenDir, c.name)
+			if *update {
+				if err := os.MkdirAll(goldenDir, 0o755); err != nil {
+					t.Fatal(err)
+				}
+				if err := os.WriteFile(path, stdout.Bytes(), 0o644); err != nil {
+					t.Fatal(err)
+				}
+				return
+			}
+			want, err := os.ReadFile(path)
+			if err != nil {
+				t.Fatalf("%v (create it with -update)", err)
+			}
+			if got := stdout.String(); got != string(want) {
+				t.Errorf("%s differs from %s:\n%s(refresh with -update only if the change is meant)", strings.Join(c.args, " "), path, firstDiff(got, string(want)))
+			}
+		})
+	}
+}
+
+// firstDiff shows the first line where got and want part.
+func firstDiff(got, want string) string {
+	g, w := strings.Split(got, "\n"), strings.Split(want, "\n")
+	for i := 0; i < len(g) || i < len(w); i++ {
+		var a, b string
+		if i < len(g) {
+			a = g[i]
+		}
+		if i < len(w) {
+			b = w[i]
+		}
+		if a != b {
+			return "line " + strconv.Itoa(i+1) + ":\n got: " + a + "\nwant: " + b + "\n"
+		}
+	}
+	return ""
+}

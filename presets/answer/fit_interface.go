@@ -1,0 +1,194 @@
+package answer
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"undercool/kinetics"
+	"undercool/kinetics/fit"
+	"undercool/presets"
+	"undercool/presets/units"
+)
+
+// InterfaceColumns are the columns of an interface fit's data.
+func InterfaceColumns() []presets.Column {
+	return []presets.Column{
+		{Quantity: "temperature", Kind: units.Temperature, Required: true},
+		{Quantity: "rate", Kind: units.RateDensity, Required: true},
+		WeightColumn,
+	}
+}
+
+// InterfaceInputs are the inputs of an interface fit: the material and the file.
+type InterfaceInputs struct {
+	Material
+	File     string `json:"data_file"`
+	Points   int    `json:"points"`
+	Weighted bool   `json:"weighted"`
+}
+
+// FitInterface is the interfacial energy and a prefactor scale fitted to
+// measured nucleation rates with the rest of the material held.
+type FitInterface struct {
+	Inputs InterfaceInputs `json:"inputs"`
+	Gamma
+	Scale     Num      `json:"prefactor_scale"`
+	ScaleCI   Interval `json:"prefactor_scale_ci95"`
+	LnScale   Num      `json:"ln_prefactor_scale"`
+	LnScaleSE Num      `json:"ln_prefactor_scale_se"`
+	Scatter
+	Slope       Num            `json:"classical_slope_k_j2_per_m6"`
+	LinearGamma Num            `json:"classical_gamma_j_per_m2"`
+	Sites       Num            `json:"fitted_sites_per_m3"`
+	J0          Num            `json:"fitted_j0_per_m3_s"`
+	Flags       []string       `json:"flags"`
+	Rows        []InterfaceRow `json:"rows"`
+
+	Fit      *fit.InterfaceFit `json:"-"`
+	T, LnJ   []float64         `json:"-"` // the points fitted: K and ln J
+	card     *presets.Card
+	Data     FitData `json:"-"`
+	names    Names
+	noMobLaw bool
+}
+
+// InterfaceRow is one measured rate with the fitted one.
+type InterfaceRow struct {
+	Line       string  `json:"line" col:"line"`
+	T          Num     `json:"temperature_k" col:"T (K),f2"`
+	TC         Num     `json:"temperature_c" col:"T (°C),f2"`
+	Log10J     Num     `json:"log10_rate_per_m3_s" col:"log10 J (m^-3 s^-1),f3"`
+	Fitted     Num     `json:"fitted_log10_rate_per_m3_s" col:"fitted,f3"`
+	Residual   Num     `json:"residual_log10" col:"residual (decades),f3"`
+	Size       Num     `json:"critical_size" col:"n*,g4"`
+	ClassicalX Num     `json:"classical_x_m6_per_k_j2" col:"1/(T dg_v^2) (K^-1 m6/J2),g5"`
+	ClassicalY Num     `json:"classical_y" col:"classical y,f4"`
+	Flags      Strings `json:"flags" col:"flags"`
+}
+
+// Interface fits γ and a prefactor scale to a file read with
+// InterfaceColumns, every other value from the card's model (which must
+// have a rate). Errors: the file's points (*BadData); a fit that finds no γ.
+func Interface(c *presets.Card, md *kinetics.Model, data FitData, names Names) (*FitInterface, error) {
+	d := data.Data
+	T := d.Columns["temperature"]
+	if err := data.positive("rate"); err != nil {
+		return nil, err
+	}
+	lnJ := make([]float64, len(T))
+	for i, j := range d.Columns["rate"] {
+		lnJ[i] = math.Log(j)
+	}
+	if err := data.aboveZero(); err != nil {
+		return nil, err
+	}
+	res, err := fit.Interface(md, T, lnJ, data.W)
+	if err != nil {
+		var pe *kinetics.PointError
+		if errors.As(err, &pe) || errors.Is(err, fit.ErrFewPoints) || len(T) < 2 || sameAll(T) {
+			return nil, badData(d, err)
+		}
+		return nil, fmt.Errorf("%s: %w", d.File, err)
+	}
+	m := Describe(c, md)
+	a := &FitInterface{
+		Inputs: InterfaceInputs{m, d.File, res.N, data.W != nil},
+		Gamma:  Gamma{Num(res.Gamma), Num(res.GammaSE), res.GammaCI},
+		Scale:  Num(res.Scale), ScaleCI: res.ScaleCI, LnScale: Num(res.LnScale), LnScaleSE: Num(res.LnScaleSE),
+		Scatter: scatterOf(res.R2, res.ResidualSD, res.DoF, res.T),
+		Slope:   Num(math.NaN()), LinearGamma: Num(res.LinearGamma), Sites: Num(math.NaN()), J0: Num(math.NaN()),
+		Flags: res.Flags.Keys(),
+		Fit:   res, T: T, LnJ: lnJ, card: c, Data: data, names: names, noMobLaw: md.Material().Mobility == nil,
+	}
+	if res.Linear != nil {
+		a.Slope = Num(res.Linear.Slope)
+	}
+	if f := res.Fitted(); f.Prefactor == kinetics.PrefactorFixed {
+		a.J0 = Num(f.J0)
+	} else {
+		a.Sites = Num(f.Sites)
+	}
+	for i, t := range T {
+		s := res.Model.At(t)
+		a.Rows = append(a.Rows, InterfaceRow{
+			fmt.Sprint(d.Lines[i]), Num(t), Num(units.Celsius(t)), Num(lnJ[i] / math.Ln10),
+			Num((lnJ[i] - res.Residuals[i]) / math.Ln10), Num(res.Residuals[i] / math.Ln10),
+			Num(s.Nucleus.Size), Num(res.LinearX[i]), Num(res.LinearY[i]), s.Flags.Keys(),
+		})
+	}
+	return a, nil
+}
+
+func sameAll(T []float64) bool {
+	for _, t := range T {
+		if t != T[0] {
+			return false
+		}
+	}
+	return true
+}
+
+// Doc is how the fit reads.
+func (a *FitInterface) Doc() Doc {
+	res := a.Fit
+	d := Doc{Title: "undercool fit interface: interfacial energy from measured nucleation rates"}
+	d.About = append(a.Inputs.About(), a.Data.line(res.N, "temperature", "rate"),
+		"fit: ln J_measured = ln A + ln J_model(T; gamma), least squares over gamma and A; every other value from the material (its gamma is only replaced)")
+	residual := ""
+	if !res.Exact() {
+		residual = fmt.Sprintf(" (%.3g decades)", res.ResidualSD/math.Ln10)
+	}
+	d.Summary = []string{
+		a.Gamma.text(5),
+		fmt.Sprintf("prefactor scale A = %s (the model's rate times A)%s", Sig(4)(res.Scale), spreadText(math.NaN(), res.ScaleCI, g(4), "")),
+		statsLine(res.N, res.DoF, res.R2, res.ResidualSD, "ln J") + residual,
+	}
+	if res.Linear != nil {
+		lg := "no gamma (the slope is not negative)"
+		if !math.IsNaN(res.LinearGamma) {
+			lg = fmt.Sprintf("gamma = %.4g J/m2", res.LinearGamma)
+		}
+		lhs := "ln J - ln D"
+		if a.noMobLaw {
+			lhs = "ln J"
+		}
+		d.Summary = append(d.Summary, fmt.Sprintf("classical plot (%s against 1/(T dg_v^2)): slope %.5g K J2/m6, %s; it leaves out the temperature dependence of the prefactor, for comparison only", lhs, res.Linear.Slope, lg))
+	}
+	d.Table = tableOf(a.Rows)
+	d.Notes = append(d.Notes, intervalNote(res.Exact(), "fit", res.T, res.DoF, ", SE from the Jacobian at the minimum (linear approximation); A's interval is exp of that of ln A"))
+	d.Notes = append(d.Notes, FlagNotes(res.Flags)...)
+	return fitDoc(d, a.Data, a.names)
+}
+
+// Card is the material card with the fitted gamma, and the prefactor
+// scale folded into the site density (or into j0 for a fixed prefactor).
+func (a *FitInterface) Card() (*presets.Card, []string, error) {
+	base, res, name := a.card, a.Fit, a.Data.Name()
+	c := base.Clone()
+	c.Name = base.Name + "-fit"
+	c.Description = fmt.Sprintf("%s (gamma and the prefactor scale fitted to %s)", base.Description, name)
+	src := fmt.Sprintf("undercool fit interface of %s, %d points, with the other values of %s", name, res.N, base.File)
+	gs := src
+	if !res.Exact() {
+		gs += fmt.Sprintf(", 95 %% interval %.5g to %.5g J/m2", res.GammaCI[0], res.GammaCI[1])
+	}
+	m := res.Fitted()
+	what := "the base site density"
+	if m.Prefactor == kinetics.PrefactorFixed {
+		what = "the base j0"
+	}
+	scale := fmt.Sprintf("%s times the prefactor scale A = %.5g fitted by undercool fit interface to %s", what, res.Scale, name)
+	folded := [3]string{"sites", fmt.Sprintf("%.7g m-3", m.Sites), scale}
+	if m.Prefactor == kinetics.PrefactorFixed {
+		folded = [3]string{"j0", fmt.Sprintf("%.7g /m3/s", m.J0), scale}
+	}
+	if err := setValues(c, [3]string{"gamma", fmt.Sprintf("%.7g J/m2", res.Gamma), gs}, folded); err != nil {
+		return nil, nil, err
+	}
+	header := []string{
+		fmt.Sprintf("%s with gamma fitted by undercool fit interface to %s.", base.Name, name),
+		"The prefactor scale A is folded into the site density (or j0); every other value is the base card's.",
+	}
+	return c, header, nil
+}

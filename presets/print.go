@@ -1,0 +1,93 @@
+package presets
+
+import (
+	"bytes"
+	"fmt"
+	"path/filepath"
+	"strings"
+	"unicode"
+)
+
+// TOML writes the card in the layout of the shipped cards: the header as
+// comment lines, the model choices, then [values] with each value as
+// written and its source, in the order of Params. Data files are named by
+// their absolute paths, so the card reads from anywhere.
+func (c *Card) TOML(header []string) []byte {
+	var b bytes.Buffer
+	for _, h := range header {
+		fmt.Fprintf(&b, "# %s\n", h)
+	}
+	fmt.Fprintf(&b, "name = %s\n", tomlString(c.Name))
+	fmt.Fprintf(&b, "kind = %s\n", tomlString(c.Kind))
+	if c.Description != "" {
+		fmt.Fprintf(&b, "description = %s\n", tomlString(c.Description))
+	}
+	fmt.Fprintf(&b, "driving = %s\n", tomlString(c.Driving))
+	if c.Driving == "table" && c.DrivingFile != "" {
+		fmt.Fprintf(&b, "driving_table = %s\n", tomlString(absolute(c.DrivingFile)))
+	}
+	if c.SolubilityFile != "" {
+		fmt.Fprintf(&b, "solubility_table = %s\n", tomlString(absolute(c.SolubilityFile)))
+	}
+	if c.Mobility != "" && c.Mobility != "none" {
+		fmt.Fprintf(&b, "mobility = %s\n", tomlString(c.Mobility))
+	}
+	if c.Prefactor != "" {
+		fmt.Fprintf(&b, "prefactor = %s\n", tomlString(c.Prefactor))
+	}
+	b.WriteString("\n[values]\n")
+	width := 0
+	for _, p := range Params {
+		if c.Has(p.Key) {
+			width = max(width, len(p.Key))
+		}
+	}
+	for _, p := range Params {
+		if v, ok := c.Values[p.Key]; ok {
+			fmt.Fprintf(&b, "%-*s = { value = %s, source = %s }\n", width, p.Key, tomlString(v.Text), tomlString(v.Source))
+		}
+	}
+	return b.Bytes()
+}
+
+func absolute(p string) string {
+	if abs, err := filepath.Abs(p); err == nil {
+		return abs
+	}
+	return p
+}
+
+// tomlString quotes s as a TOML basic string.
+func tomlString(s string) string {
+	var b strings.Builder
+	b.WriteByte('"')
+	for _, r := range s {
+		switch {
+		case r == '"':
+			b.WriteString(`\"`)
+		case r == '\\':
+			b.WriteString(`\\`)
+		case r == '\n':
+			b.WriteString(`\n`)
+		case r == '\t':
+			b.WriteString(`\t`)
+		case unicode.IsControl(r):
+			fmt.Fprintf(&b, `\u%04X`, r)
+		default:
+			b.WriteRune(r)
+		}
+	}
+	b.WriteByte('"')
+	return b.String()
+}
+
+// Clone is a copy of the card with a map of values of its own, so that
+// setting a value leaves the card as it was.
+func (c *Card) Clone() *Card {
+	out := *c
+	out.Values = make(map[string]Value, len(c.Values))
+	for k, v := range c.Values {
+		out.Values[k] = v
+	}
+	return &out
+}
