@@ -390,6 +390,24 @@ func (s Schedule) At(t float64) float64 {
 	return s.Temp[i] + f*(s.Temp[i+1]-s.Temp[i])
 }
 
+// Before is the temperature just before time t (K): the same as At except
+// at a jump, where it is the temperature the jump starts from. A step that
+// ends at t uses it.
+func (s Schedule) Before(t float64) float64 {
+	n := len(s.Time)
+	i := sort.SearchFloat64s(s.Time, t) // first break at or after t
+	switch {
+	case i == 0:
+		return s.Temp[0]
+	case i == n:
+		return s.Temp[n-1]
+	case s.Time[i] == t:
+		return s.Temp[i]
+	}
+	f := (t - s.Time[i-1]) / (s.Time[i] - s.Time[i-1])
+	return s.Temp[i-1] + f*(s.Temp[i]-s.Temp[i-1])
+}
+
 // Breaks are the distinct times of the break points, ascending (s).
 func (s Schedule) Breaks() []float64 {
 	var out []float64

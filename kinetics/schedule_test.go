@@ -58,6 +58,12 @@ hold 24h`
 		if got := s.At(wantTime[2]); got != 573.15 {
 			t.Errorf("At(jump) = %g K, want the temperature after it, 573.15", got)
 		}
+		if got := s.Before(wantTime[2]); got != 293.15 {
+			t.Errorf("Before(jump) = %g K, want the temperature before it, 293.15", got)
+		}
+		if got, want := s.Before(3600+6.2), s.At(3600+6.2); got != want {
+			t.Errorf("Before(mid-ramp) = %g K, want At = %g K", got, want)
+		}
 		if got := s.Duration(); math.Abs(got-wantTime[4]) > 1e-9 {
 			t.Errorf("Duration = %g s", got)
 		}
