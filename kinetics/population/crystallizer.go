@@ -195,6 +195,20 @@ func (m *crystalModel) at(T, m3, since float64) point {
 	return p
 }
 
+// Nucleation is the primary nucleation rate (ln J, J per m³·s) and the
+// size L at which crystals are born (m) in the solution at temperature T
+// (K) holding conc (mol per m³ of solvent): −Inf and NaN where nothing
+// nucleates. Errors: a crystallizer that does not check.
+func (c *Crystallizer) Nucleation(T, conc float64) (lnJ, size float64, err error) {
+	m, err := newCrystalModel(*c)
+	if err != nil {
+		return 0, 0, err
+	}
+	kv := m.kv
+	p := m.at(T, (m.total-conc)*c.Nucleus.Vm/kv, 0)
+	return p.lnJ, p.birth, nil
+}
+
 func (m *crystalModel) growth(p *point, L float64) float64 {
 	if m.c.Growth.Law == GrowthDiffusion {
 		return p.g / L

@@ -20,8 +20,10 @@
 // keep, in every step,
 //
 //   - the change of each size within RelTol of the larger of the size and
-//     the mean size (classes about to vanish are held only by the next
-//     condition);
+//     the mean size (shrinking classes below half the mean size, or about
+//     to vanish, are held only by the next condition: their sizes carry
+//     little of the solute, and the rate of a particle near the end of its
+//     dissolution grows without bound);
 //   - the dissolved concentration (the mass balance of the step) within
 //     ConcTol of its distance from equilibrium;
 //   - the number born within RelTol of the number of particles (plus one

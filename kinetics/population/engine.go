@@ -82,7 +82,7 @@ const (
 
 const (
 	minSplit      = 8       // fewest classes that are split to restore resolution
-	vanishSteps   = 4       // a shrinking class that would vanish within this many steps is not held to RelTol
+	vanishSteps   = 4       // a shrinking class that would vanish within this many steps, or is below half the mean size, is not held to RelTol
 	concFloor     = 1e-3    // the distance from equilibrium below which ConcTol is taken of the equilibrium value times this
 	numberFloor   = 1.0     // m⁻³: numbers born below this need no accuracy (one particle per cubic metre)
 	negligible    = 1e-12   // births below this fraction of the particles present are not made a class
@@ -315,7 +315,7 @@ func (e *engine) step(stop float64) error {
 			}
 			e.xh[i] = xh
 			m3h += e.n[i] * xh * xh * xh
-			vanishing := e.k1[i] < 0 && x+vanishSteps*h*e.k1[i] <= 0
+			vanishing := e.k1[i] < 0 && (x < xref/2 || x+vanishSteps*h*e.k1[i] <= 0)
 			if xe > 0 && xh > 0 && !vanishing {
 				eSize = math.Max(eSize, math.Abs(xh-xe)/(e.opt.RelTol*math.Max(x, xref)))
 			}
@@ -327,17 +327,19 @@ func (e *engine) step(stop float64) error {
 		born, xb, eBirth := 0.0, 0.0, 0.0
 		if J0+J1 > 0 {
 			born = h * (J0 + J1) / 2
-			b := (J0*finite(p0.birth) + J1*finite(pe.birth)) / (J0 + J1)
-			mid := h * (J0 + 2*J1) / (3 * (J0 + J1))
+			w1 := J1 / (J0 + J1) // the weight of the step's end
+			b := (1-w1)*finite(p0.birth) + w1*finite(pe.birth)
+			mid := h * (1 + w1) / 3
 			g := e.m.growth(&pe, b)
 			xb = b + (h-mid)*g
-			if !(xb > 0) || born < negligible*total || born < negligible*numberFloor {
+			if !(xb > 0) || math.IsInf(g, 0) || born < negligible*total || born < negligible*numberFloor {
 				born, xb = 0, 0
+			} else {
+				// The particles of the new class were born over the step
+				// and are spread over |g|·h in size; one class stands for them.
+				spread := math.Abs(g) * h / math.Max(xref, xb)
+				eBirth = spread * spread / (4 * e.opt.RelTol)
 			}
-			// The particles of the new class were born over the step and
-			// are spread over |g|·h in size; one class stands for them.
-			spread := math.Abs(g) * h / math.Max(xref, xb)
-			eBirth = spread * spread / (4 * e.opt.RelTol)
 		}
 		m3h += born * xb * xb * xb
 		ph := e.m.at(T1, m3h, since+h)
