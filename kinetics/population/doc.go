@@ -35,9 +35,9 @@
 // their mean time of birth within the step, grown from there to its end.
 // Steps end on every break point of the schedule and every output time.
 // The class count is bounded: past MaxClasses the two classes closest in
-// log size are merged (number and volume kept); when dissolution has left
-// fewer than half of MaxClasses, each class is split in two within its
-// cell (number and volume kept). Rates are carried as ln J.
+// log size are merged (number and volume kept); when dissolution has
+// removed half of the classes there were, each class is split in two
+// within its cell (number and volume kept). Rates are carried as ln J.
 //
 // References:
 //

@@ -45,8 +45,9 @@ type point struct {
 // defaults.
 type Options struct {
 	// MaxClasses bounds the number of size classes (default 500): past it
-	// the two closest classes are merged; below half of it (and from 8
-	// classes) every class is split in two.
+	// the two closest classes are merged; when dissolution has removed
+	// half of the classes there were (and 8 or more remain), every class is
+	// split in two.
 	MaxClasses int
 	// RelTol is the tolerance on the change of a class's size in one step,
 	// relative to the larger of its size and the mean size (default 1e-3).
@@ -129,6 +130,7 @@ type engine struct {
 	on     float64   // time the parent last became supersaturated, s
 	steps  int
 	peak   int       // most classes at once
+	high   int       // most classes since the last split
 	k1, k2 []float64 // scratch: rates at the start and after the predictor
 	xe, xh []float64 // scratch: Euler and Heun sizes
 }
@@ -418,8 +420,10 @@ func (e *engine) accept(born, xb float64) {
 	for len(e.x) > e.opt.MaxClasses {
 		e.mergeClosest()
 	}
-	if len(e.x) >= minSplit && len(e.x) < e.opt.MaxClasses/2 {
+	e.high = max(e.high, len(e.x))
+	if len(e.x) >= minSplit && 2*len(e.x) < e.high {
 		e.splitAll()
+		e.high = len(e.x)
 	}
 }
 
