@@ -115,4 +115,3 @@ func TestCoarseningLSW(t *testing.T) {
 	}
 	t.Logf("KS %.3g, sd %.4g (LSW %.4g), max u %.3g, %d classes, %d steps, r̄ %.3g m, N %.3g m^-3", ks, sd, lswSD, us[len(us)-1], len(cs), res.Steps, last.MeanRadius, last.NumberDensity)
 }
-

@@ -2,7 +2,9 @@ package population_test
 
 import (
 	"context"
+	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"undercool/cnt"
@@ -128,4 +130,56 @@ func TestSoluteConserved(t *testing.T) {
 		t.Errorf("the run never reached the class bound (peak %d): merging untested", res.PeakClasses)
 	}
 	t.Logf("worst balance %.2g, %d steps, peak %d classes, %d at the end, N = %.3g m^-3", worst, res.Steps, res.PeakClasses, len(res.Final), last.NumberDensity)
+}
+
+// Progress is reported at every row, in order, and a cancelled context
+// stops the run with its error.
+func TestProgressAndCancel(t *testing.T) {
+	a := demoScandium()
+	s := isothermal(t, 573.15, 3600)
+	var seen []float64
+	res, err := a.Run(context.Background(), s, population.Options{Progress: func(p population.Progress) {
+		seen = append(seen, p.Fraction())
+	}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(seen) != len(res.Rows) || seen[len(seen)-1] != 1 {
+		t.Errorf("progress reported %d times, last %v; %d rows", len(seen), seen[len(seen)-1], len(res.Rows))
+	}
+	for i := 1; i < len(seen); i++ {
+		if !(seen[i] > seen[i-1]) {
+			t.Errorf("progress went from %g to %g", seen[i-1], seen[i])
+		}
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	_, err = a.Run(ctx, s, population.Options{Progress: func(p population.Progress) {
+		if p.Fraction() > 0.01 {
+			cancel()
+		}
+	}})
+	if !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled run: %v, want context.Canceled", err)
+	}
+}
+
+// Bad inputs are refused with the value named.
+func TestAlloyChecks(t *testing.T) {
+	for _, c := range []struct {
+		edit func(*population.Alloy)
+		want string
+	}{
+		{func(a *population.Alloy) { a.C0 = 0 }, "c0"},
+		{func(a *population.Alloy) { a.Cp = a.C0 / 2 }, "cp"},
+		{func(a *population.Alloy) { a.Gamma = math.NaN() }, "gamma"},
+		{func(a *population.Alloy) { a.Vm = -1 }, "vm"},
+		{func(a *population.Alloy) { a.Solvus = nil }, "solvus"},
+		{func(a *population.Alloy) { a.Initial = []population.Class{{Size: 1e-9, Number: 0}} }, "initial class 1"},
+	} {
+		a := demoScandium()
+		c.edit(&a)
+		if err := a.Check(); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%v, want an error naming %s", err, c.want)
+		}
+	}
 }
