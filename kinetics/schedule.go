@@ -225,13 +225,27 @@ func positiveQuantity(read ReadQuantity, word string, q Quantity) (float64, erro
 // are one (K): what rounding leaves of a value written in °C or °F.
 const sameTemp = 1e-9
 
+var errNotStarted = errors.New("the schedule must first say where it starts: begin with 'start at TEMP' or 'hold DURATION at TEMP'")
+
+// from is where a ramp or a jump starts (time and temperature) and the
+// target it goes to.
+func (b *scheduleBuilder) from(temp func(string) (float64, error)) (t, T, target float64, err error) {
+	if !b.started() {
+		return 0, 0, 0, errNotStarted
+	}
+	if target, err = temp("to"); err != nil {
+		return 0, 0, 0, err
+	}
+	t, T = b.now()
+	return t, T, target, nil
+}
+
 func (b *scheduleBuilder) step(text string, read ReadQuantity) error {
 	w, err := splitStep(text)
 	if err != nil {
 		return fmt.Errorf("%v; %w", err, ErrScheduleSyntax)
 	}
 	temp := func(key string) (float64, error) { return positiveQuantity(read, w.after[key], QuantityTemperature) }
-	notStarted := errors.New("the schedule must first say where it starts: begin with 'start at TEMP' or 'hold DURATION at TEMP'")
 	switch w.verb {
 	case "start":
 		if w.bare != "" && len(w.after) == 0 {
@@ -274,7 +288,7 @@ func (b *scheduleBuilder) step(text string, read ReadQuantity) error {
 			}
 		}
 		if !b.started() {
-			return notStarted
+			return errNotStarted
 		}
 		t, T := b.now()
 		b.point(t+d, T)
@@ -287,14 +301,10 @@ func (b *scheduleBuilder) step(text string, read ReadQuantity) error {
 		if err != nil {
 			return err
 		}
-		if !b.started() {
-			return notStarted
-		}
-		target, err := temp("to")
+		t, T, target, err := b.from(temp)
 		if err != nil {
 			return err
 		}
-		t, T := b.now()
 		down := w.verb == "cool"
 		if down && !(target < T-sameTemp) || !down && !(target > T+sameTemp) {
 			dir := "below"
@@ -326,14 +336,10 @@ func (b *scheduleBuilder) step(text string, read ReadQuantity) error {
 		if err := w.only(false, "to"); err != nil {
 			return err
 		}
-		if !b.started() {
-			return notStarted
-		}
-		target, err := temp("to")
+		t, T, target, err := b.from(temp)
 		if err != nil {
 			return err
 		}
-		t, T := b.now()
 		if math.Abs(target-T) <= sameTemp {
 			return fmt.Errorf("the schedule is already at %.6g K", T)
 		}

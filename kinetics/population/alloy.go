@@ -170,30 +170,19 @@ func (m *alloyModel) growth(p *point, r float64) float64 {
 	return p.diff / r * (p.conc - cr) / (m.a.Cp - cr)
 }
 
-// AlloyRow is the state of an ageing alloy at one time. Non-finite values
-// mean none (no nucleus: critical radius +Inf, log10 rate −Inf; no
-// particles: mean radius NaN); the command line writes them as a dash or
-// JSON null.
+// AlloyRow is the state of an ageing alloy at one time (the common
+// values of Row, and the mean radius and matrix concentration).
 type AlloyRow struct {
-	Time            float64 `json:"time_s"`
-	Temperature     float64 `json:"temperature_k"`
-	NumberDensity   float64 `json:"number_density_per_m3"`
-	MeanRadius      float64 `json:"mean_radius_m"`
-	VolumeFraction  float64 `json:"volume_fraction"`
-	Matrix          float64 `json:"matrix_concentration"` // solute mole fraction left in the matrix
-	Supersaturation float64 `json:"supersaturation"`      // c/c_eq
-	Log10Rate       float64 `json:"log10_rate_per_m3_s"`
-	CriticalRadius  float64 `json:"critical_radius_m"`
+	Row
+	MeanRadius float64 `json:"mean_radius_m"`        // NaN: no particles
+	Matrix     float64 `json:"matrix_concentration"` // solute mole fraction left in the matrix
 }
 
-// AlloyResult is a run of an alloy through a schedule.
+// AlloyResult is a run of an alloy through a schedule; the sizes of Final
+// are radii, its numbers per m³ of alloy.
 type AlloyResult struct {
-	Schedule    string     `json:"schedule"`
-	Rows        []AlloyRow `json:"rows"`
-	Final       []Class    `json:"final_distribution"` // radius and number per m³ of each class at the end
-	Steps       int        `json:"steps"`
-	PeakClasses int        `json:"peak_classes"`         // most classes at once (before merging)
-	Balance     float64    `json:"solute_balance_error"` // |c(1−f_v) + f_v·c_p − c₀|/c₀ at the end
+	Summary
+	Rows []AlloyRow `json:"rows"`
 }
 
 // Run ages the alloy along the schedule. Errors: a bad alloy (naming the
@@ -204,42 +193,17 @@ func (a *Alloy) Run(ctx context.Context, s kinetics.Schedule, opt Options) (*All
 	if err != nil {
 		return nil, err
 	}
-	if err := coversSchedule(a.Solvus, s, "solvus"); err != nil {
-		return nil, err
-	}
 	x0, n0 := splitClasses(a.Initial)
-	e, err := newEngine(m, s, opt, x0, n0)
+	rows, last, e, err := runRows(ctx, m, a.Solvus, "solvus", s, opt, x0, n0, m.row)
 	if err != nil {
 		return nil, err
 	}
-	res := &AlloyResult{Schedule: s.String()}
-	var last sample
-	err = e.run(ctx, func(sm sample) {
-		res.Rows = append(res.Rows, m.row(sm))
-		last = sm
-	})
-	if err != nil {
-		return nil, err
-	}
-	res.Final = classesOf(last.x, last.n)
-	res.Steps, res.PeakClasses = e.steps, e.peak
 	fv := 4 * math.Pi / 3 * cubeSum(last.x, last.n)
-	res.Balance = math.Abs(last.p.conc*(1-fv)+fv*a.Cp-a.C0) / a.C0
-	return res, nil
+	balance := math.Abs(last.p.conc*(1-fv)+fv*a.Cp-a.C0) / a.C0
+	return &AlloyResult{Summary: summarize(s, last, e, balance), Rows: rows}, nil
 }
 
 func (m *alloyModel) row(sm sample) AlloyRow {
-	p := sm.p
-	num, mean := moments(sm.x, sm.n)
-	return AlloyRow{
-		Time:            sm.t,
-		Temperature:     p.T,
-		NumberDensity:   num,
-		MeanRadius:      mean,
-		VolumeFraction:  4 * math.Pi / 3 * cubeSum(sm.x, sm.n),
-		Matrix:          p.conc,
-		Supersaturation: p.conc / p.eq,
-		Log10Rate:       p.lnJ / math.Ln10,
-		CriticalRadius:  p.crit,
-	}
+	r, mean := commonRow(sm, 4*math.Pi/3)
+	return AlloyRow{Row: r, MeanRadius: mean, Matrix: sm.p.conc}
 }

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"sort"
+
+	"undercool/kinetics"
 )
 
 // Class is one size class: particles of one size, and how many there are
@@ -50,6 +52,48 @@ func moments(x, n []float64) (num, mean float64) {
 		return 0, math.NaN()
 	}
 	return num, s / num
+}
+
+// Row holds what every run reports at one time. Non-finite values mean
+// none (no nucleus: critical radius +Inf, log10 rate −Inf); the command
+// line writes them as a dash or JSON null.
+type Row struct {
+	Time            float64 `json:"time_s"`
+	Temperature     float64 `json:"temperature_k"`
+	NumberDensity   float64 `json:"number_density_per_m3"`
+	VolumeFraction  float64 `json:"volume_fraction"`
+	Supersaturation float64 `json:"supersaturation"` // dissolved over equilibrium concentration
+	Log10Rate       float64 `json:"log10_rate_per_m3_s"`
+	CriticalRadius  float64 `json:"critical_radius_m"`
+}
+
+// commonRow is the Row of a sample, for particles of volume shape·x³, and
+// the number-weighted mean size.
+func commonRow(sm sample, shape float64) (Row, float64) {
+	p := sm.p
+	num, mean := moments(sm.x, sm.n)
+	return Row{
+		Time:            sm.t,
+		Temperature:     p.T,
+		NumberDensity:   num,
+		VolumeFraction:  shape * cubeSum(sm.x, sm.n),
+		Supersaturation: p.conc / p.eq,
+		Log10Rate:       p.lnJ / math.Ln10,
+		CriticalRadius:  p.crit,
+	}, mean
+}
+
+// Summary is what every run reports beside its rows.
+type Summary struct {
+	Schedule    string  `json:"schedule"`
+	Final       []Class `json:"final_distribution"` // the classes at the end
+	Steps       int     `json:"steps"`
+	PeakClasses int     `json:"peak_classes"`         // most classes at once (before merging)
+	Balance     float64 `json:"solute_balance_error"` // the solute book at the end, relative to the total
+}
+
+func summarize(s kinetics.Schedule, last sample, e *engine, balance float64) Summary {
+	return Summary{Schedule: s.String(), Final: classesOf(last.x, last.n), Steps: e.steps, PeakClasses: e.peak, Balance: balance}
 }
 
 // VolumeQuantile is the size below which the fraction q (0 < q < 1) of the

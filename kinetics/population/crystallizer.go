@@ -216,35 +216,26 @@ func (m *crystalModel) growth(p *point, L float64) float64 {
 	return p.g
 }
 
-// CrystalRow is the state of a crystallizer at one time. Numbers and
-// volumes are per m³ of solvent. Non-finite values mean none, as for
-// AlloyRow.
+// CrystalRow is the state of a crystallizer at one time (the common
+// values of Row, numbers and volumes per m³ of solvent, and the mean size,
+// concentration, solubility and yield).
 type CrystalRow struct {
-	Time            float64 `json:"time_s"`
-	Temperature     float64 `json:"temperature_k"`
-	NumberDensity   float64 `json:"number_density_per_m3"`
-	MeanSize        float64 `json:"mean_size_m"`
-	VolumeFraction  float64 `json:"volume_fraction"` // crystal volume per volume of solvent
-	Concentration   float64 `json:"concentration_mol_per_m3"`
-	Solubility      float64 `json:"solubility_mol_per_m3"`
-	Supersaturation float64 `json:"supersaturation"`
-	Yield           float64 `json:"yield"` // fraction of the solute dissolved at the start now in crystals
-	Log10Rate       float64 `json:"log10_rate_per_m3_s"`
-	CriticalRadius  float64 `json:"critical_radius_m"`
+	Row
+	MeanSize      float64 `json:"mean_size_m"` // NaN: no crystals
+	Concentration float64 `json:"concentration_mol_per_m3"`
+	Solubility    float64 `json:"solubility_mol_per_m3"`
+	Yield         float64 `json:"yield"` // fraction of the solute dissolved at the start now in crystals
 }
 
-// CrystalResult is a run of a crystallizer through a schedule.
+// CrystalResult is a run of a crystallizer through a schedule; the sizes
+// of Final are lengths L, its numbers per m³ of solvent.
 type CrystalResult struct {
-	Schedule    string       `json:"schedule"`
-	Rows        []CrystalRow `json:"rows"`
-	Final       []Class      `json:"final_distribution"` // size L and number per m³ of solvent of each class
-	D10         float64      `json:"d10_m"`              // volume-weighted (VolumeQuantile)
-	D50         float64      `json:"d50_m"`
-	D90         float64      `json:"d90_m"`
-	Yield       float64      `json:"yield"`
-	Steps       int          `json:"steps"`
-	PeakClasses int          `json:"peak_classes"`         // most classes at once (before merging)
-	Balance     float64      `json:"solute_balance_error"` // |C + (k_v/V_m)·Σn·L³ − C₀ − seeds|/(C₀ + seeds) at the end
+	Summary
+	Rows  []CrystalRow `json:"rows"`
+	D10   float64      `json:"d10_m"` // volume-weighted (VolumeQuantile)
+	D50   float64      `json:"d50_m"`
+	D90   float64      `json:"d90_m"`
+	Yield float64      `json:"yield"`
 }
 
 // Run takes the crystallizer along the schedule. Errors as for Alloy.Run.
@@ -253,44 +244,19 @@ func (c *Crystallizer) Run(ctx context.Context, s kinetics.Schedule, opt Options
 	if err != nil {
 		return nil, err
 	}
-	if err := coversSchedule(c.Solubility, s, "solubility"); err != nil {
-		return nil, err
-	}
-	e, err := newEngine(m, s, opt, m.seedX, m.seedN)
+	rows, last, e, err := runRows(ctx, m, c.Solubility, "solubility", s, opt, m.seedX, m.seedN, m.row)
 	if err != nil {
 		return nil, err
 	}
-	res := &CrystalResult{Schedule: s.String()}
-	var last sample
-	err = e.run(ctx, func(sm sample) {
-		res.Rows = append(res.Rows, m.row(sm))
-		last = sm
-	})
-	if err != nil {
-		return nil, err
-	}
-	res.Final = classesOf(last.x, last.n)
+	balance := math.Abs(last.p.conc+m.kv*cubeSum(last.x, last.n)/c.Nucleus.Vm-m.total) / m.total
+	res := &CrystalResult{Summary: summarize(s, last, e, balance), Rows: rows}
 	res.D10, res.D50, res.D90 = VolumeQuantile(res.Final, 0.1), VolumeQuantile(res.Final, 0.5), VolumeQuantile(res.Final, 0.9)
-	res.Yield = res.Rows[len(res.Rows)-1].Yield
-	res.Steps, res.PeakClasses = e.steps, e.peak
-	res.Balance = math.Abs(last.p.conc+m.kv*cubeSum(last.x, last.n)/c.Nucleus.Vm-m.total) / m.total
+	res.Yield = rows[len(rows)-1].Yield
 	return res, nil
 }
 
 func (m *crystalModel) row(sm sample) CrystalRow {
-	p := sm.p
-	num, mean := moments(sm.x, sm.n)
-	return CrystalRow{
-		Time:            sm.t,
-		Temperature:     p.T,
-		NumberDensity:   num,
-		MeanSize:        mean,
-		VolumeFraction:  m.kv * cubeSum(sm.x, sm.n),
-		Concentration:   p.conc,
-		Solubility:      p.eq,
-		Supersaturation: p.conc / p.eq,
-		Yield:           (m.c.C0 - p.conc) / m.c.C0,
-		Log10Rate:       p.lnJ / math.Ln10,
-		CriticalRadius:  p.crit,
-	}
+	r, mean := commonRow(sm, m.kv)
+	c := sm.p.conc
+	return CrystalRow{Row: r, MeanSize: mean, Concentration: c, Solubility: sm.p.eq, Yield: (m.c.C0 - c) / m.c.C0}
 }

@@ -215,6 +215,29 @@ func (e *engine) run(ctx context.Context, emit func(sample)) error {
 	return nil
 }
 
+// runRows checks that the solubility law covers the schedule, runs the
+// engine from the classes x0, n0 and makes one row of every output
+// sample; it returns the rows, the last sample and the engine.
+func runRows[R any](ctx context.Context, m model, sol Solubility, what string, s kinetics.Schedule, opt Options, x0, n0 []float64, row func(sample) R) ([]R, sample, *engine, error) {
+	if err := coversSchedule(sol, s, what); err != nil {
+		return nil, sample{}, nil, err
+	}
+	e, err := newEngine(m, s, opt, x0, n0)
+	if err != nil {
+		return nil, sample{}, nil, err
+	}
+	var rows []R
+	var last sample
+	err = e.run(ctx, func(sm sample) {
+		rows = append(rows, row(sm))
+		last = sm
+	})
+	if err != nil {
+		return nil, sample{}, nil, err
+	}
+	return rows, last, e, nil
+}
+
 // state is the parent's state at time t with the present classes.
 func (e *engine) state(t float64) point {
 	return e.m.at(e.s.At(t), cubeSum(e.x, e.n), t-e.on)
