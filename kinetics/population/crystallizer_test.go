@@ -10,6 +10,30 @@ import (
 	"undercool/kinetics/population"
 )
 
+// A real solution system for the crystallizer card of the command line
+// (phase 2): paracetamol (form I) crystallizing from ethanol on cooling.
+// Sources found, and what of each was verified:
+//
+//	process       batch cooling crystallization of paracetamol in ethanol with a
+//	              population balance, nucleation and growth fitted to measured
+//	              concentration and size distributions: Worlitschek J., Mazzotti M.,
+//	              Cryst. Growth Des. 4 (2004) 891 (title, journal, scope checked; its
+//	              solubility fit and growth and nucleation constants were NOT read and
+//	              must be taken from its tables)
+//	solubility    paracetamol in 26 pure solvents, −5 to +30 °C: Granberg R.A.,
+//	              Rasmuson Å.C., J. Chem. Eng. Data 44 (1999) 1391 (scope checked;
+//	              the ethanol values not read)
+//	gamma         apparent interfacial energy 1–3 mJ/m² from induction times in
+//	              acetone–water: Granberg R.A., Ducreux C., Gracin S., Rasmuson Å.C.,
+//	              Chem. Eng. Sci. 56 (2001) 2305 (abstract checked); a stand-in for ethanol
+//	dh_sol        21.8 ± 0.1 kJ/mol in water: Perlovich G.L. et al., AAPS PharmSciTech
+//	              9 (2008) 205, Table V (checked, as in the shipped card)
+//	molar_mass    151.16 g/mol (IUPAC atomic weights, common practice)
+//	density       1.293 g/cm³, form I (handbook, from memory)
+//
+// The checks below use an invented system instead, so that they test the
+// numerics and not the data.
+
 // demoSolution is an invented solute in an invented solvent ("demo-solute-A"),
 // with values of the size met for small drug molecules: saturated at 40 °C
 // with 500 mol per m³ of solvent, enthalpy of dissolution 25 kJ/mol,
