@@ -115,7 +115,7 @@ func newCrystalModel(c Crystallizer) (*crystalModel, error) {
 	}
 	// The material, checked as a solution at some supersaturation.
 	probe := c.Nucleus
-	probe.Driving, probe.Te, probe.Conc = cnt.Supersaturation{S: 2}, 300, 1
+	probe.Driving, probe.Conc = cnt.Supersaturation{S: 2, Tsat: 300}, 1
 	md, err := kinetics.NewModel(probe)
 	if err != nil {
 		return nil, bad("%v", err)
@@ -181,7 +181,7 @@ func (m *crystalModel) at(T, m3, since float64) point {
 		return p
 	}
 	mat := c.Nucleus
-	mat.Driving, mat.Te, mat.Conc = cnt.Supersaturation{S: S}, T, conc*cnt.Avogadro
+	mat.Driving, mat.Conc = cnt.Supersaturation{S: S, Tsat: T}, conc*cnt.Avogadro
 	md, err := kinetics.NewModel(mat)
 	if err != nil {
 		panic("population: a checked crystallizer failed: " + err.Error())
