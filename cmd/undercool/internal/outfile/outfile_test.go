@@ -1,0 +1,360 @@
+package outfile
+
+import (
+	"bufio"
+	"errors"
+	"io"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+	"syscall"
+	"testing"
+	"time"
+)
+
+func text(s string) func(io.Writer) error {
+	return func(w io.Writer) error { _, err := io.WriteString(w, s); return err }
+}
+
+func read(t *testing.T, path string) string {
+	t.Helper()
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(b)
+}
+
+// debris lists files of dir that are not in want.
+func debris(t *testing.T, dir string, want ...string) []string {
+	t.Helper()
+	ents, err := os.ReadDir(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var extra []string
+next:
+	for _, e := range ents {
+		for _, w := range want {
+			if e.Name() == w {
+				continue next
+			}
+		}
+		extra = append(extra, e.Name())
+	}
+	return extra
+}
+
+func write(t *testing.T, path, content string, perm os.FileMode) {
+	t.Helper()
+	if err := os.WriteFile(path, []byte(content), perm); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.Chmod(path, perm); err != nil {
+		t.Fatal(err)
+	}
+}
+
+func TestNewFileHonoursUmask(t *testing.T) {
+	old := syscall.Umask(0o027)
+	defer syscall.Umask(old)
+	dir := t.TempDir()
+	path := filepath.Join(dir, "out.csv")
+	var b Batch
+	if err := b.Add(path, text("a,b\n")); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Commit(); err != nil {
+		t.Fatal(err)
+	}
+	info, _ := os.Stat(path)
+	if got := info.Mode().Perm(); got != 0o640 {
+		t.Errorf("mode %o, want 0640 (0666 less umask 027)", got)
+	}
+	if extra := debris(t, dir, "out.csv"); extra != nil {
+		t.Errorf("left behind %v", extra)
+	}
+}
+
+func TestExistingFileKeepsMode(t *testing.T) {
+	dir := t.TempDir()
+	for _, perm := range []os.FileMode{0o600, 0o755, 0o664} {
+		path := filepath.Join(dir, "memo.md")
+		write(t, path, "old", perm)
+		var b Batch
+		if err := b.Add(path, text("new")); err != nil {
+			t.Fatal(err)
+		}
+		if err := b.Commit(); err != nil {
+			t.Fatal(err)
+		}
+		info, _ := os.Stat(path)
+		if info.Mode().Perm() != perm || read(t, path) != "new" {
+			t.Errorf("perm %o: got mode %o content %q", perm, info.Mode().Perm(), read(t, path))
+		}
+	}
+}
+
+func TestRefusedTargets(t *testing.T) {
+	dir := t.TempDir()
+	ro := filepath.Join(dir, "ro.md")
+	write(t, ro, "keep", 0o444)
+	in := filepath.Join(dir, "q.csv")
+	write(t, in, "time_s,temperature_k\n", 0o644)
+	link := filepath.Join(dir, "link.csv")
+	if err := os.Symlink(in, link); err != nil {
+		t.Fatal(err)
+	}
+	cases := []struct {
+		path, want string
+	}{
+		{ro, "read-only"},
+		{dir, "is a directory"},
+		{filepath.Join(dir, "no", "such.md"), "directory"},
+		{in, "also an input"},
+		{link, "also an input"},
+		{filepath.Join(dir, ".", "q.csv"), "also an input"},
+		{"", "empty file name"},
+	}
+	for _, c := range cases {
+		var b Batch
+		b.Input(in)
+		err := b.Check(c.path)
+		var oe *Error
+		if !errors.As(err, &oe) || !oe.Usage || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("Check(%q) = %v, want a usage error saying %q", c.path, err, c.want)
+		}
+	}
+	if read(t, ro) != "keep" || read(t, in) != "time_s,temperature_k\n" {
+		t.Error("a refused target changed")
+	}
+	var b Batch
+	out := filepath.Join(dir, "out.svg")
+	if err := b.Check(out); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Check(filepath.Join(dir, "x", "..", "out.svg")); err == nil || !strings.Contains(err.Error(), "already an output") {
+		t.Errorf("the same output twice: %v", err)
+	}
+}
+
+// full fails with ENOSPC after n bytes, as a full disk does.
+type full struct {
+	w io.Writer
+	n int
+}
+
+func (f *full) Write(p []byte) (int, error) {
+	if len(p) > f.n {
+		k, _ := f.w.Write(p[:f.n])
+		f.n = 0
+		return k, &os.PathError{Op: "write", Path: "/some/.uc-0badf00d", Err: syscall.ENOSPC}
+	}
+	f.n -= len(p)
+	return f.w.Write(p)
+}
+
+// A full disk while the second of two files is written: both old files
+// stay as they were, nothing is left behind, and the error names the
+// user's path, never the temporary one.
+func TestFullDiskKeepsTheOldSet(t *testing.T) {
+	dir := t.TempDir()
+	memo, plot := filepath.Join(dir, "memo.md"), filepath.Join(dir, "memo-ttt.svg")
+	write(t, memo, "old memo", 0o644)
+	write(t, plot, "old plot", 0o644)
+	defer func(w func(*os.File) io.Writer) { wrapWriter = w }(wrapWriter)
+	calls := 0
+	wrapWriter = func(f *os.File) io.Writer {
+		calls++
+		if calls == 2 {
+			return &full{w: f, n: 3}
+		}
+		return f
+	}
+	var b Batch
+	defer b.Discard()
+	if err := b.Add(plot, text("new plot")); err != nil {
+		t.Fatal(err)
+	}
+	err := b.Add(memo, text("new memo, longer than three bytes"))
+	var oe *Error
+	if !errors.As(err, &oe) || oe.Usage {
+		t.Fatalf("got %v, want a write failure", err)
+	}
+	if msg := err.Error(); !strings.Contains(msg, memo) || strings.Contains(msg, ".uc-") || !strings.Contains(msg, "no space left") {
+		t.Errorf("message %q: want the user's path and the reason, not the temporary name", msg)
+	}
+	b.Discard()
+	if read(t, memo) != "old memo" || read(t, plot) != "old plot" {
+		t.Error("the old files changed")
+	}
+	if extra := debris(t, dir, "memo.md", "memo-ttt.svg"); extra != nil {
+		t.Errorf("left behind %v", extra)
+	}
+}
+
+func TestLinkStaysALink(t *testing.T) {
+	dir := t.TempDir()
+	real := filepath.Join(dir, "real.md")
+	write(t, real, "old", 0o640)
+	link := filepath.Join(dir, "link.md")
+	if err := os.Symlink("real.md", link); err != nil {
+		t.Fatal(err)
+	}
+	var b Batch
+	if err := b.Add(link, text("new")); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Commit(); err != nil {
+		t.Fatal(err)
+	}
+	if info, _ := os.Lstat(link); info.Mode()&os.ModeSymlink == 0 {
+		t.Error("the link was replaced by a file")
+	}
+	if read(t, real) != "new" {
+		t.Error("the linked file was not written")
+	}
+}
+
+// A name of 250 bytes is legal; the temporary name must not push it over.
+func TestLongName(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, strings.Repeat("n", 246)+".svg")
+	var b Batch
+	if err := b.Add(path, text("<svg/>")); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Commit(); err != nil {
+		t.Fatal(err)
+	}
+	if read(t, path) != "<svg/>" {
+		t.Error("not written")
+	}
+}
+
+// A device is written through, never replaced: /dev/full fails as a
+// write failure and stays a device.
+func TestDeviceWrittenThrough(t *testing.T) {
+	if _, err := os.Stat("/dev/full"); err != nil {
+		t.Skip("no /dev/full")
+	}
+	var b Batch
+	if err := b.Add("/dev/full", text("memo")); err != nil {
+		t.Fatal(err)
+	}
+	err := b.Commit()
+	var oe *Error
+	if !errors.As(err, &oe) || oe.Usage || !strings.Contains(err.Error(), "/dev/full") {
+		t.Errorf("got %v, want a write failure naming /dev/full", err)
+	}
+	if info, _ := os.Stat("/dev/full"); info.Mode()&os.ModeCharDevice == 0 {
+		t.Error("/dev/full is no longer a device")
+	}
+	b = Batch{}
+	if err := b.Add("/dev/null", text("memo")); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Commit(); err != nil {
+		t.Errorf("/dev/null: %v", err)
+	}
+}
+
+func TestNamedPipe(t *testing.T) {
+	dir := t.TempDir()
+	fifo := filepath.Join(dir, "pipe")
+	if err := syscall.Mkfifo(fifo, 0o600); err != nil {
+		t.Skip("no named pipes:", err)
+	}
+	// Nobody reads: refused at once, no hang.
+	var b Batch
+	if err := b.Add(fifo, text("x")); err != nil {
+		t.Fatal(err)
+	}
+	err := b.Commit()
+	var oe *Error
+	if !errors.As(err, &oe) || !oe.Usage || !strings.Contains(err.Error(), "no program is reading") {
+		t.Errorf("unread pipe: %v", err)
+	}
+	// A reader gets the content, and the pipe stays a pipe.
+	got := make(chan string)
+	go func() {
+		f, err := os.Open(fifo)
+		if err != nil {
+			got <- err.Error()
+			return
+		}
+		defer f.Close()
+		b, _ := io.ReadAll(f)
+		got <- string(b)
+	}()
+	b = Batch{}
+	if err := b.Add(fifo, text("hello")); err != nil {
+		t.Fatal(err)
+	}
+	// The reader must have opened its end before the writer opens.
+	deadline := time.Now().Add(5 * time.Second)
+	for {
+		err = b.Commit()
+		if err == nil || time.Now().After(deadline) {
+			break
+		}
+		b.through = append(b.through[:0], through{fifo, []byte("hello")})
+		time.Sleep(10 * time.Millisecond)
+	}
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s := <-got; s != "hello" {
+		t.Errorf("reader got %q", s)
+	}
+	if info, _ := os.Lstat(fifo); info.Mode()&os.ModeNamedPipe == 0 {
+		t.Error("the pipe was replaced")
+	}
+}
+
+// An interrupt while a file is staged removes it: a child process stages
+// a file, says so, and is sent SIGINT.
+func TestInterruptRemovesStaged(t *testing.T) {
+	if dir := os.Getenv("OUTFILE_CHILD_DIR"); dir != "" {
+		RemoveOnSignal()
+		var b Batch
+		if err := b.Add(filepath.Join(dir, "memo.md"), text("new")); err != nil {
+			os.Exit(3)
+		}
+		os.Stdout.WriteString("staged\n")
+		time.Sleep(time.Minute)
+		os.Exit(4)
+	}
+	dir := t.TempDir()
+	write(t, filepath.Join(dir, "memo.md"), "old", 0o644)
+	cmd := exec.Command(os.Args[0], "-test.run=^TestInterruptRemovesStaged$")
+	cmd.Env = append(os.Environ(), "OUTFILE_CHILD_DIR="+dir)
+	out, err := cmd.StdoutPipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	line, _ := bufio.NewReader(out).ReadString('\n')
+	if line != "staged\n" {
+		cmd.Process.Kill()
+		t.Fatalf("child said %q", line)
+	}
+	if extra := debris(t, dir, "memo.md"); len(extra) != 1 {
+		t.Fatalf("expected one staged file, found %v", extra)
+	}
+	cmd.Process.Signal(syscall.SIGINT)
+	err = cmd.Wait()
+	var ee *exec.ExitError
+	if !errors.As(err, &ee) || ee.ExitCode() != 130 {
+		t.Errorf("child ended with %v, want status 130", err)
+	}
+	if extra := debris(t, dir, "memo.md"); extra != nil {
+		t.Errorf("left behind %v", extra)
+	}
+	if read(t, filepath.Join(dir, "memo.md")) != "old" {
+		t.Error("the old memo changed")
+	}
+}
