@@ -5,7 +5,6 @@ import (
 	"image/color"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -28,10 +27,10 @@ const (
 	plotPanelHeight = 10 * vg.Centimeter
 )
 
-// checkPlotPath checks a plot's path before any work is done: the
-// extension must be .svg or .png and the directory must exist. It returns
-// the format name ("svg" or "png"). The file itself is written later,
-// whole or not at all, by savePlots.
+// checkPlotPath checks a plot's name: the extension must be .svg or .png.
+// It returns the format name ("svg" or "png"). Whether the file can be
+// written is checked before any work by run (plotFlag.register); the file
+// is written whole or not at all by savePlots.
 func checkPlotPath(path string) (string, error) {
 	ext := strings.ToLower(extension(path))
 	if !contains(plotFormats, ext) {
@@ -40,37 +39,18 @@ func checkPlotPath(path string) (string, error) {
 	if filepath.Base(path) == ext {
 		return "", bad("%q has no file name", path)
 	}
-	if err := checkDir(path); err != nil {
-		return "", err
-	}
 	return ext[1:], nil
-}
-
-// checkDir checks that a file can be made at path: its directory exists
-// and it is not itself a directory.
-func checkDir(path string) error {
-	dir := filepath.Dir(path)
-	st, err := os.Stat(dir)
-	if err != nil {
-		return bad("cannot write %s: directory %s: %v", path, dir, unwrapPath(err))
-	}
-	if !st.IsDir() {
-		return bad("cannot write %s: %s is not a directory", path, dir)
-	}
-	if st, err := os.Stat(path); err == nil && st.IsDir() {
-		return bad("cannot write %s: it is a directory", path)
-	}
-	return nil
 }
 
 // extension is the extension of a file name, with its dot.
 func extension(path string) string { return filepath.Ext(path) }
 
 // savePlots draws the plots as panels stacked top to bottom on one figure
-// and writes it to path in the given format, whole or not at all.
-func savePlots(path, format string, plots ...*plot.Plot) error {
+// and stages it in the file and format of pf, to be written with the
+// command's other files.
+func savePlots(pf *plotFlag, plots ...*plot.Plot) error {
 	h := plotPanelHeight * vg.Length(len(plots))
-	c, err := draw.NewFormattedCanvas(plotWidth, h, format)
+	c, err := draw.NewFormattedCanvas(plotWidth, h, pf.format)
 	if err != nil {
 		return placef("--plot: %v", err)
 	}
@@ -88,7 +68,7 @@ func savePlots(path, format string, plots ...*plot.Plot) error {
 			p.Draw(canvases[i][0])
 		}
 	}
-	return writeFileAtomic(path, func(w io.Writer) error {
+	return pf.files.write(pf.path, func(w io.Writer) error {
 		_, err := c.WriteTo(w)
 		return err
 	})
@@ -422,7 +402,7 @@ func writeRatePlot(pf *plotFlag, name string, md *kinetics.Model, temps []float6
 	if err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, ps...)
+	return savePlots(pf, ps...)
 }
 
 // addRefLines draws T_e and T_g, each where it is positive, as grey dashed
@@ -507,7 +487,7 @@ func drawCCT(pf *plotFlag, p *plot.Plot, fig *tttFigure, cl *kinetics.Cooling, c
 	}
 	p.X.Min, p.X.Max = xmin, xmax
 	placeLegend(p, all)
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // zonePlot draws the metastable zone width against the cooling rate, the
@@ -530,5 +510,5 @@ func zonePlot(pf *plotFlag, name string, pts plotter.XYs) error {
 	}
 	p.X.Min, p.X.Max = lo/1.5, hi*1.5 // room for the decade labels at the ends
 	p.Add(plotter.NewGrid(), l, s)
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }

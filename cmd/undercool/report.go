@@ -3,7 +3,6 @@ package main
 import (
 	"bytes"
 	"io"
-	"os"
 	"path/filepath"
 	"strings"
 	"time"
@@ -24,8 +23,7 @@ func init() {
 	}
 }
 
-// outFlag is --out FILE or -, checked before any work: a file in a
-// directory that exists, where a file can be made.
+// outFlag is --out FILE or -, checked before any work (register).
 type outFlag struct {
 	given
 	path string
@@ -35,19 +33,15 @@ func (f *outFlag) Set(s string) error {
 	if s == "" {
 		return bad("required: the memo file, e.g. --out memo.md, or --out - to print it")
 	}
-	if s != "-" {
-		if err := checkDir(s); err != nil {
-			return err
-		}
-		probe, err := os.CreateTemp(filepath.Dir(s), ".undercool-probe-*")
-		if err != nil {
-			return bad("cannot write %s: %v", s, unwrapPath(err))
-		}
-		probe.Close()
-		os.Remove(probe.Name())
-	}
 	f.path, f.given = s, given{true, s}
 	return nil
+}
+
+func (f *outFlag) register(name string, fl *files) error {
+	if !f.set || f.path == "-" {
+		return nil
+	}
+	return fl.output(name, f.path)
 }
 
 func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
@@ -56,7 +50,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(out, "out", "the memo, FILE.md, or - for standard output; required")
 	jf := addJMAKFlags(fs, false)
 	at := addTemp(fs, e, "at", "also answer for a hold (storage, anneal) at this temperature, K, C or F (bare = K)")
-	curve := addText(fs, "curve", "also answer for a measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c)")
+	curve := addInput(fs, "curve", "also answer for a measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c)")
 	volume := addVolume(fs, "a sample volume", "sample volume for the onset of nucleation at the critical rate and on --curve, m3, mm3, uL, mL or L (> 0)")
 	pf := &plotFlag{svgOnly: "the memo's plot is an SVG file (FILE.svg)"}
 	fs.Var(pf, "plot", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
@@ -87,6 +81,12 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			in.Date = time.Now().UTC().Format("2006-01-02")
 		}
 		plot := memoPlot(out.path, pf)
+		if plot != "" && !pf.set {
+			// The plot beside the memo: checked with it, before any work.
+			if err := e.files.output("out", plot); err != nil {
+				return err
+			}
+		}
 		if plot != "" {
 			in.Plot = plot
 			if out.path != "-" {
@@ -121,8 +121,9 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err := writeBlocks(&b, m.Blocks()); err != nil {
 			return err
 		}
+		// The memo and its plot are one set: written together or not at all.
 		if plot != "" {
-			if err := writeMemoPlot(plot, m, in.Card, in.Model); err != nil {
+			if err := writeMemoPlot(&e.files, plot, m, in.Card, in.Model); err != nil {
 				return err
 			}
 		}
@@ -130,13 +131,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			_, err := e.stdout.Write(b.Bytes())
 			return err
 		}
-		if err := writeFileAtomic(out.path, func(w io.Writer) error { _, err := w.Write(b.Bytes()); return err }); err != nil {
-			if plot != "" {
-				os.Remove(plot)
-			}
-			return err
-		}
-		return nil
+		return e.files.write(out.path, func(w io.Writer) error { _, err := w.Write(b.Bytes()); return err })
 	}
 }
 
@@ -155,8 +150,8 @@ func memoPlot(out string, pf *plotFlag) string {
 // writeMemoPlot draws the TTT curve beside the memo, with the CCT curve and
 // the cooling line at the critical rate over it where there is one (the
 // figure of undercool cool --critical --plot).
-func writeMemoPlot(path string, m *answer.Memo, c *presets.Card, md *kinetics.Model) error {
-	pf := &plotFlag{path: path, format: "svg"}
+func writeMemoPlot(fl *files, path string, m *answer.Memo, c *presets.Card, md *kinetics.Model) error {
+	pf := &plotFlag{path: path, format: "svg", files: fl}
 	if m.WithCCT() {
 		cr := m.Cool
 		return cctPlot(pf, cr.Path, md, c.Name, cr.X, []float64{cr.Qc}, true, cr.Qc)

@@ -159,5 +159,5 @@ func writeTTTPlot(pf *plotFlag, md *kinetics.Model, name string, table *kinetics
 	if err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }

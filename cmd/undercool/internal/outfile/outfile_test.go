@@ -119,7 +119,9 @@ func TestRefusedTargets(t *testing.T) {
 	}
 	for _, c := range cases {
 		var b Batch
-		b.Input(in)
+		if err := b.Input(in); err != nil {
+			t.Fatal(err)
+		}
 		err := b.Check(c.path)
 		var oe *Error
 		if !errors.As(err, &oe) || !oe.Usage || !strings.Contains(err.Error(), c.want) {
@@ -163,16 +165,14 @@ func TestFullDiskKeepsTheOldSet(t *testing.T) {
 	memo, plot := filepath.Join(dir, "memo.md"), filepath.Join(dir, "memo-ttt.svg")
 	write(t, memo, "old memo", 0o644)
 	write(t, plot, "old plot", 0o644)
-	defer func(w func(*os.File) io.Writer) { wrapWriter = w }(wrapWriter)
 	calls := 0
-	wrapWriter = func(f *os.File) io.Writer {
+	b := Batch{Wrap: func(f io.Writer) io.Writer {
 		calls++
 		if calls == 2 {
 			return &full{w: f, n: 3}
 		}
 		return f
-	}
-	var b Batch
+	}}
 	defer b.Discard()
 	if err := b.Add(plot, text("new plot")); err != nil {
 		t.Fatal(err)
@@ -191,6 +191,29 @@ func TestFullDiskKeepsTheOldSet(t *testing.T) {
 	}
 	if extra := debris(t, dir, "memo.md", "memo-ttt.svg"); extra != nil {
 		t.Errorf("left behind %v", extra)
+	}
+}
+
+// An input named after its output was checked is refused too: the order
+// in which a command learns of its files does not matter.
+func TestInputAfterCheck(t *testing.T) {
+	dir := t.TempDir()
+	card := filepath.Join(dir, "my.toml")
+	write(t, card, "name = \"x\"", 0o644)
+	var b Batch
+	if err := b.Check(card); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Input(filepath.Join(dir, "no-such.csv")); err != nil {
+		t.Errorf("a missing input: %v", err)
+	}
+	err := b.Input(filepath.Join(dir, ".", "my.toml"))
+	var oe *Error
+	if !errors.As(err, &oe) || !oe.Usage || oe.Path != card || !strings.Contains(err.Error(), "also an input") {
+		t.Errorf("Input after Check = %v, want a usage error naming %s", err, card)
+	}
+	if read(t, card) != "name = \"x\"" {
+		t.Error("the input changed")
 	}
 }
 
