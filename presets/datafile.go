@@ -6,7 +6,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"os"
 	"strings"
 
@@ -84,16 +83,20 @@ func acceptedHeaders(cols []Column) string {
 
 // ReadData reads a CSV whose first non-comment row is a header of unit-bearing
 // names; '#' starts a comment line and blank lines are skipped. Every value
-// must be a finite number. Errors name the file and line.
+// must be a finite number. Errors name the file and line; more than
+// MaxDataBytes or MaxDataRows is a *LimitError.
 func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
-	br := bufio.NewReader(r)
+	lr := &limitedReader{r: r, n: MaxDataBytes, line: MaxLineBytes}
+	br := bufio.NewReader(lr)
 	cr := csv.NewReader(br)
 	cr.Comment = '#'
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
+	cr.ReuseRecord = true
 	d := &Data{File: file, Columns: map[string][]float64{}, Headers: map[string]string{}}
-	var index []int      // column position → cols index (−1: ignored)
-	var unitsOf []string // column position → unit text
+	var index []int                           // column position → cols index
+	var parse []func(string) (float64, error) // column position → its parser
+	var values [][]float64                    // column position → its values
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
@@ -101,6 +104,12 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 		}
 		if err != nil {
 			var pe *csv.ParseError
+			switch {
+			case errors.Is(err, errTooLarge):
+				return nil, tooLarge(file, MaxDataBytes, "a data file")
+			case errors.Is(err, errLineTooLong):
+				return nil, &LimitError{fmt.Sprintf("%s:%d", file, lr.lines+1), fmt.Sprintf("a line longer than the %d KiB a line of a data file may be", MaxLineBytes>>10)}
+			}
 			if errors.As(err, &pe) {
 				return nil, fmt.Errorf("%s:%d: not valid CSV: %v", file, pe.Line, pe.Err)
 			}
@@ -112,25 +121,26 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 		}
 		if index == nil {
 			index = make([]int, len(rec))
-			unitsOf = make([]string, len(rec))
+			parse = make([]func(string) (float64, error), len(rec))
+			values = make([][]float64, len(rec))
 			seen := map[int]bool{}
 			for j, h := range rec {
 				i, u, ok := matchHeader(h, cols)
 				if !ok {
-					return nil, fmt.Errorf("%s:%d: unknown column %q; accepted: %s", file, line, strings.TrimSpace(h), acceptedHeaders(cols))
+					return nil, fmt.Errorf("%s:%d: unknown column %s; accepted: %s", file, line, units.Quote(strings.TrimSpace(h)), acceptedHeaders(cols))
 				}
 				if seen[i] {
 					return nil, fmt.Errorf("%s:%d: two columns for %s", file, line, cols[i].Quantity)
 				}
 				seen[i] = true
-				if u != "" {
-					if _, err := units.Parse("1"+u, cols[i].Kind); err != nil {
-						return nil, fmt.Errorf("%s:%d: column %q: unit %q is not a unit of %s (use %s)", file, line, strings.TrimSpace(h), u, cols[i].Kind.Name, strings.Join(cols[i].Kind.Units(), ", "))
-					}
-				} else if !cols[i].Kind.Bare || len(cols[i].Kind.Units()) > 0 {
-					return nil, fmt.Errorf("%s:%d: column %q needs a unit, e.g. %s_%s", file, line, h, cols[i].Quantity, headerExample(cols[i].Kind))
+				if u == "" && (!cols[i].Kind.Bare || len(cols[i].Kind.Units()) > 0) {
+					return nil, fmt.Errorf("%s:%d: column %s needs a unit, e.g. %s_%s", file, line, units.Quote(h), cols[i].Quantity, headerExample(cols[i].Kind))
 				}
-				index[j], unitsOf[j] = i, u
+				p, err := cols[i].Kind.In(u)
+				if err != nil {
+					return nil, fmt.Errorf("%s:%d: column %s: unit %s is not a unit of %s (use %s)", file, line, units.Quote(strings.TrimSpace(h)), units.Quote(u), cols[i].Kind.Name, strings.Join(cols[i].Kind.Units(), ", "))
+				}
+				index[j], parse[j] = i, p
 				d.Headers[cols[i].Quantity] = strings.TrimSpace(h)
 			}
 			for _, c := range cols {
@@ -140,18 +150,24 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 			}
 			continue
 		}
+		if len(d.Lines) == MaxDataRows {
+			return nil, &LimitError{file, fmt.Sprintf("more than the %d data rows a data file may have", MaxDataRows)}
+		}
 		if len(rec) != len(index) {
 			return nil, fmt.Errorf("%s:%d: %d fields, header has %d", file, line, len(rec), len(index))
 		}
 		for j, f := range rec {
 			c := cols[index[j]]
-			v, err := units.Parse(strings.TrimSpace(f)+unitsOf[j], c.Kind)
-			if err != nil || math.IsNaN(v) {
-				return nil, fmt.Errorf("%s:%d: column %q: %q is not a finite number", file, line, d.Headers[c.Quantity], strings.TrimSpace(f))
+			v, err := parse[j](f)
+			if err != nil {
+				return nil, fmt.Errorf("%s:%d: column %s: %s is not a finite number", file, line, units.Quote(d.Headers[c.Quantity]), units.Quote(strings.TrimSpace(f)))
 			}
-			d.Columns[c.Quantity] = append(d.Columns[c.Quantity], v)
+			values[j] = append(values[j], v)
 		}
 		d.Lines = append(d.Lines, line)
+	}
+	for j, v := range values {
+		d.Columns[cols[index[j]].Quantity] = v
 	}
 	if index == nil {
 		return nil, fmt.Errorf("%s: empty file: no header row", file)

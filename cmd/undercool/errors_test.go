@@ -224,6 +224,9 @@ var errorCases = []struct {
 	{"fit_plot", []string{"fit", "arrhenius", "$WORK/bad.csv", "--plot", "$WORK/bad.svg"}, `bad.csv:2: column "diffusivity_m2_per_s": -1 must be positive`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--plot", "rate.jpg"}, `^undercool: --plot: "rate.jpg": unsupported plot file type ".jpg" \(use .svg or .png\)$`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--temps", "900", "--plot", "one.svg"}, `^undercool: --plot: a rate plot needs more than one temperature`, 2},
+	{"limits", []string{"hold", "--material", "/dev/zero", "--at", "300K"}, `^undercool: --material: /dev/zero: larger than the 4 MiB a card may be$`, 2},
+	{"limits", []string{"cool", "--material", "demo-alloy", "--curve", "/dev/zero"}, `^undercool: --curve: /dev/zero:1: a line longer than the 64 KiB a line of a data file may be$`, 2},
+	{"limits", []string{"fit", "avrami", "/dev/zero"}, `^undercool: /dev/zero:1: a line longer than the 64 KiB a line of a data file may be$`, 2},
 }
 
 // caseFiles writes the files of the in-process cases (testdata/cases) to
