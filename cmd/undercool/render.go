@@ -17,8 +17,12 @@ import (
 	"undercool/presets/answer"
 )
 
-// render writes an answer in the format asked for.
+// render writes an answer in the format asked for, once its results are
+// checked: a result that came out NaN is an error, not a printed NaN.
 func render(w io.Writer, format string, a answer.Answer) error {
+	if err := answer.Check(a); err != nil {
+		return err
+	}
 	var b bytes.Buffer
 	var err error
 	switch format {

@@ -117,6 +117,9 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err != nil {
 			return err
 		}
+		if err := answer.Check(m); err != nil {
+			return err
+		}
 		var b bytes.Buffer
 		if err := writeBlocks(&b, m.Blocks()); err != nil {
 			return err

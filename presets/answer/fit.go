@@ -149,7 +149,7 @@ func scatterOf(r2, sd float64, dof int, t float64) Scatter {
 
 // Gamma is a fitted interfacial energy with its spread.
 type Gamma struct {
-	Gamma Num      `json:"gamma_j_per_m2"`
+	Gamma Num      `json:"gamma_j_per_m2" result:"interfacial energy"`
 	SE    Num      `json:"gamma_se_j_per_m2"`
 	CI    Interval `json:"gamma_ci95_j_per_m2"`
 }

@@ -31,13 +31,13 @@ type AvramiInputs struct {
 // FitAvrami is X = 1 − exp(−k·tⁿ) fitted to transformed fractions.
 type FitAvrami struct {
 	Inputs   AvramiInputs `json:"inputs"`
-	N        Num          `json:"avrami_exponent"`
+	N        Num          `json:"avrami_exponent" result:"Avrami exponent n"`
 	NSE      Num          `json:"avrami_exponent_se"`
 	NCI      Interval     `json:"avrami_exponent_ci95"`
 	K        Num          `json:"rate_constant"`
 	KUnit    string       `json:"rate_constant_unit"`
 	KCI      Interval     `json:"rate_constant_ci95"`
-	LnK      Num          `json:"ln_rate_constant"`
+	LnK      Num          `json:"ln_rate_constant" result:"ln of the rate constant k"`
 	LnKSE    Num          `json:"ln_rate_constant_se"`
 	Half     Num          `json:"half_time_s"`
 	HalfCI   Interval     `json:"half_time_ci95_s"`

@@ -35,7 +35,7 @@ type FitInterface struct {
 	Gamma
 	Scale     Num      `json:"prefactor_scale"`
 	ScaleCI   Interval `json:"prefactor_scale_ci95"`
-	LnScale   Num      `json:"ln_prefactor_scale"`
+	LnScale   Num      `json:"ln_prefactor_scale" result:"ln of the prefactor scale"`
 	LnScaleSE Num      `json:"ln_prefactor_scale_se"`
 	Scatter
 	Slope       Num            `json:"classical_slope_k_j2_per_m6"`
