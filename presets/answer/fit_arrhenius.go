@@ -148,7 +148,8 @@ func Arrhenius(data FitData, names Names) (*FitArrhenius, error) {
 		Warnings: celsiusWarnings(T, res),
 		Fit:      res, T: T, Y: y, q: *q, Data: data, names: names,
 	}
-	for i, t := range T {
+	a.Rows = []ArrheniusRow{}
+	for i, t := range T[:listed(data, len(T))] {
 		a.Rows = append(a.Rows, ArrheniusRow{fmt.Sprint(d.Lines[i]), Num(t), Num(units.Celsius(t)), Num(1 / t), Num(y[i]), Num(math.Exp(l.At(1 / t))), Num(l.Residuals[i])})
 	}
 	return a, nil

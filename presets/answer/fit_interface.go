@@ -109,7 +109,8 @@ func Interface(c *presets.Card, md *kinetics.Model, data FitData, names Names) (
 	} else {
 		a.Sites = Num(f.Sites)
 	}
-	for i, t := range T {
+	a.Rows = []InterfaceRow{}
+	for i, t := range T[:listed(data, len(T))] {
 		s := res.Model.At(t)
 		a.Rows = append(a.Rows, InterfaceRow{
 			fmt.Sprint(d.Lines[i]), Num(t), Num(units.Celsius(t)), Num(lnJ[i] / math.Ln10),
