@@ -38,3 +38,25 @@ func TestFitListsItsPoints(t *testing.T) {
 		}
 	}
 }
+
+// Too few samples for a band: every format says the band is meaningless,
+// rather than printing P5 = P50 = P95 as if it were one; enough samples
+// say nothing.
+func TestFewSamplesWarn(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct {
+		args []string
+		warn bool
+	}{
+		{[]string{"hold", "--material", "demo-alloy", "--at", "900K", "--spread", "gamma=2%", "--samples", "1"}, true},
+		{[]string{"hold", "--material", "demo-alloy", "--at", "900K", "--spread", "gamma=2%", "--samples", "1", "--format", "json"}, true},
+		{[]string{"ttt", "--material", "demo-alloy", "--spread", "gamma=2%", "--samples", "20", "--format", "csv"}, true},
+		{[]string{"report", "--material", "demo-alloy", "--spread", "gamma=2%", "--samples", "5", "--out", "-"}, true},
+		{[]string{"hold", "--material", "demo-alloy", "--at", "900K", "--spread", "gamma=2%", "--samples", "21"}, false},
+	} {
+		code, stdout, stderr := runIn(t, dir, c.args...)
+		if code != 0 || strings.Contains(stdout, "the bands are meaningless") != c.warn {
+			t.Errorf("%q: exit %d, warning %v, want %v: %s", c.args, code, !c.warn, c.warn, stderr)
+		}
+	}
+}
