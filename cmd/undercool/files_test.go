@@ -1,18 +1,18 @@
 package main
 
 import (
-	"bufio"
 	"bytes"
 	"errors"
 	"io"
 	"os"
-	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strings"
 	"syscall"
 	"testing"
 	"time"
+
+	"undercool/cmd/undercool/internal/faulty"
 )
 
 // The files a command writes, run in-process: what happens to existing
@@ -27,40 +27,6 @@ func runIn(t *testing.T, dir string, args ...string) (code int, stdout, stderr s
 	var out, errOut bytes.Buffer
 	code = run(args, strings.NewReader(""), &out, &errOut)
 	return code, out.String(), errOut.String()
-}
-
-// put writes a file with its mode (chmod, so that the umask does not trim it).
-func put(t *testing.T, path, content string, perm os.FileMode) {
-	t.Helper()
-	if err := os.WriteFile(path, []byte(content), perm); err != nil {
-		t.Fatal(err)
-	}
-	if err := os.Chmod(path, perm); err != nil {
-		t.Fatal(err)
-	}
-}
-
-func contentOf(t *testing.T, path string) string {
-	t.Helper()
-	b, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return string(b)
-}
-
-// names lists the entries of dir.
-func names(t *testing.T, dir string) []string {
-	t.Helper()
-	ents, err := os.ReadDir(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
-	var out []string
-	for _, e := range ents {
-		out = append(out, e.Name())
-	}
-	return out
 }
 
 // failed checks a run that must fail with code and one line on stderr
@@ -78,7 +44,7 @@ func TestOutputModes(t *testing.T) {
 	old := syscall.Umask(0o027)
 	defer syscall.Umask(old)
 	dir := t.TempDir()
-	put(t, filepath.Join(dir, "memo.md"), "old memo", 0o600)
+	faulty.Put(t, filepath.Join(dir, "memo.md"), "old memo", 0o600)
 	code, _, stderr := runIn(t, dir, "report", "--material", "demo-alloy", "--date", "2026-01-15", "--out", "memo.md")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
@@ -92,7 +58,7 @@ func TestOutputModes(t *testing.T) {
 			t.Errorf("%s: mode %o, want %o", name, info.Mode().Perm(), want)
 		}
 	}
-	if !strings.HasPrefix(contentOf(t, filepath.Join(dir, "memo.md")), "# Transformation estimate") {
+	if !strings.HasPrefix(faulty.Content(t, filepath.Join(dir, "memo.md")), "# Transformation estimate") {
 		t.Error("the memo was not replaced")
 	}
 }
@@ -106,13 +72,13 @@ func TestRefusedOutputs(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	put(t, filepath.Join(dir, "q.csv"), string(curve), 0o644)
-	put(t, filepath.Join(dir, "ro.svg"), "read-only", 0o444)
+	faulty.Put(t, filepath.Join(dir, "q.csv"), string(curve), 0o644)
+	faulty.Put(t, filepath.Join(dir, "ro.svg"), "read-only", 0o444)
 	card := "name = \"own\"\nkind = \"demo\"\ndescription = \"invented for this test\"\ndriving = \"table\"\ndriving_table = \"dg.csv\"\n" +
 		"[values]\nte = { value = \"1000 K\", source = \"invented for this test\" }\n"
-	put(t, filepath.Join(dir, "my.toml"), card, 0o644)
-	put(t, filepath.Join(dir, "dg.csv"), "temperature_k,dg_j_per_mol\n900,100\n1000,0\n", 0o644)
-	put(t, filepath.Join(dir, "d.csv"), "temperature_c,diffusivity_m2_per_s\n500,1e-14\n600,1e-13\n", 0o644)
+	faulty.Put(t, filepath.Join(dir, "my.toml"), card, 0o644)
+	faulty.Put(t, filepath.Join(dir, "dg.csv"), "temperature_k,dg_j_per_mol\n900,100\n1000,0\n", 0o644)
+	faulty.Put(t, filepath.Join(dir, "d.csv"), "temperature_c,diffusivity_m2_per_s\n500,1e-14\n600,1e-13\n", 0o644)
 	cases := []struct {
 		args []string
 		want string
@@ -125,16 +91,16 @@ func TestRefusedOutputs(t *testing.T) {
 		{[]string{"report", "--material", "demo-alloy", "--out", "x.md", "--plot", "x.md"}, `^undercool: --plot: "x\.md": the memo's plot is an SVG file`},
 		{[]string{"report", "--material", "demo-alloy", "--out", "x-ttt.svg", "--plot", "x-ttt.svg"}, `already an output`},
 	}
-	before := names(t, dir)
+	before := faulty.Names(t, dir)
 	for _, c := range cases {
 		code, stdout, stderr := runIn(t, dir, c.args...)
 		failed(t, code, stdout, stderr, 2, c.want)
 	}
-	if after := names(t, dir); strings.Join(after, " ") != strings.Join(before, " ") {
+	if after := faulty.Names(t, dir); strings.Join(after, " ") != strings.Join(before, " ") {
 		t.Errorf("files now %v, before %v", after, before)
 	}
-	if contentOf(t, filepath.Join(dir, "q.csv")) != string(curve) || contentOf(t, filepath.Join(dir, "ro.svg")) != "read-only" ||
-		contentOf(t, filepath.Join(dir, "my.toml")) != card {
+	if faulty.Content(t, filepath.Join(dir, "q.csv")) != string(curve) || faulty.Content(t, filepath.Join(dir, "ro.svg")) != "read-only" ||
+		faulty.Content(t, filepath.Join(dir, "my.toml")) != card {
 		t.Error("a refused file changed")
 	}
 }
@@ -144,7 +110,7 @@ func TestRefusedOutputs(t *testing.T) {
 // would itself fail, later, with another message).
 func TestOutputsCheckedFirst(t *testing.T) {
 	dir := t.TempDir()
-	put(t, filepath.Join(dir, "ro.svg"), "read-only", 0o444)
+	faulty.Put(t, filepath.Join(dir, "ro.svg"), "read-only", 0o444)
 	code, stdout, stderr := runIn(t, dir, "ttt", "--material", "demo-alloy", "--range", "1300:1200", "--plot", "ro.svg")
 	failed(t, code, stdout, stderr, 2, `^undercool: --plot: cannot write ro\.svg: the file is read-only`)
 	if os.Geteuid() == 0 {
@@ -176,26 +142,9 @@ func TestLongNames(t *testing.T) {
 			}
 		}
 	}
-	if len(names(t, dir)) != 6 {
-		t.Errorf("left behind: %v", names(t, dir))
+	if len(faulty.Names(t, dir)) != 6 {
+		t.Errorf("left behind: %v", faulty.Names(t, dir))
 	}
-}
-
-// full fails with ENOSPC once n bytes are written, as a full disk does,
-// naming the temporary file as the system would.
-type full struct {
-	w io.Writer
-	n int
-}
-
-func (f *full) Write(p []byte) (int, error) {
-	if len(p) > f.n {
-		k, _ := f.w.Write(p[:f.n])
-		f.n = 0
-		return k, &os.PathError{Op: "write", Path: ".uc-0badf00d", Err: syscall.ENOSPC}
-	}
-	f.n -= len(p)
-	return f.w.Write(p)
 }
 
 // failNth puts a full disk behind the nth staged file of each run.
@@ -204,7 +153,7 @@ func failNth(t *testing.T, n int) {
 	stageWriter = func(w io.Writer) io.Writer {
 		calls++
 		if calls == n {
-			return &full{w: w, n: 100}
+			return &faulty.Full{W: w, N: 100}
 		}
 		return w
 	}
@@ -216,15 +165,15 @@ func failNth(t *testing.T, n int) {
 // temporary file, exits 1 and names the memo, not the temporary file.
 func TestFullDiskKeepsTheOldMemoAndPlot(t *testing.T) {
 	dir := t.TempDir()
-	put(t, filepath.Join(dir, "memo.md"), "old memo", 0o644)
-	put(t, filepath.Join(dir, "memo-ttt.svg"), "old plot", 0o644)
+	faulty.Put(t, filepath.Join(dir, "memo.md"), "old memo", 0o644)
+	faulty.Put(t, filepath.Join(dir, "memo-ttt.svg"), "old plot", 0o644)
 	failNth(t, 2)
 	code, stdout, stderr := runIn(t, dir, "report", "--material", "demo-alloy", "--out", "memo.md")
 	failed(t, code, stdout, stderr, 1, `^undercool: --out: cannot write memo\.md: no space left on device$`)
-	if contentOf(t, filepath.Join(dir, "memo.md")) != "old memo" || contentOf(t, filepath.Join(dir, "memo-ttt.svg")) != "old plot" {
+	if faulty.Content(t, filepath.Join(dir, "memo.md")) != "old memo" || faulty.Content(t, filepath.Join(dir, "memo-ttt.svg")) != "old plot" {
 		t.Error("the old memo or plot changed")
 	}
-	if got := names(t, dir); len(got) != 2 {
+	if got := faulty.Names(t, dir); len(got) != 2 {
 		t.Errorf("left behind: %v", got)
 	}
 }
@@ -233,15 +182,15 @@ func TestFullDiskKeepsTheOldMemoAndPlot(t *testing.T) {
 // old plot, and prints nothing.
 func TestFullDiskKeepsTheOldFitFiles(t *testing.T) {
 	dir := t.TempDir()
-	put(t, filepath.Join(dir, "fit.svg"), "old plot", 0o644)
+	faulty.Put(t, filepath.Join(dir, "fit.svg"), "old plot", 0o644)
 	failNth(t, 2)
 	repo, _ := filepath.Abs(repoRoot())
 	code, stdout, stderr := runIn(t, dir, "fit", "arrhenius", filepath.Join(repo, "testdata/fit/diffusion.csv"), "--plot", "fit.svg", "--card-out", "fit.toml")
 	failed(t, code, stdout, stderr, 1, `^undercool: --card-out: cannot write fit\.toml: no space left on device$`)
-	if contentOf(t, filepath.Join(dir, "fit.svg")) != "old plot" {
+	if faulty.Content(t, filepath.Join(dir, "fit.svg")) != "old plot" {
 		t.Error("the old plot changed")
 	}
-	if got := names(t, dir); len(got) != 1 {
+	if got := faulty.Names(t, dir); len(got) != 1 {
 		t.Errorf("left behind: %v", got)
 	}
 }
@@ -271,7 +220,7 @@ func TestDeviceOutput(t *testing.T) {
 	if code != 0 {
 		t.Errorf("--out /dev/null: exit %d: %s", code, stderr)
 	}
-	if got := names(t, dir); len(got) != 2 {
+	if got := faulty.Names(t, dir); len(got) != 2 {
 		t.Errorf("left behind: %v", got)
 	}
 }
@@ -339,7 +288,7 @@ func TestInterruptLeavesNoDebris(t *testing.T) {
 			}
 			return writerFunc(func(p []byte) (int, error) {
 				w.Write(p[:1])
-				os.Stdout.WriteString("staged\n")
+				os.Stdout.WriteString(faulty.Staged)
 				time.Sleep(time.Minute)
 				return 0, errors.New("not interrupted")
 			})
@@ -352,36 +301,20 @@ func TestInterruptLeavesNoDebris(t *testing.T) {
 		return
 	}
 	dir := t.TempDir()
-	put(t, filepath.Join(dir, "memo.md"), "old memo", 0o644)
-	put(t, filepath.Join(dir, "memo-ttt.svg"), "old plot", 0o644)
-	cmd := exec.Command(os.Args[0], "-test.run=^TestInterruptLeavesNoDebris$")
-	cmd.Env = append(os.Environ(), "UNDERCOOL_INTERRUPT_DIR="+dir)
-	out, err := cmd.StdoutPipe()
-	if err != nil {
-		t.Fatal(err)
+	faulty.Put(t, filepath.Join(dir, "memo.md"), "old memo", 0o644)
+	faulty.Put(t, filepath.Join(dir, "memo-ttt.svg"), "old plot", 0o644)
+	code := faulty.Interrupt(t, "TestInterruptLeavesNoDebris", "UNDERCOOL_INTERRUPT_DIR="+dir, func() {
+		if got := faulty.Names(t, dir); len(got) != 4 {
+			t.Errorf("while writing: %v, want the two files and two staged ones", got)
+		}
+	})
+	if code != 130 {
+		t.Errorf("child ended with status %d, want 130", code)
 	}
-	if err := cmd.Start(); err != nil {
-		t.Fatal(err)
-	}
-	line, _ := bufio.NewReader(out).ReadString('\n')
-	if line != "staged\n" {
-		cmd.Process.Kill()
-		cmd.Wait()
-		t.Fatalf("child said %q", line)
-	}
-	if got := names(t, dir); len(got) != 4 {
-		t.Errorf("while writing: %v, want the two files and two staged ones", got)
-	}
-	cmd.Process.Signal(syscall.SIGINT)
-	err = cmd.Wait()
-	var ee *exec.ExitError
-	if !errors.As(err, &ee) || ee.ExitCode() != 130 {
-		t.Errorf("child ended with %v, want status 130", err)
-	}
-	if got := names(t, dir); len(got) != 2 {
+	if got := faulty.Names(t, dir); len(got) != 2 {
 		t.Errorf("left behind: %v", got)
 	}
-	if contentOf(t, filepath.Join(dir, "memo.md")) != "old memo" || contentOf(t, filepath.Join(dir, "memo-ttt.svg")) != "old plot" {
+	if faulty.Content(t, filepath.Join(dir, "memo.md")) != "old memo" || faulty.Content(t, filepath.Join(dir, "memo-ttt.svg")) != "old plot" {
 		t.Error("the old memo or plot changed")
 	}
 }

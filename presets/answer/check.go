@@ -53,7 +53,7 @@ func check(v reflect.Value) error {
 		t := v.Type()
 		for i := range t.NumField() {
 			f := t.Field(i)
-			if !f.IsExported() || f.Tag.Get("json") == "-" {
+			if !answered(f) {
 				continue
 			}
 			if what, ok := f.Tag.Lookup("result"); ok {
@@ -71,6 +71,10 @@ func check(v reflect.Value) error {
 	}
 	return nil
 }
+
+// answered reports whether a field is part of the answer: exported, and
+// not left out of the JSON.
+func answered(f reflect.StructField) bool { return f.IsExported() && f.Tag.Get("json") != "-" }
 
 // resultTypes caches hasResults.
 var resultTypes sync.Map // reflect.Type → bool
@@ -91,7 +95,7 @@ func hasResults(t reflect.Type) bool {
 	case reflect.Struct:
 		for i := range t.NumField() {
 			f := t.Field(i)
-			if !f.IsExported() || f.Tag.Get("json") == "-" {
+			if !answered(f) {
 				continue
 			}
 			if _, ok := f.Tag.Lookup("result"); ok || hasResults(f.Type) {
