@@ -328,12 +328,18 @@ func (e *engine) step(stop float64) error {
 			e.dt = h / 4
 			continue
 		}
-		// Corrector (trapezoid rule).
-		var m3h, eSize float64
+		// Corrector (trapezoid rule). A class the predictor leaves at a
+		// size where it cannot exist (growth −Inf) dissolves at once: its
+		// volume, lost, leaves the predictor's state too, so that the two
+		// states differ by the error of the step and not by that release.
+		var m3h, eSize, lost float64
 		for i, x := range e.x {
 			xe, xh := e.xe[i], 0.0
 			if xe > 0 {
 				k2 := e.m.growth(&pe, xe)
+				if math.IsInf(k2, -1) {
+					lost += e.n[i] * xe * xe * xe
+				}
 				if xh = x + h*(e.k1[i]+k2)/2; !(xh > 0) {
 					xh = 0
 				}
@@ -372,8 +378,12 @@ func (e *engine) step(stop float64) error {
 			e.dt = h / 4
 			continue
 		}
+		pc := pe.conc
+		if lost > 0 {
+			pc = e.m.at(T1, m3e-lost, since+h).conc
+		}
 		scale := math.Max(math.Abs(ph.conc-ph.eq), concFloor*math.Abs(ph.eq))
-		eConc := math.Abs(ph.conc-pe.conc) / (e.opt.ConcTol * scale)
+		eConc := math.Abs(ph.conc-pc) / (e.opt.ConcTol * scale)
 		eNum := math.Abs(J1-J0) * h / 2 / (e.opt.RelTol*(total+born) + numberFloor)
 		err := max(eSize, eConc, eNum, eBirth)
 		if math.IsNaN(err) {
