@@ -183,7 +183,7 @@ func setupEvolve(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(ef.schedule, "schedule", scheduleHelp)
 	ef.curve = addText(fs, "curve", "measured temperature history FILE.csv (columns time_UNIT and temperature_UNIT, e.g. time_s,temperature_c, time strictly increasing) in place of --schedule")
 	ef.times = &durationsFlag{}
-	fs.Var(ef.times, "times", "output times from the start of the schedule, comma-separated, s, min, h or d (bare = s), ascending, e.g. 10min,1h,24h")
+	fs.Var(ef.times, "times", "output times from the start of the schedule, comma-separated, s, min, h or d (bare = s), ascending, e.g. 10min,1h,24h; the end of the schedule is always the last row")
 	ef.rows = addCount(fs, "rows", answer.DefaultEvolveRows, 2, 1000, "without --times: rows, half spread evenly in time and half evenly in log time over six decades after the alloy or solution first becomes supersaturated, besides the start, that onset, the break points and the end")
 	ef.classes = addCount(fs, "classes", population.DefaultMaxClasses, 16, 100000, "most size classes kept at once (past it the two closest are merged)")
 	ef.tol = &tolFlag{x: defaultEvolveTol, given: given{text: fmt.Sprint(defaultEvolveTol)}}

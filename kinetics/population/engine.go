@@ -230,7 +230,10 @@ func runRows[R any](ctx context.Context, m model, sol Solubility, what string, s
 	var last sample
 	err = e.run(ctx, func(sm sample) {
 		rows = append(rows, row(sm))
+		// The engine goes on after the last output time (to the end of
+		// the schedule): keep the classes of this one.
 		last = sm
+		last.x, last.n = append([]float64(nil), sm.x...), append([]float64(nil), sm.n...)
 	})
 	if err != nil {
 		return nil, sample{}, nil, err

@@ -21,7 +21,8 @@ type EvolveInput struct {
 	System   *presets.Population
 	Schedule kinetics.Schedule
 	// Times are the output times, s from the start of the schedule,
-	// ascending; nil: Rows times, half spread evenly in time over the
+	// ascending, with the end of the schedule added when they stop short
+	// of it (the final state); nil: Rows times, half spread evenly in time over the
 	// schedule and half evenly in log time over six decades after the
 	// parent first becomes supersaturated, with the start, that onset, the
 	// break points and the end.
@@ -253,7 +254,7 @@ func firstSupersaturated(s kinetics.Schedule, sat func(T float64) bool) float64 
 }
 
 // evolveTimes are the absolute output times: the given ones after the
-// schedule's start, or n more: half spread evenly in time over the
+// schedule's start, and its end, or n more: half spread evenly in time over the
 // schedule (the course of a cooling, of coarsening), half evenly in log
 // time over six decades after the onset of supersaturation, or the start
 // without one (the nucleation after a quench); with the start, the onset,
@@ -270,6 +271,9 @@ func evolveTimes(s kinetics.Schedule, onset float64, given []float64, n int) ([]
 				return nil, fmt.Errorf("the times must increase: %s comes after %s", ReadableTime(t), ReadableTime(given[i-1]))
 			}
 			out[i] = math.Min(t0+t, s.End())
+		}
+		if out[len(out)-1] < s.End()*(1-1e-12) {
+			out = append(out, s.End()) // the final state is at the end
 		}
 		return out, nil
 	}

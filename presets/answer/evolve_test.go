@@ -69,8 +69,11 @@ func TestEvolveTimes(t *testing.T) {
 		t.Errorf("%d default times, want 25 and the 5 special ones at most", n)
 	}
 	given, err := evolveTimes(s, onset, []float64{0, 60, s.Duration()}, 0)
-	if err != nil || given[1] != 60 || given[2] != s.End() {
+	if err != nil || len(given) != 3 || given[1] != 60 || given[2] != s.End() {
 		t.Errorf("given times: %v, %v", given, err)
+	}
+	if short, err := evolveTimes(s, onset, []float64{60}, 0); err != nil || len(short) != 2 || short[1] != s.End() {
+		t.Errorf("times short of the end: %v, %v, want the end added", short, err)
 	}
 	for _, bad := range [][]float64{{-1}, {1e9}, {60, 60}, {60, 30}} {
 		if _, err := evolveTimes(s, onset, bad, 0); err == nil {
