@@ -91,6 +91,7 @@ const (
 	cancelEvery   = 16      // steps between looks at the context
 	stepGrowth    = 5       // largest factor by which a step grows
 	stepShrinkMin = 0.1     // smallest factor by which a rejected step shrinks
+	maxStepDT     = 1.0     // K: the most the temperature changes in one step
 )
 
 // ErrStepUnderflow is returned when the step size collapses: the run
@@ -303,8 +304,15 @@ func (e *engine) step(stop float64) error {
 		xref = b
 	}
 	J0 := rate(p0.lnJ)
+	// Along a ramp the step holds the temperature within maxStepDT: the
+	// error estimate sees only the ends of a step, and a burst of
+	// nucleation in the middle of a fast quench would fall between them.
+	hT := math.Inf(1)
+	if slope := math.Abs(e.s.Before(stop)-T0) / (stop - e.t); slope > 0 {
+		hT = maxStepDT / slope
+	}
 	for {
-		h := math.Min(e.dt, stop-e.t)
+		h := math.Min(math.Min(e.dt, hT), stop-e.t)
 		if !(h > 0) || e.t+h == e.t {
 			if stop-e.t <= 1e-12*math.Abs(stop) {
 				e.t = stop
