@@ -63,15 +63,21 @@ func evolveTimePanels(a *answer.Evolve, name string) ([]*plot.Plot, error) {
 	if math.IsNaN(t0) {
 		t0, xlabel = float64(a.Rows[0].Time), "time since the start (s)"
 	}
-	tmin, tmax := math.Inf(1), 0.0
+	tmin, tmax, first := math.Inf(1), 0.0, math.Inf(1)
 	for _, r := range a.Rows {
 		if t := float64(r.Time) - t0; t > 0 {
 			tmin, tmax = math.Min(tmin, t), math.Max(tmax, t)
+			if r.NumberDensity > 0 {
+				first = math.Min(first, t)
+			}
 		}
 	}
 	if !(tmax > 0) {
 		return nil, placef("--plot: nothing to draw: the run has no output time after its start")
 	}
+	// The axis starts a decade before the first particles: a slow cooling
+	// spends hours supersaturated before anything nucleates.
+	tmin = math.Max(tmin, math.Min(first/10, tmax/100))
 	var out []*plot.Plot
 	for k, s := range series {
 		p := plot.New()

@@ -162,3 +162,17 @@ func TestEvolvePlots(t *testing.T) {
 		t.Errorf("stdout lacks the distribution table")
 	}
 }
+
+// BenchmarkEvolveCommand is the whole command path of a 100 h ageing of
+// the alloy card at 300 °C: the card, the run at the command line's
+// tolerance (1e-4, tighter than the engine benchmark's 1e-3), the answer
+// and its JSON.
+func BenchmarkEvolveCommand(b *testing.B) {
+	args := []string{"evolve", "--material", "al-sc", "--schedule", "hold 100h at 300C", "--format", "json"}
+	for b.Loop() {
+		var stdout, stderr bytes.Buffer
+		if code := run(args, nil, &stdout, &stderr); code != 0 {
+			b.Fatalf("exit %d: %s", code, stderr.String())
+		}
+	}
+}
