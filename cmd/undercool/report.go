@@ -13,6 +13,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"undercool/kinetics"
+	"undercool/kinetics/population"
 	"undercool/presets"
 	"undercool/presets/answer"
 )
@@ -122,7 +123,8 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			if err != nil {
 				return usage(err)
 			}
-			in.Evolve = &answer.EvolveInput{Card: in.Card, System: sys, Schedule: sched.s, Names: flagNames}
+			in.Evolve = &answer.EvolveInput{Card: in.Card, System: sys, Schedule: sched.s, Names: flagNames,
+				Options: population.Options{RelTol: defaultEvolveTol, ConcTol: defaultEvolveTol}}
 			ctx, stop := signal.NotifyContext(baseContext(), os.Interrupt, syscall.SIGTERM)
 			defer stop()
 			in.Context = ctx
