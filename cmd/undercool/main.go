@@ -80,8 +80,11 @@ func explain(cmd string, err error) (string, int) {
 		draws   *answer.SamplingError
 		u       *usageError
 		p       *placed
+		stopped *interrupted
 	)
 	switch {
+	case errors.As(err, &stopped):
+		return err.Error(), 130
 	case errors.As(err, &input):
 		return fmt.Sprintf("%s: %v", flagNames(input.Input), input.Err), 2
 	case errors.As(err, &many):

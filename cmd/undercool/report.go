@@ -4,21 +4,24 @@ import (
 	"bytes"
 	"io"
 	"os"
+	"os/signal"
 	"path/filepath"
 	"strings"
+	"syscall"
 	"time"
 
 	"github.com/spf13/pflag"
 
 	"undercool/kinetics"
+	"undercool/kinetics/population"
 	"undercool/presets"
 	"undercool/presets/answer"
 )
 
 func init() {
 	commands["report"] = &command{
-		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve) and the onset in a sample (--volume), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
-		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
+		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve), the onset in a sample (--volume) and the particles in size classes along a thermal schedule (--schedule: the evolve time table, distribution and figure), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
+		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--schedule 'STEP; STEP ...'|@FILE] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
 		example: "undercool report --material demo-alloy --at 900K --spread gamma=2% --spread d0=x2 --out memo.md",
 		setup:   setupReport,
 	}
@@ -62,6 +65,8 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(pf, "plot", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
 	date := &dateFlag{}
 	fs.Var(date, "date", "the memo's date, YYYY-MM-DD (default: today, UTC)")
+	sched := &scheduleFlag{}
+	fs.Var(sched, "schedule", "also follow the particles in size classes along this "+scheduleHelp+"; the figure goes beside the memo as FILE-evolve.svg")
 	format := addText(fs, "format", "not used: the memo is always Markdown")
 	_ = fs.MarkHidden("format")
 	sf := addSpreadFlags(fs)
@@ -112,10 +117,26 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if in.Sampling, err = sf.sampling(e, in.Card); err != nil {
 			return err
 		}
+		var evolvePlot string
+		if sched.set {
+			sys, err := in.Card.Population()
+			if err != nil {
+				return usage(err)
+			}
+			in.Evolve = &answer.EvolveInput{Card: in.Card, System: sys, Schedule: sched.s, Names: flagNames,
+				Options: population.Options{RelTol: defaultEvolveTol, ConcTol: defaultEvolveTol}}
+			ctx, stop := signal.NotifyContext(baseContext(), os.Interrupt, syscall.SIGTERM)
+			defer stop()
+			in.Context = ctx
+			if out.path != "-" {
+				evolvePlot = strings.TrimSuffix(out.path, filepath.Ext(out.path)) + "-evolve.svg"
+				in.EvolvePlot = filepath.ToSlash(filepath.Base(evolvePlot))
+			}
+		}
 		in.Command = regenerate(fs, sf)
 		m, err := answer.Memos(in)
 		if err != nil {
-			return err
+			return evolveError(err)
 		}
 		var b bytes.Buffer
 		if err := writeBlocks(&b, m.Blocks()); err != nil {
@@ -126,13 +147,27 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 				return err
 			}
 		}
+		if evolvePlot != "" {
+			fig, err := evolveFigure(m.Evolve, in.Card.Name, "svg", true, len(m.Evolve.Histogram) > 0)
+			if err == nil {
+				err = writeFileAtomic(evolvePlot, func(w io.Writer) error { _, err := w.Write(fig); return err })
+			}
+			if err != nil {
+				if plot != "" {
+					os.Remove(plot)
+				}
+				return err
+			}
+		}
 		if out.path == "-" {
 			_, err := e.stdout.Write(b.Bytes())
 			return err
 		}
 		if err := writeFileAtomic(out.path, func(w io.Writer) error { _, err := w.Write(b.Bytes()); return err }); err != nil {
-			if plot != "" {
-				os.Remove(plot)
+			for _, f := range []string{plot, evolvePlot} {
+				if f != "" {
+					os.Remove(f)
+				}
 			}
 			return err
 		}
