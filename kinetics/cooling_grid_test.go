@@ -63,15 +63,18 @@ func TestCoolingTotalsGrid(t *testing.T) {
 // TestCriticalRateConverged: the critical rate of every shipped card
 // against a reference grid 50 times finer in ln J and ln u (steps of 0.01
 // everywhere, some 20,000 to 40,000 nodes; halving them again moves the
-// rate by less than 2e-6). Tolerance 0.2 %; demo-alloy 0.3 %, whose rate
-// errs by +0.24 % from the trapezoidal rule for the grown length where
-// ln u changes by up to maxLnStep in a step (the rule of the integrator,
-// not the grid of the totals: the grid with the far refinement errs by the
-// same). Measured errors: metals −0.03 %, ice +0.03 %, indomethacin,
-// sucrose and vit1 +0.10 to +0.13 %, lithium-disilicate +0.13 %.
+// rate by less than 2e-6). Tolerance 0.2 %; demo-alloy, al-sc and
+// demo-precipitation-DA-2 0.3 %, whose rates err by +0.24 %, +0.22 % and
+// +0.22 % from the trapezoidal rule for the grown length where ln u
+// changes by up to maxLnStep in a step (the rule of the integrator, not
+// the grid of the totals: the grid with the far refinement errs by the
+// same, and refining the ln u step alone to 0.01 recovers the reference
+// for the two dilute alloys). Measured errors: metals −0.03 %, ice
+// +0.03 %, indomethacin, sucrose and vit1 +0.10 to +0.13 %,
+// lithium-disilicate +0.13 %.
 func TestCriticalRateConverged(t *testing.T) {
 	const X = 1e-6
-	tol := map[string]float64{"demo-alloy": 3e-3}
+	tol := map[string]float64{"demo-alloy": 3e-3, "al-sc": 3e-3, "demo-precipitation-DA-2": 3e-3}
 	for _, card := range coolingCards(t) {
 		name, md := card.name, card.md
 		c, err := md.LinearCooling(0)

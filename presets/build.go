@@ -151,6 +151,8 @@ func (b *builder) driving(vm float64) (cnt.DrivingForce, error) {
 	switch c.Driving {
 	case "solution":
 		return b.solution()
+	case "dilute":
+		return b.dilute()
 	case "table":
 		t, err := c.drivingTable()
 		if err != nil {

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"os"
 	"path/filepath"
 	"sort"
 	"strconv"
@@ -247,12 +246,7 @@ func allowedKeys(k toml.Key) string {
 
 // load reads a card from a file, at most MaxCardBytes of it.
 func load(path string) (*Card, error) {
-	f, err := os.Open(path)
-	if err != nil {
-		return nil, fmt.Errorf("cannot read material card %s: %v", path, errors.Unwrap(err))
-	}
-	defer f.Close()
-	data, err := readAll(f, MaxCardBytes, path, "a card")
+	data, err := ReadFile(path, MaxCardBytes, "a card")
 	if err != nil {
 		var le *LimitError
 		if errors.As(err, &le) {

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"os"
 )
 
 // Limits on what is read from a user's files, so that a wrong file (a
@@ -84,6 +85,18 @@ func (l *limitedReader) Read(p []byte) (int, error) {
 		}
 	}
 	return n, err
+}
+
+// ReadFile reads the file at path, at most max bytes of it: a larger one
+// (or a device that never ends) is a *LimitError naming it as what ("a
+// card"); an error opening or reading it is the *os.PathError.
+func ReadFile(path string, max int, what string) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	return readAll(f, max, path, what)
 }
 
 // readAll reads all of r, failing with a *LimitError past max bytes.

@@ -22,7 +22,7 @@ type Param struct {
 	// Spread is how a spread of the value is drawn by default: log-normal
 	// for a factor on a rate (its median the value), normal otherwise.
 	Spread sample.Distribution
-	Group  string // the help group: material, mobility, prefactor or solution
+	Group  string // the help group: material, mobility, prefactor, solution, alloy or crystallizer
 	// For is the model choice that reads the value; zero for a value more
 	// than one model reads. Giving a value of the solution driving force on
 	// the command line chooses that driving force, and a card without a
@@ -66,6 +66,7 @@ var (
 	positive    = Range{0, math.Inf(1), false, "(0, ∞)", "must be positive"}
 	nonNegative = Range{0, math.Inf(1), true, "[0, ∞)", "must not be negative"}
 	angle       = Range{0, 180, false, "(0, 180] degrees", "must lie in (0, 180] degrees"}
+	fraction    = Range{0, 1, false, "(0, 1]", "must lie in (0, 1] as a mole fraction"}
 )
 
 // Contains reports whether x lies in the range.
@@ -94,6 +95,7 @@ var (
 	logNormal = sample.LogNormal
 	mobility  = func(name string) Choice { return Choice{"mobility", name} }
 	solution  = Choice{"driving", "solution"}
+	dilute    = Choice{"driving", "dilute"}
 )
 
 // Params are every numeric value a card may hold, in display order.
@@ -127,6 +129,18 @@ var Params = []Param{
 	{"solute_diffusivity", []units.Kind{units.Diffusivity}, "diffusivity of the solute in the solvent (mobility diffusivity)", positive, logNormal, "solution", mobility("diffusivity")},
 	{"number_conc", []units.Kind{units.NumberDensity}, "solute molecules per volume, for prefactor diffusion (default from conc)", positive, logNormal, "solution", Choice{"prefactor", "diffusion"}},
 	{"growth_rate", []units.Kind{units.Velocity}, "measured crystal growth rate in the solution, for the polynuclear induction time", positive, logNormal, "solution", Choice{}},
+	// Precipitation from a dilute solid solution (driving dilute) and the
+	// size classes of evolve: an ageing alloy, a batch crystallizer.
+	{"c0", []units.Kind{units.MoleFraction}, "solute mole fraction of the alloy, 0 < c0 < cp (e.g. 0.0018 or 0.18 at%)", fraction, normal, "alloy", dilute},
+	{"cp", []units.Kind{units.MoleFraction}, "solute mole fraction of the precipitate, c0 < cp <= 1 (0.25 for an A3B phase)", fraction, normal, "alloy", dilute},
+	{"solvus_a", []units.Kind{units.Dimensionless}, "solvus constant A of ln c_eq = A - B/T, c_eq the solute mole fraction the matrix holds", anyFinite, normal, "alloy", dilute},
+	{"solvus_b", []units.Kind{units.TemperatureDifference}, "solvus constant B of ln c_eq = A - B/T", positive, normal, "alloy", dilute},
+	{"lattice", []units.Kind{units.Length}, "lattice parameter a of the precipitate, for the attachment rate 4 pi r*^2 D c/a^4 of evolve; default v^(1/3)", positive, normal, "alloy", Choice{}},
+	{"growth_kg", []units.Kind{units.Velocity}, "crystal growth constant k_g of G = k_g (S - 1)^g (evolve; without it growth is diffusion-limited)", positive, logNormal, "crystallizer", Choice{}},
+	{"growth_order", []units.Kind{units.Dimensionless}, "growth order g of G = k_g (S - 1)^g, 0 to 10; default 1", nonNegative, normal, "crystallizer", Choice{}},
+	{"kv", []units.Kind{units.Dimensionless}, "volume shape factor k_v of a crystal, volume = k_v L^3; default pi/6 (a sphere of diameter L)", positive, normal, "crystallizer", Choice{}},
+	{"seed_mass", []units.Kind{units.MassConcentration}, "seed crystals charged, mass per volume of solvent (evolve)", positive, normal, "crystallizer", Choice{}},
+	{"seed_size", []units.Kind{units.Length}, "size L of the seed crystals (evolve)", positive, normal, "crystallizer", Choice{}},
 }
 
 // concKinds are the families a concentration or a solubility may be
@@ -165,7 +179,7 @@ func LogNormalKeys() []string {
 
 // Choices are the model names a card or the command line may pick.
 var (
-	DrivingChoices   = []string{"linear", "hoffman", "thompson-spaepen", "cp", "table", "solution"}
+	DrivingChoices   = []string{"linear", "hoffman", "thompson-spaepen", "cp", "table", "solution", "dilute"}
 	MobilityChoices  = []string{"arrhenius", "vft", "wlf", "none", "stokes-einstein", "diffusivity"}
 	KindChoices      = []string{"metal", "glass", "molecular", "solution", "demo"}
 	PrefactorChoices = []string{"attachment", "turnbull-fisher", "fixed", "diffusion"}

@@ -13,6 +13,7 @@ Commands:
 	ttt        TTT curve for a transformed fraction, with its nose
 	hold       time to a fraction at one temperature (storage, anneal)
 	cool       cooling paths: fraction, critical cooling rate, onset, quench factor
+	evolve     particles in size classes along a thermal schedule: ageing, crystallizers
 	fit        fit Arrhenius, interfacial-energy, Avrami or induction-time models to measurements
 	materials  list the shipped material cards, or show one
 	report     a Markdown memo for a material and a question
@@ -30,8 +31,10 @@ Output is a table by default; --format csv, json or markdown give the
 same result for a spreadsheet, a program or a report. JSON values are SI
 and every key ends in its unit.
 
-Exit status is 0 on success, 1 when a computation fails and 2 for bad
-usage or bad input; errors are one line on standard error.
+Exit status is 0 on success, 1 when a computation fails, 2 for bad usage
+or bad input and 130 when a run is interrupted (Ctrl-C); errors are one
+line on standard error. A long run shows its progress on standard error
+when that is a terminal.
 
 The results are estimates: rates depend on the cube of the interfacial
 energy inside an exponential, so a 10 % error in it moves a rate by orders

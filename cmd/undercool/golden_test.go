@@ -132,12 +132,25 @@ var goldenCases = []struct {
 	{"materials-demo.json", []string{"materials", "demo-alloy", "--format", "json"}},
 	{"materials-demo.txt", []string{"materials", "demo-alloy"}},
 	{"materials-paracetamol.json", []string{"materials", "paracetamol-acetone-water", "--format", "json"}},
+	// evolve: particles in size classes along a schedule
+	{"evolve-alsc.txt", []string{"evolve", "--material", "al-sc", "--schedule", "start at 640C; hold 1h; cool to 20C at 50K/s; jump to 300C; hold 24h"}},
+	{"evolve-alsc.json", []string{"evolve", "--material", "al-sc", "--schedule", "hold 24h at 300C", "--rows", "6", "--classes", "40", "--bins", "8", "--format", "json"}},
+	{"evolve-alsc.csv", []string{"evolve", "--material", "al-sc", "--schedule", "hold 24h at 350C", "--times", "1min,10min,1h,6h,24h", "--format", "csv"}},
+	{"evolve-alsc.md", []string{"evolve", "--material", "al-sc", "--schedule", "hold 2h at 300C", "--rows", "8", "--format", "markdown"}},
+	{"evolve-demo-curve.txt", []string{"evolve", "--material", "demo-precipitation-DA-2", "--curve", "../../testdata/curves/demo-age-furnace.csv", "--rows", "12"}},
+	{"evolve-paracetamol.txt", []string{"evolve", "--material", "paracetamol-ethanol", "--growth-kg", "0.1um/s", "--growth-order", "1.5",
+		"--schedule", "start at 30C; cool to -10C at 1K/min; hold 1h", "--rows", "10"}},
+	{"evolve-paracetamol-seeded.json", []string{"evolve", "--material", "paracetamol-ethanol", "--growth-kg", "0.1um/s", "--growth-order", "1.5",
+		"--seed-mass", "10g/L", "--seed-size", "100um", "--schedule", "start at 30C; cool to 0C at 0.2K/min; hold 1h", "--rows", "6", "--classes", "30", "--bins", "6", "--format", "json"}},
+	{"evolve-nothing.txt", []string{"evolve", "--material", "al-sc", "--schedule", "hold 1h at 700C", "--rows", "4"}},
 	// report: the memo
 	{"report-demo.md", []string{"report", "--material", "demo-alloy", "--date", "2026-01-15", "--out", "-"}},
 	{"report-full.md", []string{"report", "--material", "demo-alloy", "--at", "900K", "--curve", "../../testdata/curves/demo-quench.csv",
 		"--volume", "1mm3", "--spread", "gamma=2%", "--spread", "d0=x2", "--samples", "100", "--date", "2026-01-15", "--out", "-"}},
 	{"report-glass.md", []string{"report", "--material", "lithium-disilicate", "--at", "750K", "--date", "2026-01-15", "--out", "-"}},
 	{"report-nuclei.md", []string{"report", "--material", "demo-alloy", "--nuclei", "1e12", "--date", "2026-01-15", "--out", "-"}},
+	{"report-evolve.md", []string{"report", "--material", "al-sc", "--schedule", "start at 640C; hold 1h; cool to 20C at 50K/s; jump to 300C; hold 24h",
+		"--date", "2026-01-15", "--out", "-"}},
 }
 
 // TestGolden runs every pinned case in-process and compares its standard

@@ -85,8 +85,11 @@ func explain(cmd string, err error) (string, int) {
 		u       *usageError
 		p       *placed
 		f       *fileError
+		stopped *interrupted
 	)
 	switch {
+	case errors.As(err, &stopped):
+		return err.Error(), 130
 	case errors.As(err, &f):
 		if f.err.Usage {
 			return f.Error(), 2

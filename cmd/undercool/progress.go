@@ -12,6 +12,7 @@ import (
 // progress draws a bar on stderr for a run that lasts over a second, only
 // when stderr is a terminal.
 type progress struct {
+	label string // what is counted; "" is "sampling"
 	w     io.Writer
 	on    bool
 	start time.Time
@@ -45,7 +46,11 @@ func (p *progress) update(done, total int) {
 	}
 	const width = 30
 	n := width * done / total
-	fmt.Fprintf(p.w, "\rundercool: sampling [%s%s] %d/%d", strings.Repeat("#", n), strings.Repeat(".", width-n), done, total)
+	label := p.label
+	if label == "" {
+		label = "sampling"
+	}
+	fmt.Fprintf(p.w, "\rundercool: %s [%s%s] %d/%d", label, strings.Repeat("#", n), strings.Repeat(".", width-n), done, total)
 	p.drawn, p.last = true, now
 }
 

@@ -9,15 +9,17 @@ import (
 
 	"github.com/spf13/pflag"
 
+	"undercool/cmd/undercool/internal/outfile"
 	"undercool/kinetics"
+	"undercool/kinetics/population"
 	"undercool/presets"
 	"undercool/presets/answer"
 )
 
 func init() {
 	commands["report"] = &command{
-		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve) and the onset in a sample (--volume), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
-		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
+		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve), the onset in a sample (--volume) and the particles in size classes along a thermal schedule (--schedule: the evolve time table, distribution and figure), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
+		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--schedule 'STEP; STEP ...'|@FILE] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
 		example: "undercool report --material demo-alloy --at 900K --spread gamma=2% --spread d0=x2 --out memo.md",
 		setup:   setupReport,
 	}
@@ -56,6 +58,8 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(pf, "plot", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
 	date := &dateFlag{}
 	fs.Var(date, "date", "the memo's date, YYYY-MM-DD (default: today, UTC)")
+	sched := &scheduleFlag{}
+	fs.Var(sched, "schedule", "also follow the particles in size classes along this "+scheduleHelp+"; the figure goes beside the memo as FILE-evolve.svg")
 	format := addText(fs, "format", "not used: the memo is always Markdown")
 	_ = fs.MarkHidden("format")
 	sf := addSpreadFlags(fs)
@@ -112,10 +116,29 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if in.Sampling, err = sf.sampling(e, in.Card); err != nil {
 			return err
 		}
+		var evolvePlot string
+		if sched.set {
+			sys, err := in.Card.Population()
+			if err != nil {
+				return usage(err)
+			}
+			in.Evolve = &answer.EvolveInput{Card: in.Card, System: sys, Schedule: sched.s, Names: flagNames,
+				Options: population.Options{RelTol: defaultEvolveTol, ConcTol: defaultEvolveTol}}
+			ctx, stop := outfile.NotifyContext(baseContext())
+			defer stop()
+			in.Context = ctx
+			if out.path != "-" {
+				evolvePlot = strings.TrimSuffix(out.path, filepath.Ext(out.path)) + "-evolve.svg"
+				in.EvolvePlot = filepath.ToSlash(filepath.Base(evolvePlot))
+				if err := e.files.output("out", evolvePlot); err != nil {
+					return err
+				}
+			}
+		}
 		in.Command = regenerate(fs, sf)
 		m, err := answer.Memos(in)
 		if err != nil {
-			return err
+			return evolveError(err)
 		}
 		if err := answer.Check(m); err != nil {
 			return err
@@ -127,6 +150,15 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		// The memo and its plot are one set: written together or not at all.
 		if plot != "" {
 			if err := writeMemoPlot(&e.files, plot, m, in.Card, in.Model); err != nil {
+				return err
+			}
+		}
+		if evolvePlot != "" {
+			fig, err := evolveFigure(m.Evolve, in.Card.Name, "svg", true, len(m.Evolve.Histogram) > 0)
+			if err == nil {
+				err = e.files.write(evolvePlot, func(w io.Writer) error { _, err := w.Write(fig); return err })
+			}
+			if err != nil {
 				return err
 			}
 		}

@@ -124,9 +124,14 @@ func newAlloyModel(a Alloy) (*alloyModel, error) {
 	return m, nil
 }
 
-func (m *alloyModel) supersaturated(T float64) bool {
-	return math.Log(m.a.C0) > m.a.Solvus.LnSolubility(T)
+// Supersaturated reports whether the alloy, with all its solute in the
+// matrix, is supersaturated at temperature T (K): below the solvus
+// temperature of c₀. The clock of the nucleation time lag starts there.
+func (a *Alloy) Supersaturated(T float64) bool {
+	return math.Log(a.C0) > a.Solvus.LnSolubility(T)
 }
+
+func (m *alloyModel) supersaturated(T float64) bool { return m.a.Supersaturated(T) }
 
 func (m *alloyModel) at(T, m3, since float64) point {
 	a := &m.a

@@ -153,10 +153,13 @@ func newCrystalModel(c Crystallizer) (*crystalModel, error) {
 	return m, nil
 }
 
-// supersaturated: the solution as charged is above its solubility.
-func (m *crystalModel) supersaturated(T float64) bool {
-	return math.Log(m.c.C0) > m.c.Solubility.LnSolubility(T)
+// Supersaturated reports whether the solution as charged (C₀, without
+// the seeds) is above its solubility at temperature T (K).
+func (c *Crystallizer) Supersaturated(T float64) bool {
+	return math.Log(c.C0) > c.Solubility.LnSolubility(T)
 }
+
+func (m *crystalModel) supersaturated(T float64) bool { return m.c.Supersaturated(T) }
 
 func (m *crystalModel) at(T, m3, since float64) point {
 	c := &m.c

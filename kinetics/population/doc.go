@@ -29,7 +29,10 @@
 //   - the number born within RelTol of the number of particles (plus one
 //     particle per m³);
 //   - the spread in size of the particles born in the step, which one
-//     class stands for, (|dx/dt|·h/x̄)²/4 within RelTol, x̄ the mean size.
+//     class stands for, (|dx/dt|·h/x̄)²/4 within RelTol, x̄ the mean size;
+//   - along a ramp, the change of temperature within 1 K: the error
+//     estimate sees only the ends of a step, and a burst of nucleation in
+//     the middle of a quench would otherwise fall between them.
 //
 // The births of a step are counted by the trapezoid rule and placed at
 // their mean time of birth within the step, grown from there to its end.

@@ -91,6 +91,7 @@ const (
 	cancelEvery   = 16      // steps between looks at the context
 	stepGrowth    = 5       // largest factor by which a step grows
 	stepShrinkMin = 0.1     // smallest factor by which a rejected step shrinks
+	maxStepDT     = 1.0     // K: the most the temperature changes in one step
 )
 
 // ErrStepUnderflow is returned when the step size collapses: the run
@@ -230,7 +231,10 @@ func runRows[R any](ctx context.Context, m model, sol Solubility, what string, s
 	var last sample
 	err = e.run(ctx, func(sm sample) {
 		rows = append(rows, row(sm))
+		// The engine goes on after the last output time (to the end of
+		// the schedule): keep the classes of this one.
 		last = sm
+		last.x, last.n = append([]float64(nil), sm.x...), append([]float64(nil), sm.n...)
 	})
 	if err != nil {
 		return nil, sample{}, nil, err
@@ -300,8 +304,15 @@ func (e *engine) step(stop float64) error {
 		xref = b
 	}
 	J0 := rate(p0.lnJ)
+	// Along a ramp the step holds the temperature within maxStepDT: the
+	// error estimate sees only the ends of a step, and a burst of
+	// nucleation in the middle of a fast quench would fall between them.
+	hT := math.Inf(1)
+	if slope := math.Abs(e.s.Before(stop)-T0) / (stop - e.t); slope > 0 {
+		hT = maxStepDT / slope
+	}
 	for {
-		h := math.Min(e.dt, stop-e.t)
+		h := math.Min(math.Min(e.dt, hT), stop-e.t)
 		if !(h > 0) || e.t+h == e.t {
 			if stop-e.t <= 1e-12*math.Abs(stop) {
 				e.t = stop
@@ -328,12 +339,18 @@ func (e *engine) step(stop float64) error {
 			e.dt = h / 4
 			continue
 		}
-		// Corrector (trapezoid rule).
-		var m3h, eSize float64
+		// Corrector (trapezoid rule). A class the predictor leaves at a
+		// size where it cannot exist (growth −Inf) dissolves at once: its
+		// volume, lost, leaves the predictor's state too, so that the two
+		// states differ by the error of the step and not by that release.
+		var m3h, eSize, lost float64
 		for i, x := range e.x {
 			xe, xh := e.xe[i], 0.0
 			if xe > 0 {
 				k2 := e.m.growth(&pe, xe)
+				if math.IsInf(k2, -1) {
+					lost += e.n[i] * xe * xe * xe
+				}
 				if xh = x + h*(e.k1[i]+k2)/2; !(xh > 0) {
 					xh = 0
 				}
@@ -342,7 +359,7 @@ func (e *engine) step(stop float64) error {
 			m3h += e.n[i] * xh * xh * xh
 			vanishing := e.k1[i] < 0 && (x < xref/2 || x+vanishSteps*h*e.k1[i] <= 0)
 			if xe > 0 && xh > 0 && !vanishing {
-				eSize = math.Max(eSize, math.Abs(xh-xe)/(e.opt.RelTol*math.Max(x, xref)))
+				eSize = max(eSize, math.Abs(xh-xe)/(e.opt.RelTol*max(x, xref))) // builtin max: the loop is hot
 			}
 		}
 		// Births: the trapezoid rule for their number; they are placed at
@@ -372,8 +389,12 @@ func (e *engine) step(stop float64) error {
 			e.dt = h / 4
 			continue
 		}
+		pc := pe.conc
+		if lost > 0 {
+			pc = e.m.at(T1, m3e-lost, since+h).conc
+		}
 		scale := math.Max(math.Abs(ph.conc-ph.eq), concFloor*math.Abs(ph.eq))
-		eConc := math.Abs(ph.conc-pe.conc) / (e.opt.ConcTol * scale)
+		eConc := math.Abs(ph.conc-pc) / (e.opt.ConcTol * scale)
 		eNum := math.Abs(J1-J0) * h / 2 / (e.opt.RelTol*(total+born) + numberFloor)
 		err := max(eSize, eConc, eNum, eBirth)
 		if math.IsNaN(err) {

@@ -37,6 +37,17 @@ func (s Solvus) LnSolubility(T float64) float64 {
 	return s.A - s.B/T
 }
 
+// Temperature is the solvus temperature of the mole fraction c, where
+// c_eq(T) = c: T = B/(A − ln c). NaN where the law never reaches c (A ≤ ln c
+// with B > 0: c lies above the solvus at every temperature).
+func (s Solvus) Temperature(c float64) float64 {
+	d := s.A - math.Log(c)
+	if !(c > 0) || !(d > 0) {
+		return math.NaN()
+	}
+	return s.B / d
+}
+
 // SolvusThrough is the solvus law through two measured points (T₁, c₁)
 // and (T₂, c₂): B = ln(c₁/c₂)/(1/T₂ − 1/T₁), A = ln c₁ + B/T₁.
 func SolvusThrough(T1, c1, T2, c2 float64) Solvus {

@@ -109,6 +109,23 @@ func TimeCell(v any) string {
 	return CellText(v)
 }
 
+// log10Cell shows a decimal logarithm with two decimals, in exponent form
+// from 1e5 decades up (a rate that is zero for any purpose).
+func log10Cell(v any) string {
+	if x, ok := number(v); ok && math.Abs(x) >= 1e5 {
+		return Sig(4)(v)
+	}
+	return Fixed(2)(v)
+}
+
+// elapsedCell shows seconds readably, the dash for none (NaN).
+func elapsedCell(v any) string {
+	if x, ok := number(v); ok && math.IsNaN(x) {
+		return Dash
+	}
+	return TimeCell(v)
+}
+
 func number(v any) (float64, bool) {
 	switch x := v.(type) {
 	case float64:
@@ -199,7 +216,7 @@ func ThreeSig(x float64) string {
 var formats = map[string]func(any) string{
 	"f1": Fixed(1), "f2": Fixed(2), "f3": Fixed(3), "f4": Fixed(4),
 	"g3": Sig(3), "g4": Sig(4), "g5": Sig(5), "g6": Sig(6),
-	"nm": Scaled(1e9, 4), "per_kk": Scaled(1e3, 5), "time": TimeCell,
+	"nm": Scaled(1e9, 4), "um": Scaled(1e6, 4), "per_kk": Scaled(1e3, 5), "time": TimeCell, "elapsed": elapsedCell, "log10": log10Cell,
 }
 
 // tableOf is the table of a list of rows: a slice of structs whose fields

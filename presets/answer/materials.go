@@ -37,6 +37,8 @@ func ListShipped(names Names) (*Shipped, error) {
 			te = c.SI("te")
 		} else if c.Driving == "solution" && c.Has("sat_temp") {
 			te = c.SI("sat_temp") // a solution's equilibrium is its saturation temperature
+		} else if md, err := c.Model(); err == nil {
+			te = md.Te() // the solvus temperature of a dilute alloy
 		}
 		a.Rows = append(a.Rows, ShippedCard{c.Name, c.Kind, Num(te), c.Description})
 	}

@@ -1,6 +1,7 @@
 package answer
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"math"
@@ -29,6 +30,12 @@ type MemoInput struct {
 	Command  string // the command line that makes the memo again
 	Plot     string // how the memo links its figure; "": none
 	Names    Names
+	// Evolve, if set, adds particles in size classes along a schedule
+	// (the evolve answer), run with Context (nil: context.Background),
+	// its figure linked as EvolvePlot ("": none).
+	Evolve     *EvolveInput
+	Context    context.Context
+	EvolvePlot string
 }
 
 // memoRows is the number of rows of the memo's TTT table.
@@ -44,6 +51,8 @@ type Memo struct {
 	Cool  *Critical // nil: not computed (site saturation, or an error: CoolErr)
 	Hold  *Hold     // nil: no hold asked
 	Curve *Curve    // nil: no curve
+	// Evolve is the run along a schedule; nil: none asked.
+	Evolve *Evolve
 	// CoolErr says why linear cooling was not computed.
 	CoolErr error
 	u       *Uncertainty // of every headline, in the order of the results table
@@ -95,6 +104,15 @@ func Memos(in MemoInput) (*Memo, error) {
 		us = append(us, m.Curve.Uncertainty)
 	}
 	m.u = merge(us)
+	if in.Evolve != nil {
+		ctx := in.Context
+		if ctx == nil {
+			ctx = context.Background()
+		}
+		if m.Evolve, err = Evolves(ctx, *in.Evolve); err != nil {
+			return nil, err
+		}
+	}
 	return m, nil
 }
 
@@ -238,6 +256,9 @@ func (m *Memo) Blocks() []Block {
 		qs = append(qs, fmt.Sprintf("What did the measured cooling curve %s (%d points, %.2f to %.2f K over %s) do: the fraction at its end and the additivity sum?",
 			in.Data.File, n, p.Temp[0], p.Temp[n-1], ReadableTime(p.Time[n-1]-p.Time[0])))
 	}
+	if ev := in.Evolve; ev != nil {
+		qs = append(qs, fmt.Sprintf("How do the particles nucleate, grow and coarsen along the schedule %s: their number, size and volume fraction against time, and their final size distribution?", ev.Schedule.String()))
+	}
 	bs = append(bs, List(qs...), Heading(2, "Material"))
 	card := fmt.Sprintf("Card: %s (%s)", c.Name, c.File)
 	if c.Description != "" {
@@ -293,6 +314,9 @@ func (m *Memo) Blocks() []Block {
 				Para(fmt.Sprintf("![TTT curve of %s for X = %s](%s)", c.Name, X, in.Plot)),
 				Para(fmt.Sprintf("Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.", X)))
 		}
+	}
+	if m.Evolve != nil {
+		bs = append(bs, m.Evolve.memoBlocks(in.EvolvePlot)...)
 	}
 	bs = append(bs, Heading(2, "Validity flags"))
 	if m.flags == 0 {

@@ -114,7 +114,10 @@ var (
 		"m-3s-1": {1, 0}, "/m3/s": {1, 0}, "1/(m3*s)": {1, 0}, "cm-3s-1": {1e6, 0}, "/cm3/s": {1e6, 0}, "1/(cm3*s)": {1e6, 0},
 	})
 	Dimensionless = k("number", "", true, map[string]unit{})
-	CoolingRate   = k("cooling rate", "K/s", false, map[string]unit{
+	// MoleFraction is a composition: a plain fraction, or in atomic or
+	// mole per cent (0.18 at% is 0.0018) or parts per million.
+	MoleFraction = k("mole fraction", "", true, map[string]unit{"at%": {0.01, 0}, "mol%": {0.01, 0}, "ppm": {1e-6, 0}})
+	CoolingRate  = k("cooling rate", "K/s", false, map[string]unit{
 		"K/s": {1, 0}, "C/s": {1, 0}, "°C/s": {1, 0}, "K/min": {1.0 / 60, 0}, "C/min": {1.0 / 60, 0}, "°C/min": {1.0 / 60, 0},
 		"K/h": {1.0 / 3600, 0}, "C/h": {1.0 / 3600, 0}, "°C/h": {1.0 / 3600, 0},
 	})

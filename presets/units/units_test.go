@@ -58,6 +58,11 @@ func TestParse(t *testing.T) {
 		{"1.16 GJ/m3", EnergyDensity, 1.16e9},
 		{"1160 J/cm3", EnergyDensity, 1.16e9},
 		{"1.16e9 J/m³", EnergyDensity, 1.16e9},
+		// Compositions: a plain fraction or per cent of atoms or moles.
+		{"0.0018", MoleFraction, 0.0018},
+		{"0.18 at%", MoleFraction, 0.0018},
+		{"25 mol%", MoleFraction, 0.25},
+		{"600 ppm", MoleFraction, 6e-4},
 		// Interfacial energies: 1 erg/cm2 = 1e-7 J / 1e-4 m2 = 1e-3 J/m2.
 		{"0.132 J/m2", InterfacialEnergy, 0.132},
 		{"132 mJ/m2", InterfacialEnergy, 0.132},
@@ -208,7 +213,7 @@ func TestUnitsSortedAndKnown(t *testing.T) {
 	// Every listed spelling parses as written.
 	for _, k := range []Kind{Temperature, TemperatureDifference, MolarEnergy, EnergyDensity, MolarHeatCapacity,
 		InterfacialEnergy, MolarVolume, Diffusivity, Length, Viscosity, Angle, NumberDensity, RateDensity,
-		CoolingRate, Volume, Time} {
+		CoolingRate, Volume, Time, MoleFraction} {
 		for _, s := range k.Units() {
 			if _, err := Parse("1 "+s, k); err != nil {
 				t.Errorf("%s: listed unit %q does not parse: %v", k.Name, s, err)

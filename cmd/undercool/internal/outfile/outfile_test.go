@@ -1,6 +1,7 @@
 package outfile
 
 import (
+	"context"
 	"errors"
 	"io"
 	"os"
@@ -322,5 +323,37 @@ func TestInterruptRemovesStaged(t *testing.T) {
 	}
 	if faulty.Content(t, filepath.Join(dir, "memo.md")) != "old" {
 		t.Error("the old memo changed")
+	}
+}
+
+// A run that stops on an interrupt by itself (NotifyContext) gets the
+// first interrupt through its context, and ends by its own path: here it
+// discards its staged file and exits with status 7.
+func TestInterruptGoesToTheRun(t *testing.T) {
+	if dir := os.Getenv("OUTFILE_RUN_DIR"); dir != "" {
+		RemoveOnSignal()
+		ctx, stop := NotifyContext(context.Background())
+		defer stop()
+		var b Batch
+		if err := b.Add(filepath.Join(dir, "memo.md"), text("new")); err != nil {
+			os.Exit(3)
+		}
+		os.Stdout.WriteString(faulty.Staged)
+		select {
+		case <-ctx.Done():
+			b.Discard()
+			os.Exit(7)
+		case <-time.After(time.Minute):
+			os.Exit(4)
+		}
+	}
+	dir := t.TempDir()
+	faulty.Put(t, filepath.Join(dir, "memo.md"), "old", 0o644)
+	code := faulty.Interrupt(t, "TestInterruptGoesToTheRun", "OUTFILE_RUN_DIR="+dir, func() {})
+	if code != 7 {
+		t.Errorf("child ended with status %d, want 7 (its own path)", code)
+	}
+	if extra := debris(t, dir, "memo.md"); extra != nil {
+		t.Errorf("left behind %v", extra)
 	}
 }
