@@ -28,6 +28,8 @@ func TestCheck(t *testing.T) {
 		{"wrapped", struct{ Answer }{&FitInduction{Gamma: Gamma{Gamma: inf}}}, "interfacial energy"},
 		{"no volume, no A", &FitInduction{LnA: nan, A: nan}, ""},
 
+		{"an evolve row", &Evolve{Rows: []EvolveRow{{NumberDensity: 1e20}, {NumberDensity: nan}}}, "number density"},
+
 		{"no critical rate needed", &Critical{Rate: 0, NoseEstimate: nan, Nose: TimeAt{nan, nan}}, ""},
 		{"a hold that never ends", &Hold{Time: inf, Lag: nan}, ""},
 		{"a hold without driving force", &Hold{Time: nan}, ""},
