@@ -137,6 +137,8 @@ func (cf *coolFlags) linearMode(md *kinetics.Model) (coolMode, error) {
 // runLinear answers linear cooling from T_e: at given rates, or the critical rate.
 func (cf *coolFlags) runLinear(e *env, c *presets.Card, md *kinetics.Model, mode coolMode) error {
 	switch {
+	case !md.HasTe():
+		return noTe("cool", "no temperature for linear cooling to start from: give --curve FILE.csv for a measured path")
 	case !md.HasGrowth():
 		return noMobility("transformed fraction")
 	case !md.HasRate():

@@ -100,7 +100,7 @@ var errorCases = []struct {
 	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "800K", "--nuclei", "1e15", "--lag"}, `^undercool: --lag and --nuclei: `, 2},
 	{"hold", []string{"hold", "--te", "1000", "--dh", "10kJ/mol", "--vm", "7cm3/mol", "--gamma", "0.1J/m2", "--at", "900"}, `^undercool: the material has no mobility law`, 2},
 	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "800K", "extra"}, `^undercool: hold: unexpected argument "extra"$`, 2},
-	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "25"}, `^undercool: note: --at 25 is read as 25 K \(a bare number is kelvin\); write 25C for Celsius$`, 0},
+	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "25"}, `^undercool: note: --at: read as 25 K \(-248\.15 °C\); write 25C for Celsius$`, 0},
 	{"rate", []string{"frobnicate"}, `^undercool: unknown command "frobnicate"`, 2},
 	{"rate", []string{"rate", "--bogus"}, `^undercool: rate: unknown flag: --bogus`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--gamma", "abc"}, `^undercool: --gamma: "abc" is not a number`, 2},
@@ -153,7 +153,6 @@ var errorCases = []struct {
 	{"solution", []string{"rate", "--material", "$WORK/demo-solute-a.toml", "--temps", "20C", "--solubility", "$WORK/badunit.csv", "--conc", "12g/kg"}, `badunit.csv: the solubility column must be solubility_UNIT`, 2},
 	{"solution", []string{"rate", "--material", "$WORK/demo-solute-a.toml", "--temps", "20C", "--solubility", "$WORK/missing.csv", "--conc", "12g/kg"}, `^undercool: cannot read .*missing.csv`, 2},
 	{"solution", []string{"rate", "--driving", "solution", "--gamma", "5mJ/m2", "--vm", "100cm3/mol", "--temps", "20C"}, `driving "solution" needs a supersaturation`, 2},
-	{"solution", []string{"rate", "--gamma", "5mJ/m2", "--vm", "100cm3/mol", "--supersaturation", "2", "--temps", "20C"}, `a fixed supersaturation also needs sat_temp`, 2},
 	{"solution", []string{"rate", "--gamma", "5mJ/m2", "--molar-mass", "168g/mol", "--sat-temp", "40C", "--dh-sol", "28kJ/mol", "--temps", "20C"}, `missing value "vm" \(molar volume \(or molar_mass and density\)\)`, 2},
 	{"solution", []string{"rate", "--material", "$WORK/demo-solute-a.toml", "--temps", "20C", "--prefactor", "diffusion", "--solute-diffusivity", "1e-9m2/s"}, `the diffusion prefactor needs the number of solute molecules per volume`, 2},
 	{"solution", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "20C", "--volume", "0mL"}, `^undercool: --volume: "0mL" must be positive$`, 2},
@@ -224,6 +223,14 @@ var errorCases = []struct {
 	{"fit_plot", []string{"fit", "arrhenius", "$WORK/bad.csv", "--plot", "$WORK/bad.svg"}, `bad.csv:2: column "diffusivity_m2_per_s": -1 must be positive`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--plot", "rate.jpg"}, `^undercool: --plot: "rate.jpg": unsupported plot file type ".jpg" \(use .svg or .png\)$`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--temps", "900", "--plot", "one.svg"}, `^undercool: --plot: a rate plot needs more than one temperature`, 2},
+	// Spreadsheet CSV: a decimal comma in a comma-separated file is named;
+	// a plain number with a unit says it takes none.
+	{"csv", []string{"fit", "avrami", "$WORK/decimal-comma.csv"}, `^undercool: .*decimal-comma.csv:3: 3 fields, header has 2 \(a decimal comma\? write 1\.5, not 1,5, or separate the columns with semicolons\)$`, 2},
+	{"csv", []string{"fit", "avrami", "$WORK/weight-unit.csv"}, `^undercool: .*weight-unit.csv:1: column "weight_kg": unit "kg" is not a unit of number \(it is a plain number: name the column weight, without a unit\)$`, 2},
+	// A fixed supersaturation without a saturation temperature: only what needs one asks for it.
+	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20"}, `^undercool: --temps: a fixed supersaturation without a saturation temperature has no default temperatures: give them with --temps or --range \(or give --sat-temp\)$`, 2},
+	{"solution", []string{"cool", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--rate", "1K/s"}, `^undercool: cool: a fixed supersaturation without a saturation temperature has no temperature for linear cooling`, 2},
+	{"solution", []string{"report", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--out", "-"}, `^undercool: report: a fixed supersaturation without a saturation temperature has no temperature range`, 2},
 }
 
 // caseFiles writes the files of the in-process cases (testdata/cases) to
@@ -284,6 +291,9 @@ func TestErrors(t *testing.T) {
 		}
 		if !regexp.MustCompile("(?m)" + c.want).MatchString(stderr) {
 			t.Errorf("%s: stderr %q does not match %q", name, stderr, c.want)
+		}
+		if strings.Contains(stderr, "(use )") {
+			t.Errorf("%s: stderr %q offers an empty list of units", name, stderr)
 		}
 		if c.code == 0 {
 			continue

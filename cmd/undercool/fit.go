@@ -106,16 +106,24 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 		if f.mf.given() == "" {
 			return nil, nil, usagef("fit interface: give the material with --material NAME|FILE.toml (and flags); every value but gamma is taken from it")
 		}
-		c, md, err := f.mf.model()
+		c, err := f.mf.card()
 		if err != nil {
 			return nil, nil, err
-		}
-		if !md.HasRate() {
-			return nil, nil, usagef("fit interface: the material has no rate; give a mobility law (--mobility with its values) or --prefactor fixed with --j0")
 		}
 		data, err := read(answer.InterfaceColumns())
 		if err != nil {
 			return nil, nil, err
+		}
+		// gamma is what the fit finds: without one, start from the classical plot.
+		if err := answer.StartGamma(c, data); err != nil {
+			return nil, nil, usage(err)
+		}
+		md, err := c.Model()
+		if err != nil {
+			return nil, nil, usage(err)
+		}
+		if !md.HasRate() {
+			return nil, nil, usagef("fit interface: the material has no rate; give a mobility law (--mobility with its values) or --prefactor fixed with --j0")
 		}
 		a, err := answer.Interface(c, md, data, flagNames)
 		if err != nil {

@@ -148,6 +148,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		}
 		return fail(fmt.Sprintf("%s: %v (see undercool %s --help)", name, err, name), 2)
 	}
+	// Every temperature written without a unit is kelvin: say how it was read.
+	fs.Visit(func(f *pflag.Flag) {
+		if b, ok := f.Value.(bareTemps); ok && len(b.bareKelvin()) > 0 {
+			e.note("%s", bareNote(f.Name, b.bareKelvin()))
+		}
+	})
 	err := do(fs.Args())
 	for _, f := range e.finish {
 		f()

@@ -7,6 +7,7 @@ import (
 
 	"undercool/kinetics"
 	"undercool/presets"
+	"undercool/presets/units"
 )
 
 // materialFlags choose a material and override its values: --material,
@@ -34,6 +35,15 @@ func (f *valueFlag) Set(s string) error {
 	}
 	v.Source = "command line"
 	f.v, f.given = v, given{true, s}
+	return nil
+}
+
+// bareKelvin is the value of a temperature (te, tg, sat_temp, vft_t0)
+// written without a unit.
+func (f *valueFlag) bareKelvin() []float64 {
+	if f.set && f.v.Kind.Name == units.Temperature.Name && isBare(f.text) {
+		return []float64{f.v.SI}
+	}
 	return nil
 }
 

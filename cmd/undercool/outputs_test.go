@@ -225,7 +225,7 @@ var outputCases = []struct {
 	{"spread_cool", []string{"cool", "--material", "demo-alloy", "--rate", "1,100K/s", "--spread", "gamma=2%", "--samples", "100", "--format", "json"}, []check{{"stdout", false, `"fraction_at_1_k_per_s": \{`}, {"stdout", false, `"fraction_at_100_k_per_s": \{`}}},
 
 	// Uncertainty bands on the rate table of the invented demo card.
-	{"spread_rate", []string{"rate", "--material", "demo-alloy", "--temps", "1000,900", "--spread", "gamma=2%", "--spread", "q=3kJ/mol", "--spread", "d0=x2", "--samples", "500"}, []check{{"stdout", false, `^uncertainty \(500 samples, seed 1\): P5 / P50 / P95$`}, {"stdout", false, `P5 log10 J`}, {"stdout", false, `P95 log10 J`}, {"stdout", false, `^sensitivity: change of each result`}, {"stdout", false, `log10 J at 1000\.00 K .* gamma > d0 > q`}, {"stdout", false, `gamma 2% \(normal, σ = 0\.0028 J/m2; command line\)`}, {"stdout", false, `d0 x2 \(log-normal, σ\(ln\) = 0\.693, ±1σ = ×/÷ 2; command line\)`}, {"stdout", false, `quantiles: empirical quantile`}, {"stdout", true, `NaN|Inf`}, {"stderr", true, `.`}}},
+	{"spread_rate", []string{"rate", "--material", "demo-alloy", "--temps", "1000K,900K", "--spread", "gamma=2%", "--spread", "q=3kJ/mol", "--spread", "d0=x2", "--samples", "500"}, []check{{"stdout", false, `^uncertainty \(500 samples, seed 1\): P5 / P50 / P95$`}, {"stdout", false, `P5 log10 J`}, {"stdout", false, `P95 log10 J`}, {"stdout", false, `^sensitivity: change of each result`}, {"stdout", false, `log10 J at 1000\.00 K .* gamma > d0 > q`}, {"stdout", false, `gamma 2% \(normal, σ = 0\.0028 J/m2; command line\)`}, {"stdout", false, `d0 x2 \(log-normal, σ\(ln\) = 0\.693, ±1σ = ×/÷ 2; command line\)`}, {"stdout", false, `quantiles: empirical quantile`}, {"stdout", true, `NaN|Inf`}, {"stderr", true, `.`}}},
 
 	// JSON: the uncertainty block, the bands per row, the spreads and the ranking.
 	{"spread_rate", []string{"rate", "--material", "demo-alloy", "--temps", "1000", "--spread", "gamma=2%", "--spread", "d0=x2", "--samples", "500", "--format", "json"}, []check{{"stdout", false, `"uncertainty": \{`}, {"stdout", false, `"samples": 500,`}, {"stdout", false, `"seed": 1,`}, {"stdout", false, `"distribution": "log-normal"`}, {"stdout", false, `"sd_ln": 0\.693147`}, {"stdout", false, `"p5": -1[0-9]\.`}, {"stdout", false, `"p5_log10_rate_per_m3_s": -1[0-9]\.`}, {"stdout", false, `"minus_1sd": -0\.30102999`}, {"stdout", true, `NaN|Inf`}}},
@@ -266,6 +266,42 @@ var outputCases = []struct {
 
 	// The shipped demo card works end to end.
 	{"ttt_basic", []string{"ttt", "--material", "demo-alloy"}, []check{{"stdout", false, `^nose: `}, {"stdout", true, `NaN|Inf`}}},
+
+	// Spreadsheet CSV: a byte-order mark, semicolons with decimal commas,
+	// percentages for fractions. Each file holds the numbers of another in
+	// another spelling and gives its answer: the Avrami fit of
+	// testdata/fit/crystallized-fraction.csv (n = 2.612, SE 0.01691), the
+	// quench factor of cool_curve/hold.csv (2.00000).
+	{"csv", []string{"fit", "avrami", "$WORK/bom.csv"}, []check{{"stdout", false, `^n = 2\.612, SE 0\.01691, 95 % \[2\.572, 2\.652\]$`}}},
+	{"csv", []string{"fit", "avrami", "$WORK/semicolon.csv"}, []check{{"stdout", false, `^n = 2\.612, SE 0\.01691, 95 % \[2\.572, 2\.652\]$`}, {"stdout", false, `columns time_min, fraction_percent`}}},
+	{"csv", []string{"fit", "avrami", "$REPO/testdata/fit/crystallized-fraction.csv"}, []check{{"stdout", false, `^n = 2\.612, SE 0\.01691, 95 % \[2\.572, 2\.652\]$`}}},
+	{"csv", []string{"cool", "--curve", "$WORK/curve-bom.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}}},
+	{"csv", []string{"cool", "--curve", "$WORK/curve-semicolon.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}}},
+
+	// A percentage for --fraction: 0.0001% is the default 1e-6.
+	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--fraction", "0.0001%", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.077e\+04 K/s`}}},
+
+	// Every bare temperature is kelvin, and says how it was read.
+	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "650"}, []check{{"stderr", false, `^undercool: note: --at: read as 650 K \(376\.85 °C\); write 650C for Celsius$`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900,1000C,950", "--te", "1150"}, []check{{"stderr", false, `^undercool: note: --temps: read as 900 K \(626\.85 °C\), 950 K \(676\.85 °C\); write 900C for Celsius$`}, {"stderr", false, `^undercool: note: --te: read as 1150 K \(876\.85 °C\); write 1150C for Celsius$`}}},
+	{"hold", []string{"ttt", "--material", "demo-alloy", "--range", "1000:800C:50"}, []check{{"stderr", false, `^undercool: note: --range: read as 1000 K \(726\.85 °C\); write 1000C for Celsius$`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K"}, []check{{"stderr", true, `note`}}},
+
+	// fit interface finds gamma without being given one: from the flags of
+	// the invented demo card less its gamma, the fit gives the gamma it
+	// gives with the card's own (the golden fit-interface.txt, 0.14266 J/m2);
+	// the start comes from the classical plot.
+	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--te", "1150K", "--dh", "14.2kJ/mol", "--vm", "9.8cm3/mol",
+		"--d0", "1e-5m2/s", "--q", "200kJ/mol", "--driving", "thompson-spaepen"}, []check{{"stdout", false, `^gamma = 0\.14266 J/m2 \(142\.66 mJ/m2\)`}}},
+	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--te", "1150K", "--dh", "14.2kJ/mol", "--vm", "9.8cm3/mol",
+		"--d0", "1e-5m2/s", "--q", "200kJ/mol", "--driving", "thompson-spaepen", "--format", "json"}, []check{{"stdout", false, `"source": "start of the fit, from the classical plot of nucleation-rates.csv; the fit replaces it"`}, {"stdout", false, `"gamma_j_per_m2": 0\.14266`}}},
+
+	// A fixed supersaturation at given temperatures needs no saturation
+	// temperature; the undercooling, which does, is the dash (empty in CSV).
+	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--temps", "20C,30C", "--format", "csv"}, []check{{"stdout", false, `^293\.15,20,,2,`}, {"stdout", false, `no saturation temperature given, so no undercooling`}}},
+	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--temps", "20C", "--format", "json"}, []check{{"stdout", false, `"undercooling_k": null`}, {"stdout", false, `"saturation_temperature_k": null`}}},
+	{"solution", []string{"hold", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--at", "20C", "--volume", "1mL"}, []check{{"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 293\.15 K`}}},
+	{"solution", []string{"ttt", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--temps", "20C,30C", "--format", "json"}, []check{{"stdout", false, `"inside_range": false`}}},
 }
 
 func TestOutputs(t *testing.T) {

@@ -109,6 +109,9 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err := canTransform(in.Model, j); err != nil {
 			return err
 		}
+		if !in.Model.HasTe() {
+			return noTe("report", "no temperature range for the memo's TTT table")
+		}
 		if in.Sampling, err = sf.sampling(e, in.Card); err != nil {
 			return err
 		}

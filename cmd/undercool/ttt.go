@@ -72,7 +72,7 @@ func noseSpan(temps []float64, given bool, md *kinetics.Model) (lo, hi float64) 
 	if given {
 		lo, hi = floats.Min(temps), floats.Max(temps)
 	}
-	if !given || !(lo < hi) {
+	if (!given || !(lo < hi)) && md.HasTe() {
 		lo, hi = answer.DefaultSpan(md)
 	}
 	return lo, hi
@@ -105,6 +105,9 @@ func setupTTT(fs *pflag.FlagSet, e *env) func([]string) error {
 			return err
 		}
 		lo, hi := noseSpan(temps, tf.given(), md)
+		if !(lo < hi) {
+			return noTe("--temps", "no default range to find the nose in: give two temperatures or more")
+		}
 		smp, err := sf.sampling(e, c)
 		if err != nil {
 			return err

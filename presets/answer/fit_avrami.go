@@ -14,7 +14,7 @@ import (
 func AvramiColumns() []presets.Column {
 	return []presets.Column{
 		{Quantity: "time", Kind: units.Time, Required: true},
-		{Quantity: "fraction", Kind: units.Dimensionless, Required: true},
+		{Quantity: "fraction", Kind: units.Fraction, Required: true},
 		WeightColumn,
 	}
 }

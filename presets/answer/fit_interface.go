@@ -67,6 +67,45 @@ type InterfaceRow struct {
 	Flags      Strings `json:"flags" col:"flags"`
 }
 
+// StartGamma gives a card without an interfacial energy the one the
+// classical plot of the data suggests, so that the card builds a model to
+// fit: a fit must not ask for its own result. The fit searches the whole
+// range of γ, so the start only names the model; the fit replaces it. A
+// card that has gamma is left alone. Errors: the card's own (a value
+// missing besides gamma), and those of the data (*BadData).
+func StartGamma(c *presets.Card, data FitData) error {
+	if c.Has("gamma") {
+		return nil
+	}
+	if err := data.positive("rate"); err != nil {
+		return err
+	}
+	if err := data.aboveZero(); err != nil {
+		return err
+	}
+	const placeholder = 0.1 // J/m2: the classical plot does not depend on γ
+	probe := c.Clone()
+	if err := probe.Set("gamma", fmt.Sprintf("%g J/m2", placeholder), "placeholder"); err != nil {
+		panic("answer: StartGamma: " + err.Error())
+	}
+	md, err := probe.Model()
+	if err != nil {
+		return err
+	}
+	d := data.Data
+	lnJ := make([]float64, len(d.Lines))
+	for i, j := range d.Columns["rate"] {
+		lnJ[i] = math.Log(j)
+	}
+	_, _, _, g := fit.Classical(md, d.Columns["temperature"], lnJ, data.W)
+	source := fmt.Sprintf("start of the fit, from the classical plot of %s; the fit replaces it", data.Name())
+	if !(g >= fit.GammaFitMin && g <= fit.GammaFitMax) {
+		g = math.Sqrt(fit.GammaFitMin * fit.GammaFitMax)
+		source = fmt.Sprintf("start of the fit (the classical plot of %s gives none); the fit replaces it", data.Name())
+	}
+	return c.Set("gamma", fmt.Sprintf("%.4g J/m2", g), source)
+}
+
 // Interface fits γ and a prefactor scale to a file read with
 // InterfaceColumns, every other value from the card's model (which must
 // have a rate). Errors: the file's points (*BadData); a fit that finds no γ.

@@ -93,6 +93,8 @@ func neverReason(md *kinetics.Model, s kinetics.State, j kinetics.JMAK, lnt floa
 	switch {
 	case s.Flags&kinetics.FlagOutsideTable != 0:
 		return "the temperature lies outside the tabulated driving force"
+	case !(s.Dmu > 0) && !md.HasTe():
+		return "no driving force"
 	case !(s.Dmu > 0):
 		return fmt.Sprintf("no driving force at or above the equilibrium temperature (T_e = %.2f K)", md.Te())
 	case s.Flags&kinetics.FlagNoMobility != 0:

@@ -145,6 +145,9 @@ func describeSolution(c *presets.Card, sol cnt.Solution, te float64) (*Solution,
 	switch d := sol.(type) {
 	case cnt.Supersaturation:
 		line = fmt.Sprintf("solution: fixed supersaturation S = %.4g (ln S = %.4g) at every temperature; reference saturation temperature %.2f K", d.S, math.Log(d.S), te)
+		if math.IsNaN(te) {
+			line = fmt.Sprintf("solution: fixed supersaturation S = %.4g (ln S = %.4g) at every temperature; no saturation temperature given, so no undercooling (—)", d.S, math.Log(d.S))
+		}
 		s.Supersaturation = Num(d.S)
 	case cnt.VantHoff:
 		line = fmt.Sprintf("solution: %s and cooled at constant concentration; ideal (van 't Hoff) solubility, dh_sol = %.4g kJ/mol; S = 1 at and above T_sat", sat, d.DHsol/1e3)

@@ -114,7 +114,11 @@ var (
 		"m-3s-1": {1, 0}, "/m3/s": {1, 0}, "1/(m3*s)": {1, 0}, "cm-3s-1": {1e6, 0}, "/cm3/s": {1e6, 0}, "1/(cm3*s)": {1e6, 0},
 	})
 	Dimensionless = k("number", "", true, map[string]unit{})
-	CoolingRate   = k("cooling rate", "K/s", false, map[string]unit{
+	// Fraction is a plain number, or a percentage: "45%", a header fraction_percent.
+	Fraction = k("fraction", "", true, map[string]unit{
+		"%": {0.01, 0}, "percent": {0.01, 0}, "pct": {0.01, 0},
+	})
+	CoolingRate = k("cooling rate", "K/s", false, map[string]unit{
 		"K/s": {1, 0}, "C/s": {1, 0}, "°C/s": {1, 0}, "K/min": {1.0 / 60, 0}, "C/min": {1.0 / 60, 0}, "°C/min": {1.0 / 60, 0},
 		"K/h": {1.0 / 3600, 0}, "C/h": {1.0 / 3600, 0}, "°C/h": {1.0 / 3600, 0},
 	})
