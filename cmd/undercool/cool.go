@@ -39,7 +39,7 @@ type coolFlags struct {
 	ccurve   *ccurveFlag
 	band     *quantityFlag
 	plot     *plotFlag
-	format   *choiceFlag
+	format   *formatFlag
 	spread   *spreadFlags
 }
 
@@ -70,7 +70,7 @@ func setupCool(fs *pflag.FlagSet, e *env) func([]string) error {
 	cf.band.set = false
 	fs.Var(cf.band, "band", "width of the temperature bands of the quench-factor table, K (> 0)")
 	cf.plot = addPlot(fs, "draw the CCT curve for --fraction over the TTT curve, with the cooling lines of --rate,")
-	cf.format = addFormat(fs)
+	cf.format = addFormat(fs, e)
 	cf.spread = addSpreadFlags(fs)
 	return func(args []string) error {
 		if err := start("cool", args, cf.spread); err != nil {
@@ -155,7 +155,7 @@ func (cf *coolFlags) runLinear(e *env, c *presets.Card, md *kinetics.Model, mode
 	if err != nil {
 		return err
 	}
-	return renderWithPlot(e, a, cf.format.value, cf.plot, func() error {
+	return renderWithPlot(e, a, cf.format, cf.plot, func() error {
 		if cr, ok := a.(*answer.Critical); ok {
 			return cctPlot(cf.plot, cr.Path, md, cr.Name, cr.X, []float64{cr.Qc}, true, cr.Qc)
 		}
@@ -223,7 +223,7 @@ func (cf *coolFlags) runCurve(e *env) error {
 	if err != nil {
 		return err
 	}
-	return render(e.stdout, cf.format.value, a)
+	return render(e.stdout, cf.format, a)
 }
 
 // runZone answers the metastable zone of a cooled solution.
@@ -231,6 +231,9 @@ func (cf *coolFlags) runZone(e *env, c *presets.Card, md *kinetics.Model) error 
 	a, err := answer.Zones(answer.ZoneInput{Card: c, Model: md, V: cf.volume.x, VolumeText: cf.volume.text, Rates: cf.rate.q,
 		End: cf.end.x, EndText: cf.end.text, Names: flagNames})
 	if err != nil {
+		return err
+	}
+	if err := cf.format.check(a); err != nil { // before the plot is written
 		return err
 	}
 	var notes []string
@@ -249,7 +252,7 @@ func (cf *coolFlags) runZone(e *env, c *presets.Card, md *kinetics.Model) error 
 		}
 		notes = append(notes, "plot written: "+cf.plot.path)
 	}
-	return render(e.stdout, cf.format.value, annotated{a, notes})
+	return render(e.stdout, cf.format, annotated{a, notes})
 }
 
 // annotated is an answer with notes of the command's own (files written).

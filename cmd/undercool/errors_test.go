@@ -223,6 +223,12 @@ var errorCases = []struct {
 	{"fit_plot", []string{"fit", "arrhenius", "$WORK/bad.csv", "--plot", "$WORK/bad.svg"}, `bad.csv:2: column "diffusivity_m2_per_s": -1 must be positive`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--plot", "rate.jpg"}, `^undercool: --plot: "rate.jpg": unsupported plot file type ".jpg" \(use .svg or .png\)$`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--temps", "900", "--plot", "one.svg"}, `^undercool: --plot: a rate plot needs more than one temperature`, 2},
+	// --columns names columns by their keys, for a table.
+	{"rate_table", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,rate"}, `^undercool: --columns: "rate" is not a column of this table; its columns are temperature_k, temperature_c, undercooling_k, `, 2},
+	{"rate_table", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k", "--format", "json"}, `^undercool: --columns: JSON holds every value; choose columns for --format table, csv or markdown$`, 2},
+	{"rate_table", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,,x"}, `^undercool: --columns: "temperature_k,,x": give column keys separated by commas`, 2},
+	{"rate_table", []string{"hold", "--material", "demo-alloy", "--at", "900K", "--columns", "time_s"}, `^undercool: --columns: this answer has no table to choose columns of$`, 2},
+	{"fit_plot", []string{"fit", "arrhenius", "$REPO/testdata/fit/diffusion.csv", "--columns", "nope", "--plot", "$WORK/a.svg", "--card-out", "$WORK/a.toml"}, `^undercool: --columns: "nope" is not a column of this table`, 2},
 	// Spreadsheet CSV: a decimal comma in a comma-separated file is named;
 	// a plain number with a unit says it takes none.
 	{"csv", []string{"fit", "avrami", "$WORK/decimal-comma.csv"}, `^undercool: .*decimal-comma.csv:3: 3 fields, header has 2 \(a decimal comma\? write 1\.5, not 1,5, or separate the columns with semicolons\)$`, 2},

@@ -389,9 +389,42 @@ func addChoice(fs *pflag.FlagSet, name, def string, choices []string, help strin
 	return f
 }
 
-// addFormat declares --format, shared by every command with a result.
-func addFormat(fs *pflag.FlagSet) *choiceFlag {
-	return addChoice(fs, "format", "table", formats, "output format: table, csv, json or markdown")
+// formatFlag is --format, with --columns: how a result is drawn, and on
+// whose screen.
+type formatFlag struct {
+	*choiceFlag
+	columns *columnsFlag
+	e       *env
+}
+
+// columnsFlag is --columns KEY,KEY...: the columns of a table to show, by
+// their JSON keys, in this order.
+type columnsFlag struct {
+	given
+	keys []string
+}
+
+func (f *columnsFlag) Set(s string) error {
+	f.keys = nil
+	for _, k := range strings.Split(s, ",") {
+		if k = strings.TrimSpace(k); k == "" {
+			return bad("%q: give column keys separated by commas, e.g. temperature_k,log10_rate_per_m3_s", s)
+		}
+		if contains(f.keys, k) {
+			return bad("%s is given twice", k)
+		}
+		f.keys = append(f.keys, k)
+	}
+	f.given = given{true, s}
+	return nil
+}
+
+// addFormat declares --format and --columns, shared by every command with a result.
+func addFormat(fs *pflag.FlagSet, e *env) *formatFlag {
+	f := &formatFlag{addChoice(fs, "format", "table", formats, "output format: table, csv, json or markdown"), &columnsFlag{}, e}
+	fs.Var(f.columns, "columns", "the columns of the table to show, in order, by their JSON keys (as --format csv heads them), e.g. temperature_k,log10_rate_per_m3_s; default: those that fit the screen ($COLUMNS, else the terminal, else 100 characters)")
+	setGroup(fs, groupOutput, "format", "columns")
+	return f
 }
 
 // Formats are the accepted values of --format.
@@ -481,6 +514,7 @@ func addSpreadFlags(fs *pflag.FlagSet) *spreadFlags {
 	fs.Var(sf.samples, "samples", fmt.Sprintf("Monte Carlo samples for the uncertainty bands, 1 to %d", maxSamples))
 	fs.Var(sf.seed, "seed", "seed of the random draws, 0 to 2^64-1; the same seed gives the same bands on any number of cores")
 	fs.BoolVar(&sf.none, "no-spread", false, "ignore the [spread] table of the material card")
+	setGroup(fs, groupUncertainty, "spread", "samples", "seed", "no-spread")
 	return sf
 }
 
@@ -627,6 +661,7 @@ func (f *plotFlag) Set(s string) error {
 func addPlot(fs *pflag.FlagSet, what string) *plotFlag {
 	f := &plotFlag{}
 	fs.Var(f, "plot", what+" to FILE.svg or FILE.png (written whole or not at all)")
+	setGroup(fs, groupOutput, "plot")
 	return f
 }
 

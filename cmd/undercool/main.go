@@ -119,6 +119,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	}
 	name := args[0]
 	switch name {
+	case "--version", "version":
+		fmt.Fprintln(stdout, buildVersion())
+		return 0
 	case "-h", "--help", "help":
 		if len(args) > 1 && commands[args[1]] != nil {
 			// "undercool help rate" is "undercool rate --help".
@@ -141,7 +144,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		var v *valueError
 		switch {
 		case errors.Is(err, pflag.ErrHelp):
-			fmt.Fprintf(stdout, "%s\n\n%s\n\nFlags:\n%s\nExample:\n  %s\n", cmd.usage, cmd.summary, fs.FlagUsages(), cmd.example)
+			printHelp(stdout, name, cmd, fs, args[1:])
 			return 0
 		case errors.As(err, &bad) && errors.As(err, &v):
 			return fail(fmt.Sprintf("--%s: %v", bad.GetFlag().Name, v), 2)

@@ -77,6 +77,8 @@ func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 	mf.mobility = addChoice(fs, "mobility", "", presets.MobilityChoices, "mobility law: "+strings.Join(presets.MobilityChoices, ", ")+" (stokes-einstein and diffusivity: a solute in a solvent)")
 	mf.prefactor = addChoice(fs, "prefactor", "", presets.PrefactorChoices, "rate prefactor: "+strings.Join(presets.PrefactorChoices, ", ")+" (attachment: the default; diffusion: solutions)")
 	mf.solubility = addText(fs, "solubility", "solubility table FILE.csv (temperature_UNIT, solubility_UNIT) for driving solution, with --conc or --sat-temp")
+	setGroup(fs, groupMaterial, "material", "driving", "mobility", "prefactor")
+	setGroup(fs, groupSolution, "solubility")
 	for _, p := range presets.Params {
 		f := &valueFlag{p: p}
 		help := p.About
@@ -84,6 +86,7 @@ func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 			help += " (" + u + ")"
 		}
 		fs.Var(f, p.Flag(), help)
+		setGroup(fs, paramGroup(p), p.Flag())
 		mf.values = append(mf.values, f)
 	}
 	return mf

@@ -47,7 +47,7 @@ var outputCases = []struct {
 	// The critical rate, and the q^-4 law end to end: at the critical rate the
 	// CCT row shows exactly the target fraction; at 10 times it the extended
 	// volume is 1e-4 of -ln(1 - 1e-6) = 1.0000005e-6.
-	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.077e\+04 K/s`}, {"stdout", false, `^20768\.8[0-9]*,1e-06,`}, {"stdout", false, `^207688\.[0-9]*,1\.000000[0-9]*e-10,`}}},
+	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.08e\+04 K/s`}, {"stdout", false, `^20768\.8[0-9]*,1e-06,`}, {"stdout", false, `^207688\.[0-9]*,1\.000000[0-9]*e-10,`}}},
 
 	// Never nucleates in a tiny volume at a huge rate: the onset is null.
 	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--rate", "1e12K/s", "--volume", "1um3", "--format", "json"}, []check{{"stdout", false, `"onset_temperature_k": null`}, {"stdout", false, `"onset_undercooling_k": null`}, {"stdout", false, `"fraction_reached": null`}}},
@@ -279,7 +279,7 @@ var outputCases = []struct {
 	{"csv", []string{"cool", "--curve", "$WORK/curve-semicolon.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}}},
 
 	// A percentage for --fraction: 0.0001% is the default 1e-6.
-	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--fraction", "0.0001%", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.077e\+04 K/s`}}},
+	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--fraction", "0.0001%", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.08e\+04 K/s`}}},
 
 	// Every bare temperature is kelvin, and says how it was read.
 	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "650"}, []check{{"stderr", false, `^undercool: note: --at: read as 650 K \(376\.85 °C\); write 650C for Celsius$`}}},
@@ -302,9 +302,51 @@ var outputCases = []struct {
 	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--temps", "20C", "--format", "json"}, []check{{"stdout", false, `"undercooling_k": null`}, {"stdout", false, `"saturation_temperature_k": null`}}},
 	{"solution", []string{"hold", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--at", "20C", "--volume", "1mL"}, []check{{"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 293\.15 K`}}},
 	{"solution", []string{"ttt", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--temps", "20C,30C", "--format", "json"}, []check{{"stdout", false, `"inside_range": false`}}},
+
+	// --columns chooses columns by their JSON keys, in the order given, in
+	// the table, CSV and Markdown (a hold's CSV is its one record).
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,log10_rate_per_m3_s"}, []check{{"stdout", false, `^│ +T \(K\) +│ log10 J \(m\^-3 s\^-1\) │$`}, {"stdout", false, `^│ +900\.00 │ +11\.294 │$`}, {"stdout", true, `not shown`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "log10_rate_per_m3_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^log10_rate_per_m3_s,temperature_k$`}, {"stdout", false, `^11\.29[0-9]*,900$`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,critical_size", "--format", "markdown"}, []check{{"stdout", false, `^\| +T \(K\) +\| +n\* +\|$`}}},
+	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "900K", "--columns", "time_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^time_s,temperature_k$`}}},
+
+	// Markdown: the material's values are one item, sub-lines nested items.
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--format", "markdown"}, []check{{"stdout", false, `^- values: te = 1150 K, .*, q = 200 kJ/mol$`}, {"stdout", true, `^-\s{2,}`}}},
+	{"hold", []string{"ttt", "--material", "demo-alloy", "--temps", "900K", "--spread", "gamma=2%", "--samples", "20", "--format", "markdown"}, []check{{"stdout", false, `^  - nose temperature: `}, {"stdout", true, `^-\s{2,}`}}},
+
+	// Each closing caution fits what was computed: no interfacial energy in
+	// an Arrhenius or Avrami fit, or in a quench factor from a C-curve alone.
+	{"fit_arrhenius", []string{"fit", "arrhenius", "$REPO/testdata/fit/diffusion.csv"}, []check{{"stdout", false, `^estimates only: a fitted law describes its data within their scatter and range`}, {"stdout", true, `gamma cubed`}}},
+	{"fit_arrhenius", []string{"fit", "avrami", "$REPO/testdata/fit/crystallized-fraction.csv", "--format", "csv"}, []check{{"stdout", false, `^# estimates only: a fitted law describes`}, {"stdout", true, `gamma cubed`}}},
+	{"cool_curve", []string{"cool", "--curve", "$WORK/hold.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol"}, []check{{"stdout", false, `^estimates only: a quench factor holds for the alloy, temper and property`}, {"stdout", true, `gamma cubed`}}},
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$WORK/hold.csv"}, []check{{"stdout", false, `gamma cubed`}}},
+	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--material", "demo-alloy"}, []check{{"stdout", false, `gamma cubed`}}},
+
+	// The same quantity prints the same everywhere: the nose of vit1 in
+	// ttt, cool and the memo; a cooling rate with three digits; a measured
+	// curve's span in cool and the memo.
+	{"hold", []string{"ttt", "--material", "vit1"}, []check{{"stdout", false, `^nose: 733\.10 K \(459\.95 °C\), 24\.8 s$`}}},
+	{"hold", []string{"cool", "--material", "vit1", "--critical"}, []check{{"stdout", false, `^critical cooling rate to stay below X = 1e-06 at 625\.00 K: 0\.930 K/s `}, {"stdout", false, `^nose estimate \(Te - T_nose\)/t_nose: 8\.24 K/s \(nose 733\.10 K, 24\.8 s\)`}}},
+	{"hold", []string{"report", "--material", "vit1", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `^\| nose temperature +\| 733\.10 K \(459\.95 °C\) +\|`}, {"stdout", false, `^\| critical cooling rate +\| 0\.930 K/s +\|`}, {"stdout", false, `^\| nose estimate .*\| 8\.24 K/s +\|`}}},
+	{"hold", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, []check{{"stdout", false, `, 1199\.75 K to 305\.65 K over 2\.50 min \(lowest 303\.95 K\)$`}}},
+	{"hold", []string{"report", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `\(403 points, 1199\.75 K to 305\.65 K over 2\.50 min \(lowest 303\.95 K\)\)`}}},
+
+	// --help in groups, each shown where it applies.
+	{"hold", []string{"rate", "--help"}, []check{{"stdout", false, `(?s)^What to compute:$.*^The material:$.*^Solution values:$.*^Uncertainty:$.*^Output:$`}, {"stdout", false, `^      --supersaturation string`}}},
+	{"hold", []string{"rate", "--material", "ni", "--help"}, []check{{"stdout", false, `^Solution values: not shown \(ni is not a solution; undercool rate --help without --material`}, {"stdout", true, `--supersaturation`}}},
+	{"solution", []string{"rate", "--material", "$WORK/demo-solute-a.toml", "--help"}, []check{{"stdout", false, `^      --supersaturation string`}}},
+	{"hold", []string{"materials", "--help"}, []check{{"stdout", false, `^Output:$`}, {"stdout", true, `^The material:$|^What to compute:$|^Uncertainty:$`}}},
+	{"hold", []string{"fit", "--help"}, []check{{"stdout", false, `(?s)^Output:$.*--card-out`}}},
+
+	// --version, and the version in the memo.
+	{"hold", []string{"--version"}, []check{{"stdout", false, `^undercool \(devel\)$`}}},
+	{"hold", []string{"report", "--material", "demo-alloy", "--out", "-"}, []check{{"stdout", false, `^Date: [0-9]{4}-[0-9]{2}-[0-9]{2}\. Written by undercool report \(undercool \(devel\)\)\.`}, {"stdout", false, `^undercool report --material demo-alloy --out - --date [0-9]{4}-[0-9]{2}-[0-9]{2}$`}}},
 }
 
 func TestOutputs(t *testing.T) {
+	// The checks read values, not layout (TestScreenWidth and the goldens
+	// pin that): a screen wide enough that no line wraps.
+	t.Setenv("COLUMNS", "1000")
 	root, repo := caseFiles(t)
 	for _, c := range outputCases {
 		code, stdout, stderr := runCase(t, root, repo, c.dir, c.args)

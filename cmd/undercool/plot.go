@@ -499,9 +499,9 @@ func drawCCT(pf *plotFlag, p *plot.Plot, fig *tttFigure, cl *kinetics.Cooling, c
 		l.Color = curveColor(2 + k)
 		l.Dashes = []vg.Length{vg.Points(2), vg.Points(2)}
 		p.Add(l)
-		label := "cooling at " + answer.CoolingRateText(q)
+		label := "cooling at " + answer.RateText(q)
 		if critical {
-			label = "critical rate " + answer.CoolingRateText(q)
+			label = "critical rate " + answer.RateText(q)
 		}
 		p.Legend.Add(label, l)
 	}

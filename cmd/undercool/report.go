@@ -62,6 +62,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(pf, "plot", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
 	date := &dateFlag{}
 	fs.Var(date, "date", "the memo's date, YYYY-MM-DD (default: today, UTC)")
+	setGroup(fs, groupOutput, "out", "plot", "date")
 	format := addText(fs, "format", "not used: the memo is always Markdown")
 	_ = fs.MarkHidden("format")
 	sf := addSpreadFlags(fs)
@@ -82,7 +83,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err != nil {
 			return err
 		}
-		in := answer.MemoInput{X: jf.fraction.X[0], JMAK: j, At: at.x, V: volume.x, Date: date.date, Names: flagNames}
+		in := answer.MemoInput{X: jf.fraction.X[0], JMAK: j, At: at.x, V: volume.x, Date: date.date, Version: buildVersion(), Names: flagNames}
 		if !date.set {
 			in.Date = time.Now().UTC().Format("2006-01-02")
 		}
@@ -115,7 +116,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if in.Sampling, err = sf.sampling(e, in.Card); err != nil {
 			return err
 		}
-		in.Command = regenerate(fs, sf)
+		in.Command = regenerate(fs, sf, in.Date)
 		m, err := answer.Memos(in)
 		if err != nil {
 			return err
@@ -167,10 +168,15 @@ func writeMemoPlot(path string, m *answer.Memo, c *presets.Card, md *kinetics.Mo
 	return writeTTTPlot(pf, md, c.Name, m.TTT.Curves)
 }
 
-// regenerate is the command line that makes the same memo.
-func regenerate(fs *pflag.FlagSet, sf *spreadFlags) string {
+// regenerate is the command line that makes the same memo: the flags
+// given, and the memo's date when it was today's.
+func regenerate(fs *pflag.FlagSet, sf *spreadFlags, date string) string {
 	parts := []string{"undercool", "report"}
 	fs.VisitAll(func(f *pflag.Flag) {
+		if f.Name == "date" {
+			parts = append(parts, "--date", date)
+			return
+		}
 		if !f.Changed {
 			return
 		}

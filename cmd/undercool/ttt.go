@@ -83,7 +83,7 @@ func setupTTT(fs *pflag.FlagSet, e *env) func([]string) error {
 	jf := addJMAKFlags(fs, true)
 	tf := addTempFlags(fs, e, 31)
 	pf := addPlot(fs, "draw the TTT curve(s), temperature against log time,")
-	ff := addFormat(fs)
+	ff := addFormat(fs, e)
 	sf := addSpreadFlags(fs)
 	return func(args []string) error {
 		if err := start("ttt", args, sf); err != nil {
@@ -116,7 +116,7 @@ func setupTTT(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err != nil {
 			return err
 		}
-		return renderWithPlot(e, a, ff.value, pf, func() error {
+		return renderWithPlot(e, a, ff, pf, func() error {
 			return writeTTTPlot(pf, md, c.Name, a.Curves)
 		})
 	}

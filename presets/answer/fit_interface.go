@@ -57,13 +57,13 @@ type FitInterface struct {
 type InterfaceRow struct {
 	Line       string  `json:"line" col:"line"`
 	T          Num     `json:"temperature_k" col:"T (K),f2"`
-	TC         Num     `json:"temperature_c" col:"T (°C),f2"`
+	TC         Num     `json:"temperature_c" col:"T (°C),f2,2"`
 	Log10J     Num     `json:"log10_rate_per_m3_s" col:"log10 J (m^-3 s^-1),f3"`
 	Fitted     Num     `json:"fitted_log10_rate_per_m3_s" col:"fitted,f3"`
 	Residual   Num     `json:"residual_log10" col:"residual (decades),f3"`
-	Size       Num     `json:"critical_size" col:"n*,g4"`
-	ClassicalX Num     `json:"classical_x_m6_per_k_j2" col:"1/(T dg_v^2) (K^-1 m6/J2),g5"`
-	ClassicalY Num     `json:"classical_y" col:"classical y,f4"`
+	Size       Num     `json:"critical_size" col:"n*,g4,1"`
+	ClassicalX Num     `json:"classical_x_m6_per_k_j2" col:"1/(T dg_v^2) (K^-1 m6/J2),g5,3"`
+	ClassicalY Num     `json:"classical_y" col:"classical y,f4,3"`
 	Flags      Strings `json:"flags" col:"flags"`
 }
 
@@ -197,7 +197,7 @@ func (a *FitInterface) Doc() Doc {
 	d.Table = tableOf(a.Rows)
 	d.Notes = append(d.Notes, intervalNote(res.Exact(), "fit", res.T, res.DoF, ", SE from the Jacobian at the minimum (linear approximation); A's interval is exp of that of ln A"))
 	d.Notes = append(d.Notes, FlagNotes(res.Flags)...)
-	return fitDoc(d, a.Data, a.names)
+	return fitDoc(d, a.Data, a.names, Caution)
 }
 
 // Card is the material card with the fitted gamma, and the prefactor

@@ -98,12 +98,9 @@ func Describe(c *presets.Card, md *kinetics.Model) Material {
 	for _, v := range d.Values {
 		vals = append(vals, fmt.Sprintf("%s = %s", v.Key, v.Text))
 	}
-	for i := 0; i < len(vals); i += 6 {
-		prefix := "values: "
-		if i > 0 {
-			prefix = "        "
-		}
-		d.about = append(d.about, prefix+strings.Join(vals[i:min(i+6, len(vals))], ", "))
+	if len(vals) > 0 {
+		// one line, which a terminal wraps to its width and Markdown keeps as one item
+		d.about = append(d.about, "values: "+strings.Join(vals, ", "))
 	}
 	if sol, ok := md.Solution(); ok {
 		var line string

@@ -26,6 +26,7 @@ type MemoInput struct {
 	Data     *presets.Data  // the curve's file
 	Sampling *Sampling
 	Date     string // YYYY-MM-DD
+	Version  string // of the program that writes the memo
 	Command  string // the command line that makes the memo again
 	Plot     string // how the memo links its figure; "": none
 	Names    Names
@@ -219,7 +220,7 @@ func (m *Memo) Blocks() []Block {
 	X := FracLabel(in.X)
 	bs := []Block{
 		Heading(1, "Transformation estimate: "+c.Name),
-		Para(fmt.Sprintf("Date: %s. Written by undercool report. Transformed fraction X = %s.", in.Date, X)),
+		Para(fmt.Sprintf("Date: %s. Written by undercool report (%s). Transformed fraction X = %s.", in.Date, in.Version, X)),
 		Quote("**Estimates only.** Nucleation rates depend on the cube of the interfacial energy inside an exponential: a 10 % error in it moves a rate by orders of magnitude. See the cautions at the end."),
 		Heading(2, "Question"),
 	}
@@ -234,9 +235,8 @@ func (m *Memo) Blocks() []Block {
 		qs = append(qs, fmt.Sprintf("Where does the first nucleus appear in a sample of %.4g m³ cooled at the critical rate?", in.V))
 	}
 	if p := in.Path; p != nil {
-		n := len(p.Time)
-		qs = append(qs, fmt.Sprintf("What did the measured cooling curve %s (%d points, %.2f to %.2f K over %s) do: the fraction at its end and the additivity sum?",
-			in.Data.File, n, p.Temp[0], p.Temp[n-1], ReadableTime(p.Time[n-1]-p.Time[0])))
+		qs = append(qs, fmt.Sprintf("What did the measured cooling curve %s (%d points, %s) do: the fraction at its end and the additivity sum?",
+			in.Data.File, len(p.Time), CurveSpan(*p)))
 	}
 	bs = append(bs, List(qs...), Heading(2, "Material"))
 	card := fmt.Sprintf("Card: %s (%s)", c.Name, c.File)
@@ -307,7 +307,7 @@ func (m *Memo) Blocks() []Block {
 	if strings.EqualFold(c.Kind, "demo") {
 		bs = append(bs, Para("The material of this memo is invented for demonstration; its numbers describe no real material."))
 	}
-	return append(bs, Para("---"), Para("Regenerate this memo with:"), Code(in.Command))
+	return append(bs, Para("---"), Para(fmt.Sprintf("Regenerate this memo (the same, with %s) with:", in.Version)), Code(in.Command))
 }
 
 // resultBlocks are the results table and the short TTT table.
