@@ -44,7 +44,7 @@ func setupRate(fs *pflag.FlagSet, e *env) func([]string) error {
 			return err
 		}
 		if pf.set {
-			if err := writeRatePlot(pf, c.Name, md, temps); err != nil {
+			if err := writeRatePlot(pf, figureName(c), md, temps); err != nil {
 				return err
 			}
 		}

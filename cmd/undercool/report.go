@@ -10,8 +10,6 @@ import (
 
 	"github.com/spf13/pflag"
 
-	"undercool/kinetics"
-	"undercool/presets"
 	"undercool/presets/answer"
 )
 
@@ -126,7 +124,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			return err
 		}
 		if plot != "" {
-			if err := writeMemoPlot(plot, m, in.Card, in.Model); err != nil {
+			if err := writeMemoPlot(plot, m, in); err != nil {
 				return err
 			}
 		}
@@ -158,14 +156,25 @@ func memoPlot(out string, pf *plotFlag) string {
 
 // writeMemoPlot draws the TTT curve beside the memo, with the CCT curve and
 // the cooling line at the critical rate over it where there is one (the
-// figure of undercool cool --critical --plot).
-func writeMemoPlot(path string, m *answer.Memo, c *presets.Card, md *kinetics.Model) error {
+// figure of undercool cool --critical --plot), and the measured cooling
+// curve where there is one (as cool --curve --plot draws it).
+func writeMemoPlot(path string, m *answer.Memo, in answer.MemoInput) error {
 	pf := &plotFlag{path: path, format: "svg"}
+	var fig *tttFigure
+	var err error
 	if m.WithCCT() {
 		cr := m.Cool
-		return cctPlot(pf, cr.Path, md, c.Name, cr.X, []float64{cr.Qc}, true, cr.Qc)
+		fig, err = cctFigure(cr.Path, in.Model, in.Card, cr.X, []float64{cr.Qc}, true, cr.Qc)
+	} else {
+		fig, err = tttFigureOf(in.Model, in.Card, m.TTT.Curves)
 	}
-	return writeTTTPlot(pf, md, c.Name, m.TTT.Curves)
+	if err != nil {
+		return err
+	}
+	if m.Curve != nil {
+		curveOver(fig, *in.Path, in.X, m.Curve)
+	}
+	return saveFigure(pf, fig)
 }
 
 // regenerate is the command line that makes the same memo: the flags

@@ -66,6 +66,7 @@ type Curve struct {
 	Rows        []BandRow    `json:"rows"`
 
 	Analysis *kinetics.CurveAnalysis `json:"-"` // with a material
+	Quench   kinetics.QuenchResult   `json:"-"` // against the C-curve used
 	about    []string
 	summary  []string
 }
@@ -126,7 +127,7 @@ func Curves(in CurveInput) (*Curve, error) {
 	a.about = append(a.about, "C-curve: "+cc)
 	retained := quench.Retained(k1)
 	a.summary = append(a.summary, fmt.Sprintf("quench factor Q = integral of dt/C(T): %.4g; retained property fraction exp(k1 Q) = %.4g", quench.Q, retained))
-	a.Q, a.Retained = Num(quench.Q), Num(retained)
+	a.Q, a.Retained, a.Quench = Num(quench.Q), Num(retained), quench
 	a.Rows = []BandRow{} // [] in JSON without bands
 	for _, b := range quench.Bands {
 		a.Rows = append(a.Rows, BandRow{fmt.Sprintf("%.0f–%.0f", b.Hi, b.Lo), Num(b.Hi), Num(b.Lo), Num(b.Time), Num(b.Q), Num(100 * b.Share)})

@@ -281,14 +281,18 @@ func (m *Memo) Blocks() []Block {
 	bs = append(bs, Heading(2, "Uncertainty and what to measure next"))
 	bs = append(bs, m.uncertaintyBlocks()...)
 	if in.Plot != "" {
+		curve := ""
+		if m.Curve != nil {
+			curve = fmt.Sprintf(" The measured cooling curve %s is drawn over them, its time counted from its first point, with the points where it reaches X = %s and where its additivity sum reaches 1 marked where it does.", in.Data.File, X)
+		}
 		if m.WithCCT() {
 			bs = append(bs, Heading(2, "TTT and CCT plot"),
 				Para(fmt.Sprintf("![TTT and CCT curves of %s for X = %s](%s)", c.Name, X, in.Plot)),
-				Para(fmt.Sprintf("Temperature against log time: the isothermal TTT curve to X = %s with its nose marked, the CCT curve (where linear cooling from T_e reaches X) and the cooling line at the critical rate; T_e (and T_g where the card has one) are dashed.", X)))
+				Para(fmt.Sprintf("Temperature against log time: the isothermal TTT curve to X = %s with its nose marked, the CCT curve (where linear cooling from T_e reaches X) and the cooling line at the critical rate; T_e (and T_g where the card has one) are dashed.%s", X, curve)))
 		} else {
 			bs = append(bs, Heading(2, "TTT plot"),
 				Para(fmt.Sprintf("![TTT curve of %s for X = %s](%s)", c.Name, X, in.Plot)),
-				Para(fmt.Sprintf("Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.", X)))
+				Para(fmt.Sprintf("Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.%s", X, curve)))
 		}
 	}
 	bs = append(bs, Heading(2, "Validity flags"))
