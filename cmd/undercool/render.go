@@ -386,11 +386,14 @@ func fitTable(t answer.Table, w int) (answer.Table, []answer.Col) {
 			if !keep[i] {
 				continue
 			}
-			cell := cells[r][i]
-			if c.Text == nil && width(cell) > ws[i] {
-				cell = strings.Join(wrapWords(strings.Fields(cell), ws[i], "", ""), "\n")
+			switch cell := cells[r][i]; {
+			case c.Text == nil && width(cell) > ws[i]:
+				row = append(row, strings.Join(wrapWords(strings.Fields(cell), ws[i], "", ""), "\n"))
+			case c.Text == nil:
+				row = append(row, t.Rows[r][i]) // as it was: an empty list stays blank
+			default:
+				row = append(row, cell)
 			}
-			row = append(row, cell)
 		}
 		out.Rows = append(out.Rows, row)
 	}
