@@ -211,6 +211,8 @@ func (cf *coolFlags) runCurve(e *env) error {
 			return err
 		}
 		switch md := in.Model; {
+		case !md.HasTe():
+			return noTe("--curve", "no TTT curve to take the additivity sum against")
 		case !md.HasGrowth():
 			return noMobility("transformed fraction")
 		case !md.HasRate():

@@ -236,6 +236,7 @@ var errorCases = []struct {
 	// A fixed supersaturation without a saturation temperature: only what needs one asks for it.
 	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20"}, `^undercool: --temps: a fixed supersaturation without a saturation temperature has no default temperatures: give them with --temps or --range \(or give --sat-temp\)$`, 2},
 	{"solution", []string{"cool", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--rate", "1K/s"}, `^undercool: cool: a fixed supersaturation without a saturation temperature has no temperature for linear cooling`, 2},
+	{"solution", []string{"cool", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, `^undercool: --curve: a fixed supersaturation without a saturation temperature has no TTT curve`, 2},
 	{"solution", []string{"report", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--out", "-"}, `^undercool: report: a fixed supersaturation without a saturation temperature has no temperature range`, 2},
 }
 
