@@ -73,8 +73,12 @@ func matchHeader(h string, cols []Column) (int, string, bool) {
 func acceptedHeaders(cols []Column) string {
 	var out []string
 	for _, c := range cols {
-		if len(c.Kind.Units()) == 0 {
+		switch {
+		case len(c.Kind.Units()) == 0:
 			out = append(out, c.Quantity)
+			continue
+		case c.Kind.Bare && c.Kind.SI == "":
+			out = append(out, c.Quantity+" or "+c.Quantity+"_UNIT (UNIT one of "+strings.Join(c.Kind.Units(), " ")+")")
 			continue
 		}
 		out = append(out, c.Quantity+"_UNIT (UNIT one of "+strings.Join(c.Kind.Units(), " ")+", with _ for * and _per_ for /)")
@@ -82,12 +86,64 @@ func acceptedHeaders(cols []Column) string {
 	return strings.Join(out, "; ")
 }
 
+// sniffSize is how much of a data file is read ahead to find its header.
+const sniffSize = 64 << 10
+
+// utf8BOM is the byte-order mark a spreadsheet may write first.
+const utf8BOM = "\ufeff"
+
+// separator finds how a file separates its columns: by semicolons when its
+// header (the first line that is neither blank nor a comment) has a
+// semicolon and no comma, as spreadsheets write CSV where the decimal mark
+// is a comma; else by commas.
+func separator(br *bufio.Reader) rune {
+	head, _ := br.Peek(sniffSize) // a short file gives what it has
+	for _, line := range strings.Split(string(head), "\n") {
+		line = strings.TrimSpace(strings.TrimPrefix(line, utf8BOM))
+		if line == "" || strings.HasPrefix(line, "#") {
+			continue
+		}
+		if strings.Contains(line, ";") && !strings.Contains(line, ",") {
+			return ';'
+		}
+		break
+	}
+	return ','
+}
+
+// decimalPoint writes a decimal comma as a point ("1,5" → "1.5"), for a
+// file separated by semicolons; a value with both marks is left alone and
+// fails as a number.
+func decimalPoint(f string) string {
+	if strings.Count(f, ",") == 1 && !strings.Contains(f, ".") {
+		return strings.Replace(f, ",", ".", 1)
+	}
+	return f
+}
+
+// unitHint says which units a column takes, for a message: the list, or
+// that it takes none.
+func unitHint(c Column) string {
+	if us := c.Kind.Units(); len(us) > 0 {
+		return "use " + strings.Join(us, ", ")
+	}
+	return fmt.Sprintf("it is a plain number: name the column %s, without a unit", c.Quantity)
+}
+
 // ReadData reads a CSV whose first non-comment row is a header of unit-bearing
 // names; '#' starts a comment line and blank lines are skipped. Every value
-// must be a finite number. Errors name the file and line.
+// must be a finite number. A byte-order mark at the start is skipped, and a
+// file whose header is separated by semicolons is read as such, with decimal
+// commas (as spreadsheets write it in many languages). Errors name the file
+// and line.
 func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
-	br := bufio.NewReader(r)
+	br := bufio.NewReaderSize(r, sniffSize)
+	if b, err := br.Peek(len(utf8BOM)); err == nil && string(b) == utf8BOM {
+		br.Discard(len(utf8BOM))
+	}
+	comma := separator(br)
 	cr := csv.NewReader(br)
+	cr.Comma = comma
 	cr.Comment = '#'
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
@@ -125,9 +181,9 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 				seen[i] = true
 				if u != "" {
 					if _, err := units.Parse("1"+u, cols[i].Kind); err != nil {
-						return nil, fmt.Errorf("%s:%d: column %q: unit %q is not a unit of %s (use %s)", file, line, strings.TrimSpace(h), u, cols[i].Kind.Name, strings.Join(cols[i].Kind.Units(), ", "))
+						return nil, fmt.Errorf("%s:%d: column %q: unit %q is not a unit of %s (%s)", file, line, strings.TrimSpace(h), u, cols[i].Kind.Name, unitHint(cols[i]))
 					}
-				} else if !cols[i].Kind.Bare || len(cols[i].Kind.Units()) > 0 {
+				} else if cols[i].Kind.SI != "" { // a plain number (a fraction) may go without
 					return nil, fmt.Errorf("%s:%d: column %q needs a unit, e.g. %s_%s", file, line, h, cols[i].Quantity, headerExample(cols[i].Kind))
 				}
 				index[j], unitsOf[j] = i, u
@@ -141,11 +197,19 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 			continue
 		}
 		if len(rec) != len(index) {
-			return nil, fmt.Errorf("%s:%d: %d fields, header has %d", file, line, len(rec), len(index))
+			hint := ""
+			if comma == ',' && len(rec) > len(index) {
+				hint = " (a decimal comma? write 1.5, not 1,5, or separate the columns with semicolons)"
+			}
+			return nil, fmt.Errorf("%s:%d: %d fields, header has %d%s", file, line, len(rec), len(index), hint)
 		}
 		for j, f := range rec {
 			c := cols[index[j]]
-			v, err := units.Parse(strings.TrimSpace(f)+unitsOf[j], c.Kind)
+			f = strings.TrimSpace(f)
+			if comma == ';' {
+				f = decimalPoint(f)
+			}
+			v, err := units.Parse(f+unitsOf[j], c.Kind)
 			if err != nil || math.IsNaN(v) {
 				return nil, fmt.Errorf("%s:%d: column %q: %q is not a finite number", file, line, d.Headers[c.Quantity], strings.TrimSpace(f))
 			}
