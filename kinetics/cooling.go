@@ -97,6 +97,10 @@ type crossGrid struct {
 // ErrEndAboveTe is returned when the end of the path is not below T_e.
 var ErrEndAboveTe = errors.New("the end temperature must be below the equilibrium temperature")
 
+// ErrNoTe is returned for linear cooling of a model without an equilibrium
+// temperature to start from (a fixed supersaturation; see HasTe).
+var ErrNoTe = errors.New("linear cooling starts at the equilibrium temperature, and the model has none")
+
 // floor returns the coldest temperature worth computing: AutoFloor·T_e,
 // or just above where the mobility law diverges.
 func (md *Model) floor() float64 {
@@ -113,9 +117,12 @@ func (md *Model) floor() float64 {
 
 // LinearCooling computes linear cooling from T_e down to end (K). end = 0
 // means: the glass transition where the material has one, else where the
-// rest of the path is negligible. Errors: ErrNoRate, ErrNoGrowth,
+// rest of the path is negligible. Errors: ErrNoRate, ErrNoGrowth, ErrNoTe,
 // ErrEndAboveTe.
 func (md *Model) LinearCooling(end float64) (*Cooling, error) {
+	if !md.HasTe() {
+		return nil, ErrNoTe
+	}
 	if !md.HasRate() {
 		return nil, ErrNoRate
 	}

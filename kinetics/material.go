@@ -110,13 +110,18 @@ func NewModel(m Material) (*Model, error) {
 		return nil, errors.New("no driving-force model")
 	}
 	te, ok := m.Driving.Equilibrium()
-	if !ok {
-		return nil, ErrNoEquilibrium
-	}
 	checks := []struct {
 		name string
 		x    float64
 	}{{"Te", te}, {"Vm", m.Vm}, {"Gamma", m.Gamma}}
+	if !ok {
+		// A solution at a fixed supersaturation has no saturation
+		// temperature, and needs none at a given temperature: Te is NaN.
+		if _, sol := m.Driving.(cnt.Solution); !sol {
+			return nil, ErrNoEquilibrium
+		}
+		te, checks = math.NaN(), checks[1:]
+	}
 	for _, c := range checks {
 		if err := positive(c.name, c.x); err != nil {
 			return nil, err
@@ -220,6 +225,11 @@ func (md *Model) Material() Material { return md.m }
 
 // Te is the equilibrium temperature T_e of the driving force, K.
 func (md *Model) Te() float64 { return md.te }
+
+// HasTe reports whether the model has an equilibrium temperature: every
+// model but a solution at a fixed supersaturation without a saturation
+// temperature (Te is then NaN, and so is every undercooling).
+func (md *Model) HasTe() bool { return !math.IsNaN(md.te) }
 
 // MolecularVolume is v, m³.
 func (md *Model) MolecularVolume() float64 { return md.v }

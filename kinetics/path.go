@@ -134,7 +134,9 @@ func (md *Model) tabulate(p Path) table {
 		lo, hi = math.Min(lo, T), math.Max(hi, T)
 	}
 	tab := table{te: md.te}
-	hi = math.Min(hi, md.te)
+	if md.te < hi { // NaN: no T_e, nothing to cut
+		hi = md.te
+	}
 	if !(hi > lo) {
 		// all at one temperature, or all at or above T_e
 		lnJ, u := md.rateAndGrowth(lo)

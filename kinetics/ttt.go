@@ -11,6 +11,12 @@ import (
 // NoseTolerance is the accuracy of the nose temperature, K.
 const NoseTolerance = 0.01
 
+// noseSearch is the tolerance the search runs to: a hundred times finer
+// than NoseTolerance, so that searches over different ranges (a TTT table's,
+// a cooling path's) agree far below the 0.01 K the outputs print, and print
+// the same nose.
+const noseSearch = NoseTolerance / 100
+
 // noseScan is the number of evenly spaced temperatures the nose search
 // looks at before refining the lowest; it guards against a curve with more
 // than one dip (a tabulated driving force, a mobility law with a kink).
@@ -91,7 +97,7 @@ func (md *Model) Nose(lo, hi, X float64, j JMAK) (Nose, error) {
 			return -a.LnK
 		}
 	}
-	T, fT, err := bracket.MinimizeScan(f, lo, hi, noseScan, NoseTolerance)
+	T, fT, err := bracket.MinimizeScan(f, lo, hi, noseScan, noseSearch)
 	if err != nil {
 		return Nose{}, fmt.Errorf("nose search: %v", err)
 	}

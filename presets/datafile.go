@@ -72,8 +72,12 @@ func matchHeader(h string, cols []Column) (int, string, bool) {
 func acceptedHeaders(cols []Column) string {
 	var out []string
 	for _, c := range cols {
-		if len(c.Kind.Units()) == 0 {
+		switch {
+		case len(c.Kind.Units()) == 0:
 			out = append(out, c.Quantity)
+			continue
+		case c.Kind.Bare && c.Kind.SI == "":
+			out = append(out, c.Quantity+" or "+c.Quantity+"_UNIT (UNIT one of "+strings.Join(c.Kind.Units(), " ")+")")
 			continue
 		}
 		out = append(out, c.Quantity+"_UNIT (UNIT one of "+strings.Join(c.Kind.Units(), " ")+", with _ for * and _per_ for /)")
@@ -81,14 +85,66 @@ func acceptedHeaders(cols []Column) string {
 	return strings.Join(out, "; ")
 }
 
+// sniffSize is how much of a data file is read ahead to find its header.
+const sniffSize = 64 << 10
+
+// utf8BOM is the byte-order mark a spreadsheet may write first.
+const utf8BOM = "\ufeff"
+
+// separator finds how a file separates its columns: by semicolons when its
+// header (the first line that is neither blank nor a comment) has a
+// semicolon and no comma, as spreadsheets write CSV where the decimal mark
+// is a comma; else by commas.
+func separator(br *bufio.Reader) rune {
+	head, _ := br.Peek(sniffSize) // a short file gives what it has
+	for _, line := range strings.Split(string(head), "\n") {
+		line = strings.TrimSpace(strings.TrimPrefix(line, utf8BOM))
+		if line == "" || strings.HasPrefix(line, "#") {
+			continue
+		}
+		if strings.Contains(line, ";") && !strings.Contains(line, ",") {
+			return ';'
+		}
+		break
+	}
+	return ','
+}
+
+// decimalPoint writes a decimal comma as a point ("1,5" → "1.5"), for a
+// file separated by semicolons; a value with both marks is left alone and
+// fails as a number.
+func decimalPoint(f string) string {
+	if strings.Count(f, ",") == 1 && !strings.Contains(f, ".") {
+		return strings.Replace(f, ",", ".", 1)
+	}
+	return f
+}
+
+// unitHint says which units a column takes, for a message: the list, or
+// that it takes none.
+func unitHint(c Column) string {
+	if us := c.Kind.Units(); len(us) > 0 {
+		return "use " + strings.Join(us, ", ")
+	}
+	return fmt.Sprintf("it is a plain number: name the column %s, without a unit", c.Quantity)
+}
+
 // ReadData reads a CSV whose first non-comment row is a header of unit-bearing
 // names; '#' starts a comment line and blank lines are skipped. Every value
-// must be a finite number. Errors name the file and line; more than
-// MaxDataBytes or MaxDataRows is a *LimitError.
+// must be a finite number. A byte-order mark at the start is skipped, and a
+// file whose header is separated by semicolons is read as such, with decimal
+// commas (as spreadsheets write it in many languages). Errors name the file
+// and line; more than MaxDataBytes, MaxLineBytes a line or MaxDataRows is a
+// *LimitError.
 func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 	lr := &limitedReader{r: r, n: MaxDataBytes, line: MaxLineBytes}
-	br := bufio.NewReader(lr)
+	br := bufio.NewReaderSize(lr, sniffSize)
+	if b, err := br.Peek(len(utf8BOM)); err == nil && string(b) == utf8BOM {
+		br.Discard(len(utf8BOM))
+	}
+	comma := separator(br)
 	cr := csv.NewReader(br)
+	cr.Comma = comma
 	cr.Comment = '#'
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
@@ -109,8 +165,7 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 				return nil, tooLarge(file, MaxDataBytes, "a data file")
 			case errors.Is(err, errLineTooLong):
 				return nil, &LimitError{fmt.Sprintf("%s:%d", file, lr.lines+1), fmt.Sprintf("a line longer than the %d KiB a line of a data file may be", MaxLineBytes>>10)}
-			}
-			if errors.As(err, &pe) {
+			case errors.As(err, &pe):
 				return nil, fmt.Errorf("%s:%d: not valid CSV: %v", file, pe.Line, pe.Err)
 			}
 			return nil, fmt.Errorf("%s: %v", file, err)
@@ -133,12 +188,12 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 					return nil, fmt.Errorf("%s:%d: two columns for %s", file, line, cols[i].Quantity)
 				}
 				seen[i] = true
-				if u == "" && (!cols[i].Kind.Bare || len(cols[i].Kind.Units()) > 0) {
+				if u == "" && cols[i].Kind.SI != "" { // a plain number (a fraction) may go without
 					return nil, fmt.Errorf("%s:%d: column %s needs a unit, e.g. %s_%s", file, line, units.Quote(h), cols[i].Quantity, headerExample(cols[i].Kind))
 				}
 				p, err := cols[i].Kind.In(u)
 				if err != nil {
-					return nil, fmt.Errorf("%s:%d: column %s: unit %s is not a unit of %s (use %s)", file, line, units.Quote(strings.TrimSpace(h)), units.Quote(u), cols[i].Kind.Name, strings.Join(cols[i].Kind.Units(), ", "))
+					return nil, fmt.Errorf("%s:%d: column %s: unit %s is not a unit of %s (%s)", file, line, units.Quote(strings.TrimSpace(h)), units.Quote(u), cols[i].Kind.Name, unitHint(cols[i]))
 				}
 				index[j], parse[j] = i, p
 				d.Headers[cols[i].Quantity] = strings.TrimSpace(h)
@@ -154,13 +209,19 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 			return nil, &LimitError{file, fmt.Sprintf("more than the %d data rows a data file may have", MaxDataRows)}
 		}
 		if len(rec) != len(index) {
-			return nil, fmt.Errorf("%s:%d: %d fields, header has %d", file, line, len(rec), len(index))
+			hint := ""
+			if comma == ',' && len(rec) > len(index) {
+				hint = " (a decimal comma? write 1.5, not 1,5, or separate the columns with semicolons)"
+			}
+			return nil, fmt.Errorf("%s:%d: %d fields, header has %d%s", file, line, len(rec), len(index), hint)
 		}
 		for j, f := range rec {
-			c := cols[index[j]]
+			if comma == ';' {
+				f = decimalPoint(strings.TrimSpace(f))
+			}
 			v, err := parse[j](f)
 			if err != nil {
-				return nil, fmt.Errorf("%s:%d: column %s: %s is not a finite number", file, line, units.Quote(d.Headers[c.Quantity]), units.Quote(strings.TrimSpace(f)))
+				return nil, fmt.Errorf("%s:%d: column %s: %s is not a finite number", file, line, units.Quote(d.Headers[cols[index[j]].Quantity]), units.Quote(strings.TrimSpace(f)))
 			}
 			values[j] = append(values[j], v)
 		}

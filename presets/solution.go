@@ -104,9 +104,11 @@ func (b *builder) solution() (cnt.DrivingForce, error) {
 				return nil, err
 			}
 			s.Tsat = ts
-		default:
-			s.Tsat = b.need("sat_temp", "a fixed supersaturation also needs sat_temp, the saturation temperature: it starts every default temperature range and the undercooling column")
+		case c.Has("sat_temp"):
+			s.Tsat = b.opt("sat_temp", 0)
 		}
+		// Without either, no saturation temperature: the model answers at
+		// the temperatures given, and has no default range or undercooling.
 		return s, b.err
 	case tab != nil:
 		if basis := c.tableBasis(); basis != "sat_temp" {

@@ -150,6 +150,23 @@ func mustParam(k string) Param {
 	return p
 }
 
+// A fixed supersaturation needs no saturation temperature: the model
+// answers at a given temperature (Δg = k_B·T·ln S per molecule) and has no
+// T_e, so every undercooling is NaN.
+func TestFixedSupersaturationWithoutSatTemp(t *testing.T) {
+	md, err := solutionModel(t, map[string]string{"supersaturation": "2"}, "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if md.HasTe() || !math.IsNaN(md.At(300).Undercooling) {
+		t.Errorf("HasTe %v, undercooling %g: want no T_e and NaN", md.HasTe(), md.At(300).Undercooling)
+	}
+	want := cnt.Boltzmann * 300 * math.Log(2) // J per molecule
+	if got := md.At(300).Dmu; math.Abs(got-want) > 1e-12*want {
+		t.Errorf("Δμ at 300 K = %g J, want k_B T ln 2 = %g J", got, want)
+	}
+}
+
 func TestSolutionCardErrors(t *testing.T) {
 	good := "temperature_k,solubility_g_per_kg\n283.15,10\n293.15,15\n303.15,22\n"
 	for _, c := range []struct {
@@ -159,7 +176,6 @@ func TestSolutionCardErrors(t *testing.T) {
 		msg   string
 	}{
 		{"nothing", nil, "", `driving "solution" needs a supersaturation`},
-		{"fixed S without T_sat", map[string]string{"supersaturation": "2"}, "", "also needs sat_temp"},
 		{"table without conc", nil, good, "needs the solution's concentration"},
 		{"conc in other units", map[string]string{"conc": "0.1 mol/l"}, good, "is a molar concentration but the solubility table"},
 		{"conc outside the table", map[string]string{"conc": "30 g/kg"}, good, "lies outside the solubilities of"},

@@ -3,7 +3,6 @@ package main
 import (
 	"encoding/json"
 	"errors"
-	"fmt"
 	"math"
 
 	"github.com/spf13/pflag"
@@ -39,7 +38,7 @@ type coolFlags struct {
 	ccurve   *ccurveFlag
 	band     *quantityFlag
 	plot     *plotFlag
-	format   *choiceFlag
+	format   *formatFlag
 	spread   *spreadFlags
 }
 
@@ -70,7 +69,7 @@ func setupCool(fs *pflag.FlagSet, e *env) func([]string) error {
 	cf.band.set = false
 	fs.Var(cf.band, "band", "width of the temperature bands of the quench-factor table, K (> 0)")
 	cf.plot = addPlot(fs, "draw the CCT curve for --fraction over the TTT curve, with the cooling lines of --rate,")
-	cf.format = addFormat(fs)
+	cf.format = addFormat(fs, e)
 	cf.spread = addSpreadFlags(fs)
 	return func(args []string) error {
 		if err := start("cool", args, cf.spread); err != nil {
@@ -89,9 +88,6 @@ func setupCool(fs *pflag.FlagSet, e *env) func([]string) error {
 			return usagef("--end: applies to linear cooling; a measured curve ends where its file does")
 		}
 		if cf.curve.set {
-			if cf.plot.set {
-				return usagef("--plot: draws the CCT of linear cooling; it does not apply to --curve")
-			}
 			return cf.runCurve(e)
 		}
 		c, md, err := cf.mf.model()
@@ -137,6 +133,8 @@ func (cf *coolFlags) linearMode(md *kinetics.Model) (coolMode, error) {
 // runLinear answers linear cooling from T_e: at given rates, or the critical rate.
 func (cf *coolFlags) runLinear(e *env, c *presets.Card, md *kinetics.Model, mode coolMode) error {
 	switch {
+	case !md.HasTe():
+		return noTe("cool", "no temperature for linear cooling to start from: give --curve FILE.csv for a measured path")
 	case !md.HasGrowth():
 		return noMobility("transformed fraction")
 	case !md.HasRate():
@@ -153,12 +151,20 @@ func (cf *coolFlags) runLinear(e *env, c *presets.Card, md *kinetics.Model, mode
 	if err != nil {
 		return err
 	}
-	return renderWithPlot(e, a, cf.format.value, cf.plot, func() error {
+	return renderWithPlot(e, a, cf.format, cf.plot, func() error {
 		if cr, ok := a.(*answer.Critical); ok {
-			return cctPlot(cf.plot, cr.Path, md, cr.Name, cr.X, []float64{cr.Qc}, true, cr.Qc)
+			fig, err := cctFigure(cr.Path, md, c, cr.X, []float64{cr.Qc}, true, cr.Qc)
+			if err != nil {
+				return err
+			}
+			return saveFigure(cf.plot, fig)
 		}
 		cct := a.(*answer.CCT)
-		return cctPlot(cf.plot, cct.Path, md, cct.Name, cct.X, cct.Rates, false, cct.Qc)
+		fig, err := cctFigure(cct.Path, md, c, cct.X, cct.Rates, false, cct.Qc)
+		if err != nil {
+			return err
+		}
+		return saveFigure(cf.plot, fig)
 	})
 }
 
@@ -205,6 +211,8 @@ func (cf *coolFlags) runCurve(e *env) error {
 			return err
 		}
 		switch md := in.Model; {
+		case !md.HasTe():
+			return noTe("--curve", "no TTT curve to take the additivity sum against")
 		case !md.HasGrowth():
 			return noMobility("transformed fraction")
 		case !md.HasRate():
@@ -221,7 +229,7 @@ func (cf *coolFlags) runCurve(e *env) error {
 	if err != nil {
 		return err
 	}
-	return render(e.stdout, cf.format.value, a)
+	return renderWithPlot(e, a, cf.format, cf.plot, func() error { return curvePlot(cf.plot, in, a) })
 }
 
 // runZone answers the metastable zone of a cooled solution.
@@ -229,6 +237,9 @@ func (cf *coolFlags) runZone(e *env, c *presets.Card, md *kinetics.Model) error 
 	a, err := answer.Zones(answer.ZoneInput{Card: c, Model: md, V: cf.volume.x, VolumeText: cf.volume.text, Rates: cf.rate.q,
 		End: cf.end.x, EndText: cf.end.text, Names: flagNames})
 	if err != nil {
+		return err
+	}
+	if err := cf.format.check(a); err != nil { // before the plot is written
 		return err
 	}
 	var notes []string
@@ -242,12 +253,12 @@ func (cf *coolFlags) runZone(e *env, c *presets.Card, md *kinetics.Model) error 
 		if len(pts) == 0 {
 			return usagef("--plot: no rate reaches an onset on this path; nothing to draw")
 		}
-		if err := zonePlot(cf.plot, c.Name, pts); err != nil {
+		if err := zonePlot(cf.plot, figureName(c), pts); err != nil {
 			return err
 		}
 		notes = append(notes, "plot written: "+cf.plot.path)
 	}
-	return render(e.stdout, cf.format.value, annotated{a, notes})
+	return render(e.stdout, cf.format, annotated{a, notes})
 }
 
 // annotated is an answer with notes of the command's own (files written).
@@ -263,49 +274,3 @@ func (a annotated) Doc() answer.Doc {
 }
 
 func (a annotated) MarshalJSON() ([]byte, error) { return json.Marshal(a.Answer) }
-
-// cctPlotRates is the number of rates the CCT curve of a plot is drawn with.
-const cctPlotRates = 120
-
-// cctPlot draws the TTT curve for X with the CCT curve over it: for rates
-// spread over eight decades below the critical rate qc, where linear
-// cooling reaches X; and the cooling lines of the given rates.
-func cctPlot(pf *plotFlag, cl *kinetics.Cooling, md *kinetics.Model, name string, X float64, rates []float64, critical bool, qc float64) error {
-	if !(qc > 0) {
-		return usagef("--plot: nothing to draw: nothing nucleates on the path")
-	}
-	lo, hi := cl.End, cl.Te*(1-1e-4)
-	temps := answer.Spread(hi, lo, plotPoints)
-	ttt, err := md.TTT(temps, []float64{X}, kinetics.JMAK{}, lo, hi)
-	if err != nil {
-		return err
-	}
-	fig := &tttFigure{
-		title:     fmt.Sprintf("CCT over TTT, %s: X = %s", name, answer.FracLabel(X)),
-		fractions: []float64{X},
-		T:         temps,
-		te:        md.Te(),
-		tg:        md.Material().Tg,
-	}
-	fig.times = make([][]float64, len(temps))
-	for i := range temps {
-		t, _ := answer.Seconds(ttt.LnTime[i][0])
-		fig.times[i] = []float64{t}
-	}
-	if n := ttt.Noses[0]; n.Inside() {
-		t, _ := answer.Seconds(n.LnTime)
-		fig.noses = [][2]float64{{n.T, t}}
-	}
-	p, err := fig.plot()
-	if err != nil {
-		return err
-	}
-	var cct plotter.XYs
-	for i := 0; i < cctPlotRates; i++ {
-		q := qc * math.Pow(10, -8*float64(i)/(cctPlotRates-1))
-		if pt := cl.Reach(q, X); pt.Reached && finitePositive(pt.Time) {
-			cct = append(cct, plotter.XY{X: pt.Time, Y: pt.Temp})
-		}
-	}
-	return drawCCT(pf, p, fig, cl, cct, X, rates, critical)
-}

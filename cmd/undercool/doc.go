@@ -12,13 +12,14 @@ Commands:
 	rate       nucleus and steady-state nucleation rate over temperatures
 	ttt        TTT curve for a transformed fraction, with its nose
 	hold       time to a fraction at one temperature (storage, anneal)
-	cool       cooling paths: fraction, critical cooling rate, onset, quench factor
-	evolve     particles in size classes along a thermal schedule: ageing, crystallizers
-	fit        fit Arrhenius, interfacial-energy, Avrami or induction-time models to measurements
+	cool       cooling paths: fraction, critical rate, onset, quench factor
+	evolve     particles in size classes over a schedule: ageing, crystallizers
+	fit        fit Arrhenius, interface, Avrami or induction-time models to data
 	materials  list the shipped material cards, or show one
 	report     a Markdown memo for a material and a question
 
-Run "undercool COMMAND --help" for the flags of a command, with an example.
+Run "undercool COMMAND --help" for the flags of a command, with an example,
+and "undercool --version" for the version and commit of this build.
 
 A material comes from --material NAME (a shipped card) or --material
 FILE.toml (your own card); any single value can be overridden with a flag

@@ -184,7 +184,7 @@ type evolveFlags struct {
 	bins     *countFlag
 	plot     *plotFlag
 	dist     *plotFlag
-	format   *choiceFlag
+	format   *formatFlag
 }
 
 func setupEvolve(fs *pflag.FlagSet, e *env) func([]string) error {
@@ -201,7 +201,7 @@ func setupEvolve(fs *pflag.FlagSet, e *env) func([]string) error {
 	ef.plot = addPlot(fs, "draw the number density, mean size, volume fraction and supersaturation against log time")
 	ef.dist = &plotFlag{}
 	fs.Var(ef.dist, "dist-plot", "draw the final size distribution as a histogram in log size to FILE.svg or FILE.png (written whole or not at all)")
-	ef.format = addFormat(fs)
+	ef.format = addFormat(fs, e)
 	return func(args []string) error {
 		if err := noArgs("evolve", args); err != nil {
 			return err
@@ -292,7 +292,7 @@ func evolveError(err error) error {
 // written only when everything is ready, and the answer printed last.
 func (ef *evolveFlags) write(e *env, a *answer.Evolve, name string) error {
 	var out strings.Builder
-	if err := render(&out, ef.format.value, a); err != nil {
+	if err := render(&out, ef.format, a); err != nil {
 		return err
 	}
 	type file struct {

@@ -36,7 +36,7 @@ type fitFlags struct {
 	plot    *plotFlag
 	mf      *materialFlags
 	volume  *quantityFlag
-	format  *choiceFlag
+	format  *formatFlag
 }
 
 func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
@@ -47,7 +47,8 @@ func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
 	f.plot = addPlot(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot)")
 	f.mf = addMaterialFlags(fs)
 	f.volume = addVolume(fs, "", "fit induction: the volume of each sample, for the prefactor A from A·V, m3, L, mL, uL or mm3 (> 0)")
-	f.format = addFormat(fs)
+	f.format = addFormat(fs, e)
+	setGroup(fs, groupOutput, "card-out", "kind")
 	return func(args []string) error {
 		if len(args) == 0 {
 			return usagef("fit: give the kind of fit (%s) and a data file", strings.Join(fitKinds, ", "))
@@ -109,16 +110,24 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 		if f.mf.given() == "" {
 			return nil, nil, usagef("fit interface: give the material with --material NAME|FILE.toml (and flags); every value but gamma is taken from it")
 		}
-		c, md, err := f.mf.model()
+		c, err := f.mf.card()
 		if err != nil {
 			return nil, nil, err
-		}
-		if !md.HasRate() {
-			return nil, nil, usagef("fit interface: the material has no rate; give a mobility law (--mobility with its values) or --prefactor fixed with --j0")
 		}
 		data, err := read(answer.InterfaceColumns())
 		if err != nil {
 			return nil, nil, err
+		}
+		// gamma is what the fit finds: without one, start from the classical plot.
+		if err := answer.StartGamma(c, data); err != nil {
+			return nil, nil, usage(err)
+		}
+		md, err := c.Model()
+		if err != nil {
+			return nil, nil, usage(err)
+		}
+		if !md.HasRate() {
+			return nil, nil, usagef("fit interface: the material has no rate; give a mobility law (--mobility with its values) or --prefactor fixed with --j0")
 		}
 		a, err := answer.Interface(c, md, data, flagNames)
 		if err != nil {
@@ -161,6 +170,9 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 // its note) and renders the fit. The card is made before any file is
 // written, so a card that cannot be made leaves no plot behind.
 func (f *fitFlags) finish(e *env, a answer.Answer, card carded) error {
+	if err := f.format.check(a); err != nil { // before any file is written
+		return err
+	}
 	var notes []string
 	var c *presets.Card
 	var header []string
@@ -182,7 +194,7 @@ func (f *fitFlags) finish(e *env, a answer.Answer, card carded) error {
 		}
 		notes = append(notes, "card written: "+f.cardOut.text)
 	}
-	return render(e.stdout, f.format.value, annotated{a, notes})
+	return render(e.stdout, f.format, annotated{a, notes})
 }
 
 // writeCard stages a card in path, after checking that it reads back as

@@ -44,7 +44,6 @@ func dataAndLine(p *plot.Plot, pts, line plotter.XYs, dataName, lineName string)
 	p.Add(plotter.NewGrid(), l, s)
 	p.Legend.Add(dataName, s)
 	p.Legend.Add(lineName, l)
-	placeLegend(p, pts)
 	return nil
 }
 

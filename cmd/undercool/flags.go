@@ -74,50 +74,76 @@ func addVolume(fs *pflag.FlagSet, what, help string) *quantityFlag {
 	return addQuantity(fs, "volume", units.Volume, what, help)
 }
 
-// coldBare is the temperature below which a bare number (kelvin) is more
-// likely meant in degrees Celsius, and earns a note on stderr.
-const coldBare = 150.0 // K
+// isBare reports whether a quantity is written as a number without a unit.
+func isBare(s string) bool {
+	s = strings.TrimSpace(s)
+	return s != "" && strings.IndexFunc(s, func(r rune) bool { return !strings.ContainsRune("0123456789.+-eE", r) }) < 0
+}
 
-// parseTemp reads one temperature above absolute zero. A bare number is
-// kelvin; one that looks like Celsius gets a note.
-func parseTemp(e *env, name, s string) (float64, error) {
+// parseTemp reads one temperature above absolute zero, and whether it was
+// written bare (kelvin).
+func parseTemp(s string) (float64, bool, error) {
 	t, err := units.Parse(s, units.Temperature)
 	if err != nil {
-		return 0, &valueError{err}
+		return 0, false, &valueError{err}
 	}
 	s = strings.TrimSpace(s)
-	bare := s != "" && strings.IndexFunc(s, func(r rune) bool { return !strings.ContainsRune("0123456789.+-eE", r) }) < 0
+	bare := isBare(s)
 	if !(t > 0) {
 		if bare {
-			return 0, bad("%q is at or below absolute zero (a bare number is kelvin; write %sC for Celsius)", s, s)
+			return 0, false, bad("%q is at or below absolute zero (a bare number is kelvin; write %sC for Celsius)", s, s)
 		}
-		return 0, bad("%q is at or below absolute zero", s)
+		return 0, false, bad("%q is at or below absolute zero", s)
 	}
-	if bare && t < coldBare {
-		e.note("--%s %s is read as %g K (a bare number is kelvin); write %sC for Celsius", name, s, t, s)
+	return t, bare, nil
+}
+
+// bareTemps is a flag that read temperatures written without a unit
+// (kelvin): run notes each such flag once, "read as 650 K (376.85 °C)".
+type bareTemps interface{ bareKelvin() []float64 }
+
+// maxBareListed is how many bare temperatures of one flag its note names.
+const maxBareListed = 3
+
+// bareNote is the note on a flag's bare temperatures: how each was read,
+// and how to write it in Celsius.
+func bareNote(name string, temps []float64) string {
+	var read []string
+	for i, t := range temps {
+		if i == maxBareListed {
+			read = append(read, "…")
+			break
+		}
+		read = append(read, fmt.Sprintf("%s K (%.2f °C)", strconv.FormatFloat(t, 'f', -1, 64), units.Celsius(t)))
 	}
-	return t, nil
+	return fmt.Sprintf("--%s: read as %s; write %sC for Celsius", name, strings.Join(read, ", "), strconv.FormatFloat(temps[0], 'f', -1, 64))
 }
 
 // tempFlag is one temperature.
 type tempFlag struct {
 	given
-	e    *env
-	name string
+	bare []float64
 	x    float64 // K
 }
 
 func (f *tempFlag) Set(s string) error {
-	t, err := parseTemp(f.e, f.name, s)
+	t, bare, err := parseTemp(s)
 	if err != nil {
 		return err
 	}
-	f.x, f.given = t, given{true, s}
+	f.x, f.given, f.bare = t, given{true, s}, nil
+	if bare {
+		f.bare = []float64{t}
+	}
 	return nil
 }
 
-func addTemp(fs *pflag.FlagSet, e *env, name, help string) *tempFlag {
-	f := &tempFlag{e: e, name: name}
+func (f *tempFlag) bareKelvin() []float64 { return f.bare }
+
+// addTemp declares a flag of one temperature. (A bare temperature's note
+// is made by run, for every flag alike, so e is not needed.)
+func addTemp(fs *pflag.FlagSet, _ *env, name, help string) *tempFlag {
+	f := &tempFlag{}
 	fs.Var(f, name, help)
 	return f
 }
@@ -128,44 +154,56 @@ const maxRows = 100000
 // tempsFlag is --temps, a list of temperatures.
 type tempsFlag struct {
 	given
-	e *env
-	T []float64
+	bare []float64
+	T    []float64
 }
 
 func (f *tempsFlag) Set(s string) error {
-	f.T = nil
+	f.T, f.bare = nil, nil
 	for _, p := range strings.Split(s, ",") {
-		t, err := parseTemp(f.e, "temps", p)
+		t, bare, err := parseTemp(p)
 		if err != nil {
 			return err
 		}
 		f.T = append(f.T, t)
+		if bare {
+			f.bare = append(f.bare, t)
+		}
 	}
 	f.given = given{true, s}
 	return nil
 }
 
+func (f *tempsFlag) bareKelvin() []float64 { return f.bare }
+
 // rangeFlag is --range FROM:TO[:STEP]; without a step, points rows.
 type rangeFlag struct {
 	given
-	e      *env
+	bare   []float64
 	points int
 	T      []float64
 }
+
+func (f *rangeFlag) bareKelvin() []float64 { return f.bare }
 
 func (f *rangeFlag) Set(s string) error {
 	parts := strings.Split(s, ":")
 	if len(parts) < 2 || len(parts) > 3 {
 		return bad("%q is not FROM:TO:STEP or FROM:TO", s)
 	}
-	from, err := parseTemp(f.e, "range", parts[0])
-	if err != nil {
-		return err
+	f.bare = nil
+	var ends [2]float64
+	for i := range ends {
+		t, bare, err := parseTemp(parts[i])
+		if err != nil {
+			return err
+		}
+		ends[i] = t
+		if bare {
+			f.bare = append(f.bare, t)
+		}
 	}
-	to, err := parseTemp(f.e, "range", parts[1])
-	if err != nil {
-		return err
-	}
+	from, to := ends[0], ends[1]
 	f.given = given{true, s}
 	switch {
 	case from == to:
@@ -204,8 +242,8 @@ type tempFlags struct {
 	span  *rangeFlag
 }
 
-func addTempFlags(fs *pflag.FlagSet, e *env, points int) *tempFlags {
-	tf := &tempFlags{&tempsFlag{e: e}, &rangeFlag{e: e, points: points}}
+func addTempFlags(fs *pflag.FlagSet, _ *env, points int) *tempFlags {
+	tf := &tempFlags{&tempsFlag{}, &rangeFlag{points: points}}
 	fs.Var(tf.temps, "temps", "comma-separated temperatures, each K, C or F (bare = K), e.g. 1100K,800C")
 	fs.Var(tf.span, "range", "temperatures FROM:TO:STEP (or FROM:TO for the default number of rows), e.g. 1000:600:10 or 900C:500C:25C")
 	return tf
@@ -224,9 +262,17 @@ func (tf *tempFlags) list(md *kinetics.Model) ([]float64, error) {
 		return tf.temps.T, nil
 	case tf.span.set:
 		return tf.span.T, nil
+	case !md.HasTe():
+		return nil, noTe("--temps", "no default temperatures: give them with --temps or --range")
 	}
 	lo, hi := answer.DefaultSpan(md)
 	return answer.Spread(hi, lo, tf.span.points), nil
+}
+
+// noTe is the error of a command that needs the saturation temperature a
+// fixed supersaturation was given without.
+func noTe(where, what string) error {
+	return usagef("%s: a fixed supersaturation without a saturation temperature has %s (or give --sat-temp)", where, what)
 }
 
 // defaultFraction is the usual detectability limit of a crystal fraction in
@@ -248,8 +294,11 @@ func (f *fractionFlag) Set(s string) error {
 	var out []float64
 	for _, p := range parts {
 		p = strings.TrimSpace(p)
-		x, err := strconv.ParseFloat(p, 64)
-		if err != nil || !(x > 0 && x < 1) {
+		x, err := units.Parse(p, units.Fraction) // 0.01 or 1%
+		switch {
+		case err != nil:
+			return bad("%q is not a number strictly between 0 and 1 (or a percentage, e.g. 1%%)", p)
+		case !(x > 0 && x < 1):
 			return bad("%q is not a number strictly between 0 and 1", p)
 		}
 		out = append(out, x)
@@ -340,9 +389,42 @@ func addChoice(fs *pflag.FlagSet, name, def string, choices []string, help strin
 	return f
 }
 
-// addFormat declares --format, shared by every command with a result.
-func addFormat(fs *pflag.FlagSet) *choiceFlag {
-	return addChoice(fs, "format", "table", formats, "output format: table, csv, json or markdown")
+// formatFlag is --format, with --columns: how a result is drawn, and on
+// whose screen.
+type formatFlag struct {
+	*choiceFlag
+	columns *columnsFlag
+	e       *env
+}
+
+// columnsFlag is --columns KEY,KEY...: the columns of a table to show, by
+// their JSON keys, in this order.
+type columnsFlag struct {
+	given
+	keys []string
+}
+
+func (f *columnsFlag) Set(s string) error {
+	f.keys = nil
+	for _, k := range strings.Split(s, ",") {
+		if k = strings.TrimSpace(k); k == "" {
+			return bad("%q: give column keys separated by commas, e.g. temperature_k,log10_rate_per_m3_s", s)
+		}
+		if contains(f.keys, k) {
+			return bad("%s is given twice", k)
+		}
+		f.keys = append(f.keys, k)
+	}
+	f.given = given{true, s}
+	return nil
+}
+
+// addFormat declares --format and --columns, shared by every command with a result.
+func addFormat(fs *pflag.FlagSet, e *env) *formatFlag {
+	f := &formatFlag{addChoice(fs, "format", "table", formats, "output format: table, csv, json or markdown"), &columnsFlag{}, e}
+	fs.Var(f.columns, "columns", "the columns of the table to show, in order, by their JSON keys (as --format csv heads them), e.g. temperature_k,log10_rate_per_m3_s; default: those that fit the screen ($COLUMNS, else the terminal, else 100 characters)")
+	setGroup(fs, groupOutput, "format", "columns")
+	return f
 }
 
 // Formats are the accepted values of --format.
@@ -432,6 +514,7 @@ func addSpreadFlags(fs *pflag.FlagSet) *spreadFlags {
 	fs.Var(sf.samples, "samples", fmt.Sprintf("Monte Carlo samples for the uncertainty bands, 1 to %d", maxSamples))
 	fs.Var(sf.seed, "seed", "seed of the random draws, 0 to 2^64-1; the same seed gives the same bands on any number of cores")
 	fs.BoolVar(&sf.none, "no-spread", false, "ignore the [spread] table of the material card")
+	setGroup(fs, groupUncertainty, "spread", "samples", "seed", "no-spread")
 	return sf
 }
 
@@ -485,8 +568,11 @@ func (sf *spreadFlags) sampling(e *env, c *presets.Card) (*answer.Sampling, erro
 // a temperature (bare: K).
 type ccurveFlag struct {
 	given
-	c *kinetics.EvanchoStaley
+	bare []float64 // k4, when bare
+	c    *kinetics.EvanchoStaley
 }
+
+func (f *ccurveFlag) bareKelvin() []float64 { return f.bare }
 
 // ccurveNames are the constants of --c-curve, in order.
 var ccurveNames = []string{"k1", "k2", "k3", "k4", "k5"}
@@ -494,9 +580,11 @@ var ccurveNames = []string{"k1", "k2", "k3", "k4", "k5"}
 func (f *ccurveFlag) Set(s string) error {
 	const form = "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol"
 	vals := map[string]float64{}
+	bareK4 := false
 	for _, part := range strings.Split(s, ",") {
 		key, text, ok := strings.Cut(strings.TrimSpace(part), "=")
 		key, text = strings.ToLower(strings.TrimSpace(key)), strings.TrimSpace(text)
+		bareK4 = bareK4 || key == "k4" && isBare(text)
 		if !ok || key == "" {
 			return bad("%q is not NAME=VALUE (write %s)", strings.TrimSpace(part), form)
 		}
@@ -521,7 +609,10 @@ func (f *ccurveFlag) Set(s string) error {
 	if err := c.Check(); err != nil {
 		return &valueError{err}
 	}
-	f.c, f.given = &c, given{true, s}
+	f.c, f.given, f.bare = &c, given{true, s}, nil
+	if bareK4 {
+		f.bare = []float64{c.K4}
+	}
 	return nil
 }
 
@@ -579,6 +670,7 @@ func (f *plotFlag) register(name string, fl *files) error {
 func addPlot(fs *pflag.FlagSet, what string) *plotFlag {
 	f := &plotFlag{}
 	fs.Var(f, "plot", what+" to FILE.svg or FILE.png (written whole or not at all)")
+	setGroup(fs, groupOutput, "plot")
 	return f
 }
 

@@ -41,8 +41,8 @@ var fuzzFiles = []string{
 	"$REPO/testdata/fit/diffusion.csv",
 	"$REPO/testdata/fit/nucleation-rates.csv",
 	"$REPO/testdata/fit/crystallized-fraction.csv",
-	"$REPO/testdata/solution/velsorin-induction.csv",
-	"$REPO/testdata/solution/velsorin-solubility.csv",
+	"$REPO/testdata/solution/demo-solute-a-induction.csv",
+	"$REPO/testdata/solution/demo-solute-a-solubility.csv",
 	"$REPO/testdata/curves/demo-quench.csv",
 	"$REPO/testdata/curves/demo-plate-quench.csv",
 }
@@ -72,7 +72,7 @@ func fuzzFlagNames(name string) []string {
 }
 
 func fuzzMaterials() []string {
-	return append(append([]string{""}, presets.Names()...), "$REPO/testdata/solution/velsorin.toml")
+	return append(append([]string{""}, presets.Names()...), "$REPO/testdata/solution/demo-solute-a.toml")
 }
 
 // fuzzInput is one fuzz input: indexes into the lists above and up to four
@@ -119,7 +119,7 @@ func indexOf(list []string, s string) int {
 // fuzzSeeds: one per command and the special values.
 func fuzzSeeds() []fuzzInput {
 	curve := "time_s,temperature_c\n0,900\n1,700\n2,500\n3,300\n"
-	velsorin := "$REPO/testdata/solution/velsorin.toml"
+	soluteA := "$REPO/testdata/solution/demo-solute-a.toml"
 	rates := "temperature_k,rate_per_m3_s\n860,6.293e+14\n900,3.6e12\n950,1.659e+03\n"
 	return []fuzzInput{
 		seed("rate", "demo-alloy", 0, 0, "", "range=1100:700:50"),
@@ -128,7 +128,7 @@ func fuzzSeeds() []fuzzInput {
 		seed("rate", "", 0, 2, "", "te=1000", "dh=10kJ/mol", "vm=7cm3/mol", "gamma=0.1J/m2"),
 		seed("rate", "vit1", 0, 3, "", "gamma=1e-300J/m2", "temps=700"),
 		seed("rate", "ice", 0, 2, "", "theta=1e-300", "sites=1e300"),
-		seed("rate", velsorin, 0, 2, "", "supersaturation=1e300"),
+		seed("rate", soluteA, 0, 2, "", "supersaturation=1e300"),
 		seed("rate", "paracetamol-acetone-water", 0, 0, "", "conc=0"),
 		seed("rate", "demo-alloy", 0, 2, "", "spread=gamma=2%", "samples=20"),
 		seed("rate", "demo-alloy", 0, 0, "", "range=1000:999:1e-9"),
@@ -141,7 +141,7 @@ func fuzzSeeds() []fuzzInput {
 		seed("hold", "demo-alloy", 0, 0, "", "at=800K"),
 		seed("hold", "demo-alloy", 0, 2, "", "at=1e-300", "fraction=0.999999999999"),
 		seed("hold", "ice", 0, 1, "", "at=230", "volume=1e-300m3"),
-		seed("hold", velsorin, 0, 2, "", "at=20C", "volume=100mL"),
+		seed("hold", soluteA, 0, 2, "", "at=20C", "volume=100mL"),
 		seed("hold", "", 0, 2, "", "at=450K", "te=1300K", "dh=55kJ/mol", "vm=1e300m3/mol"),
 		seed("cool", "demo-alloy", 0, 0, "", "critical=true"),
 		seed("cool", "vit1", 0, 2, "", "rate=1,10,100K/s"),
@@ -158,7 +158,7 @@ func fuzzSeeds() []fuzzInput {
 		seed("fit", "demo-alloy", 1, 2, rates, "gamma=1e300J/m2"),
 		seed("fit", "", 17, 1, ""), // avrami crystallized-fraction.csv
 		seed("fit", "", 2, 2, "time_s,fraction\n1,1e-300\n2,0.5\n3,0.999999999999\n"),
-		seed("fit", velsorin, 23, 2, "", "volume=100mL"), // induction velsorin-induction.csv
+		seed("fit", soluteA, 23, 2, "", "volume=100mL"), // induction demo-solute-a-induction.csv
 		seed("fit", "", 3, 2, "temperature_c,supersaturation,induction_time_s\n15,1e300,1\n20,1.0000000001,1e300\n"),
 		seed("fit", "", 0, 0, "temperature_k,diffusivity_m2_per_s\n1e-300,1e-300\n1e300,1e300\n"),
 		seed("fit", "", 0, 2, "temperature_k,diffusivity_m2_per_s,weight\n900,1e-12,0\n1000,1e-11,1e300\n", "weights=true"),

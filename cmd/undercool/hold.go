@@ -20,7 +20,7 @@ func setupHold(fs *pflag.FlagSet, e *env) func([]string) error {
 	at := addTemp(fs, e, "at", "hold temperature, K, C or F (bare = K), above absolute zero; required")
 	jf := addJMAKFlags(fs, false)
 	volume := addVolume(fs, "", "vessel volume for the induction time 1/(J V) and the polynuclear time to --fraction, m3, L, mL, uL, mm3 or um3 (> 0); with it hold reports both and which dominates")
-	ff := addFormat(fs)
+	ff := addFormat(fs, e)
 	sf := addSpreadFlags(fs)
 	return func(args []string) error {
 		if err := start("hold", args, sf); err != nil {
@@ -71,6 +71,6 @@ func setupHold(fs *pflag.FlagSet, e *env) func([]string) error {
 				return err
 			}
 		}
-		return render(e.stdout, ff.value, a)
+		return render(e.stdout, ff, a)
 	}
 }

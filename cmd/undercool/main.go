@@ -132,6 +132,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	}
 	name := args[0]
 	switch name {
+	case "--version", "version":
+		fmt.Fprintln(stdout, buildVersion())
+		return 0
 	case "-h", "--help", "help":
 		if len(args) > 1 && commands[args[1]] != nil {
 			// "undercool help rate" is "undercool rate --help".
@@ -155,13 +158,19 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		var v *valueError
 		switch {
 		case errors.Is(err, pflag.ErrHelp):
-			fmt.Fprintf(stdout, "%s\n\n%s\n\nFlags:\n%s\nExample:\n  %s\n", cmd.usage, cmd.summary, fs.FlagUsages(), cmd.example)
+			printHelp(stdout, name, cmd, fs, args[1:])
 			return 0
 		case errors.As(err, &bad) && errors.As(err, &v):
 			return fail(fmt.Sprintf("--%s: %v", bad.GetFlag().Name, v), 2)
 		}
 		return fail(fmt.Sprintf("%s: %v (see undercool %s --help)", name, err, name), 2)
 	}
+	// Every temperature written without a unit is kelvin: say how it was read.
+	fs.Visit(func(f *pflag.Flag) {
+		if b, ok := f.Value.(bareTemps); ok && len(b.bareKelvin()) > 0 {
+			e.note("%s", bareNote(f.Name, b.bareKelvin()))
+		}
+	})
 	// Every file the flags name is checked before any work; the files are
 	// written only once the command has succeeded, and its output printed
 	// only once they are.

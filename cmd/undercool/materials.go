@@ -17,7 +17,7 @@ func init() {
 }
 
 func setupMaterials(fs *pflag.FlagSet, e *env) func([]string) error {
-	ff := addFormat(fs)
+	ff := addFormat(fs, e)
 	return func(args []string) error {
 		switch len(args) {
 		case 0:
@@ -25,13 +25,13 @@ func setupMaterials(fs *pflag.FlagSet, e *env) func([]string) error {
 			if err != nil {
 				return err
 			}
-			return render(e.stdout, ff.value, a)
+			return render(e.stdout, ff, a)
 		case 1:
 			c, err := presets.Open(args[0])
 			if err != nil {
 				return usagef("materials: %v", err)
 			}
-			return render(e.stdout, ff.value, answer.Show(c))
+			return render(e.stdout, ff, answer.Show(c))
 		}
 		return usagef("materials: give at most one material, got %d", len(args))
 	}

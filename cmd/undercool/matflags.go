@@ -7,6 +7,7 @@ import (
 
 	"undercool/kinetics"
 	"undercool/presets"
+	"undercool/presets/units"
 )
 
 // materialFlags choose a material and override its values: --material,
@@ -34,6 +35,15 @@ func (f *valueFlag) Set(s string) error {
 	}
 	v.Source = "command line"
 	f.v, f.given = v, given{true, s}
+	return nil
+}
+
+// bareKelvin is the value of a temperature (te, tg, sat_temp, vft_t0)
+// written without a unit.
+func (f *valueFlag) bareKelvin() []float64 {
+	if f.set && f.v.Kind.Name == units.Temperature.Name && isBare(f.text) {
+		return []float64{f.v.SI}
+	}
 	return nil
 }
 
@@ -68,6 +78,8 @@ func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 	mf.mobility = addChoice(fs, "mobility", "", presets.MobilityChoices, "mobility law: "+strings.Join(presets.MobilityChoices, ", ")+" (stokes-einstein and diffusivity: a solute in a solvent)")
 	mf.prefactor = addChoice(fs, "prefactor", "", presets.PrefactorChoices, "rate prefactor: "+strings.Join(presets.PrefactorChoices, ", ")+" (attachment: the default; diffusion: solutions)")
 	mf.solubility = addText(fs, "solubility", "solubility table FILE.csv (temperature_UNIT, solubility_UNIT) for driving solution, with --conc or --sat-temp")
+	setGroup(fs, groupMaterial, "material", "driving", "mobility", "prefactor")
+	setGroup(fs, groupSolution, "solubility")
 	for _, p := range presets.Params {
 		f := &valueFlag{p: p}
 		help := p.About
@@ -75,6 +87,7 @@ func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 			help += " (" + u + ")"
 		}
 		fs.Var(f, p.Flag(), help)
+		setGroup(fs, paramGroup(p), p.Flag())
 		mf.values = append(mf.values, f)
 	}
 	return mf

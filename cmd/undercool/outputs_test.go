@@ -47,7 +47,7 @@ var outputCases = []struct {
 	// The critical rate, and the q^-4 law end to end: at the critical rate the
 	// CCT row shows exactly the target fraction; at 10 times it the extended
 	// volume is 1e-4 of -ln(1 - 1e-6) = 1.0000005e-6.
-	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.077e\+04 K/s`}, {"stdout", false, `^20768\.8[0-9]*,1e-06,`}, {"stdout", false, `^207688\.[0-9]*,1\.000000[0-9]*e-10,`}}},
+	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.08e\+04 K/s`}, {"stdout", false, `^20768\.8[0-9]*,1e-06,`}, {"stdout", false, `^207688\.[0-9]*,1\.000000[0-9]*e-10,`}}},
 
 	// Never nucleates in a tiny volume at a huge rate: the onset is null.
 	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--rate", "1e12K/s", "--volume", "1um3", "--format", "json"}, []check{{"stdout", false, `"onset_temperature_k": null`}, {"stdout", false, `"onset_undercooling_k": null`}, {"stdout", false, `"fraction_reached": null`}}},
@@ -152,14 +152,14 @@ var outputCases = []struct {
 	// number of nuclei in the vessel, V·∫J dt, reaches 1; kinetics checks it
 	// against an independent integral. Here: the widths for a list of rates
 	// widen with the rate, and the JSON keys.
-	{"solution_cool", []string{"cool", "--material", "$WORK/velsorin.toml", "--rate", "0.1,0.5,2,10K/min", "--volume", "100mL"}, []check{{"stdout", false, `^undercool cool: metastable zone width of a cooled solution`}, {"stdout", false, `^path: linear cooling from the saturation temperature 313\.15 K \(40\.00 °C\) to 250\.52 K \(default 0\.8 T_sat`}, {"stdout", false, `^│ +0\.1 │ +0\.001667 │ +294\.45 │ +21\.30 │ +18\.702 │`}, {"stdout", false, `^│ +0\.5 │ +0\.008333 │ +291\.24 │ +18\.09 │ +21\.913 │`}, {"stdout", false, `^│ +2 │ +0\.03333 │ +287\.05 │ +13\.90 │ +26\.096 │`}, {"stdout", false, `^│ +10 │ +0\.1667 │ +278\.81 │ +5\.66 │ +34\.342 │`}, {"stdout", false, `apparent order m of Nyvlt`}, {"stdout", false, `flag small_nucleus`}, {"stdout", true, `NaN|Inf`}}},
-	{"solution_cool", []string{"cool", "--material", "$WORK/velsorin.toml", "--rate", "0.5K/min", "--volume", "100mL", "--format", "json"}, []check{{"stdout", false, `"onset_temperature_k": 291\.237`}, {"stdout", false, `"onset_undercooling_k": 21\.912`}, {"stdout", false, `"supersaturation_at_onset": 2\.24`}, {"stdout", true, `NaN|Inf`}}},
+	{"solution_cool", []string{"cool", "--material", "$WORK/demo-solute-a.toml", "--rate", "0.1,0.5,2,10K/min", "--volume", "100mL"}, []check{{"stdout", false, `^undercool cool: metastable zone width of a cooled solution`}, {"stdout", false, `^path: linear cooling from the saturation temperature 313\.15 K \(40\.00 °C\) to 250\.52 K \(default 0\.8 T_sat`}, {"stdout", false, `^│ +0\.1 │ +0\.001667 │ +294\.45 │ +21\.30 │ +18\.702 │`}, {"stdout", false, `^│ +0\.5 │ +0\.008333 │ +291\.24 │ +18\.09 │ +21\.913 │`}, {"stdout", false, `^│ +2 │ +0\.03333 │ +287\.05 │ +13\.90 │ +26\.096 │`}, {"stdout", false, `^│ +10 │ +0\.1667 │ +278\.81 │ +5\.66 │ +34\.342 │`}, {"stdout", false, `apparent order m of Nyvlt`}, {"stdout", false, `flag small_nucleus`}, {"stdout", true, `NaN|Inf`}}},
+	{"solution_cool", []string{"cool", "--material", "$WORK/demo-solute-a.toml", "--rate", "0.5K/min", "--volume", "100mL", "--format", "json"}, []check{{"stdout", false, `"onset_temperature_k": 291\.237`}, {"stdout", false, `"onset_undercooling_k": 21\.912`}, {"stdout", false, `"supersaturation_at_onset": 2\.24`}, {"stdout", true, `NaN|Inf`}}},
 
 	// A solubility table: the path starts where the table reaches conc.
-	{"solution_cool", []string{"cool", "--material", "$WORK/velsorin.toml", "--rate", "0.5K/min", "--volume", "100mL", "--solubility", "$WORK/sol.csv", "--conc", "22g/kg"}, []check{{"stdout", false, `path: linear cooling from the saturation temperature 303\.15 K \(30\.00 °C\) to 283\.15 K \(the coldest row of the solubility table\)`}}},
+	{"solution_cool", []string{"cool", "--material", "$WORK/demo-solute-a.toml", "--rate", "0.5K/min", "--volume", "100mL", "--solubility", "$WORK/sol.csv", "--conc", "22g/kg"}, []check{{"stdout", false, `path: linear cooling from the saturation temperature 303\.15 K \(30\.00 °C\) to 283\.15 K \(the coldest row of the solubility table\)`}}},
 
 	// Too fast for the path: no onset, said, exit 0.
-	{"solution_cool", []string{"cool", "--material", "$WORK/velsorin.toml", "--rate", "1000K/s", "--volume", "1uL", "--end", "39C"}, []check{{"stdout", false, `fewer than one nucleus is expected by 312\.15 K \(10\^-.* expected\): no onset on this path`}}},
+	{"solution_cool", []string{"cool", "--material", "$WORK/demo-solute-a.toml", "--rate", "1000K/s", "--volume", "1uL", "--end", "39C"}, []check{{"stdout", false, `fewer than one nucleus is expected by 312\.15 K \(10\^-.* expected\): no onset on this path`}}},
 
 	// fit induction: gamma and the apparent prefactor A from induction times.
 	// Round trip on data made by the model itself for an invented solute
@@ -180,15 +180,15 @@ var outputCases = []struct {
 	// A = 1e3 m⁻³ s⁻¹, u = 1e-8 m/s, X = 1e-6:
 	// ΔG*/kT = 4.28803, log10 J = 1.13773, n* = 12.373,
 	// t_mono = 728.23 s in 100 mL and 72823 s in 1 mL, t_poly = 16239 s.
-	{"solution_hold", []string{"hold", "--material", "$WORK/velsorin.toml", "--at", "25C", "--supersaturation", "2", "--volume", "100mL"}, []check{{"stdout", false, `^undercool hold: induction time of a held volume`}, {"stdout", false, `^solution: fixed supersaturation S = 2 \(ln S = 0\.6931\)`}, {"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 298\.15 K \(25\.00 °C\): 12\.1 min \(728\.2 s\)$`}, {"stdout", false, `^polynuclear time to X = 1e-06 \(many nuclei growing, JMAK\): 4\.51 h \(1\.624e\+04 s\)$`}, {"stdout", false, `^dominates: polynuclear`}, {"stdout", false, `^critical nucleus: radius 0\.838 nm, 12\.37 molecules, barrier 1\.765e-20 J \(4\.288 kT\)$`}, {"stdout", false, `^nucleation rate: log10 J = 1\.138 `}, {"stdout", false, `flag low_barrier`}, {"stdout", true, `NaN|Inf`}}},
+	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "25C", "--supersaturation", "2", "--volume", "100mL"}, []check{{"stdout", false, `^undercool hold: induction time of a held volume`}, {"stdout", false, `^solution: fixed supersaturation S = 2 \(ln S = 0\.6931\)`}, {"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 298\.15 K \(25\.00 °C\): 12\.1 min \(728\.2 s\)$`}, {"stdout", false, `^polynuclear time to X = 1e-06 \(many nuclei growing, JMAK\): 4\.51 h \(1\.624e\+04 s\)$`}, {"stdout", false, `^dominates: polynuclear`}, {"stdout", false, `^critical nucleus: radius 0\.838 nm, 12\.37 molecules, barrier 1\.765e-20 J \(4\.288 kT\)$`}, {"stdout", false, `^nucleation rate: log10 J = 1\.138 `}, {"stdout", false, `flag low_barrier`}, {"stdout", true, `NaN|Inf`}}},
 
 	// A small vessel: the wait for the first nucleus dominates.
-	{"solution_hold", []string{"hold", "--material", "$WORK/velsorin.toml", "--at", "25C", "--supersaturation", "2", "--volume", "1mL", "--format", "json"}, []check{{"stdout", false, `"induction_time_s": 72822\.8`}, {"stdout", false, `"polynuclear_time_s": 16239\.0`}, {"stdout", false, `"dominant": "mononuclear"`}, {"stdout", false, `"supersaturation": 2,`}, {"stdout", false, `"volume_m3": 0\.000001,`}, {"stdout", true, `NaN|Inf`}}},
+	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "25C", "--supersaturation", "2", "--volume", "1mL", "--format", "json"}, []check{{"stdout", false, `"induction_time_s": 72822\.8`}, {"stdout", false, `"polynuclear_time_s": 16239\.0`}, {"stdout", false, `"dominant": "mononuclear"`}, {"stdout", false, `"supersaturation": 2,`}, {"stdout", false, `"volume_m3": 0\.000001,`}, {"stdout", true, `NaN|Inf`}}},
 
 	// Cooled from saturation (van 't Hoff): S = 1 at and above 40 C is no
 	// driving force: never, exit 0.
-	{"solution_hold", []string{"hold", "--material", "$WORK/velsorin.toml", "--at", "45C", "--volume", "100mL"}, []check{{"stdout", false, `induction time at 318\.15 K \(45\.00 °C\): never: S = 0\.8.* <= 1: the solution is not supersaturated`}}},
-	{"solution_hold", []string{"hold", "--material", "$WORK/velsorin.toml", "--at", "40C", "--volume", "100mL", "--format", "json"}, []check{{"stdout", false, `"induction_time_s": null`}, {"stdout", false, `"never": true`}, {"stdout", true, `NaN|Inf`}}},
+	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "45C", "--volume", "100mL"}, []check{{"stdout", false, `induction time at 318\.15 K \(45\.00 °C\): never: S = 0\.8.* <= 1: the solution is not supersaturated`}}},
+	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "40C", "--volume", "100mL", "--format", "json"}, []check{{"stdout", false, `"induction_time_s": null`}, {"stdout", false, `"never": true`}, {"stdout", true, `NaN|Inf`}}},
 
 	// Without a growth rate the polynuclear time is not known; say so.
 	{"solution_hold", []string{"hold", "--driving", "solution", "--supersaturation", "2", "--sat-temp", "40C", "--molar-mass", "168g/mol", "--density", "1.4g/cm3", "--gamma", "6mJ/m2", "--prefactor", "fixed", "--j0", "1e3", "--at", "25C", "--volume", "100mL"}, []check{{"stdout", false, `not known \(no growth rate: give --growth-rate`}, {"stdout", false, `^dominates: not known without a growth rate`}}},
@@ -225,7 +225,7 @@ var outputCases = []struct {
 	{"spread_cool", []string{"cool", "--material", "demo-alloy", "--rate", "1,100K/s", "--spread", "gamma=2%", "--samples", "100", "--format", "json"}, []check{{"stdout", false, `"fraction_at_1_k_per_s": \{`}, {"stdout", false, `"fraction_at_100_k_per_s": \{`}}},
 
 	// Uncertainty bands on the rate table of the invented demo card.
-	{"spread_rate", []string{"rate", "--material", "demo-alloy", "--temps", "1000,900", "--spread", "gamma=2%", "--spread", "q=3kJ/mol", "--spread", "d0=x2", "--samples", "500"}, []check{{"stdout", false, `^uncertainty \(500 samples, seed 1\): P5 / P50 / P95$`}, {"stdout", false, `P5 log10 J`}, {"stdout", false, `P95 log10 J`}, {"stdout", false, `^sensitivity: change of each result`}, {"stdout", false, `log10 J at 1000\.00 K .* gamma > d0 > q`}, {"stdout", false, `gamma 2% \(normal, σ = 0\.0028 J/m2; command line\)`}, {"stdout", false, `d0 x2 \(log-normal, σ\(ln\) = 0\.693, ±1σ = ×/÷ 2; command line\)`}, {"stdout", false, `quantiles: empirical quantile`}, {"stdout", true, `NaN|Inf`}, {"stderr", true, `.`}}},
+	{"spread_rate", []string{"rate", "--material", "demo-alloy", "--temps", "1000K,900K", "--spread", "gamma=2%", "--spread", "q=3kJ/mol", "--spread", "d0=x2", "--samples", "500"}, []check{{"stdout", false, `^uncertainty \(500 samples, seed 1\): P5 / P50 / P95$`}, {"stdout", false, `P5 log10 J`}, {"stdout", false, `P95 log10 J`}, {"stdout", false, `^sensitivity: change of each result`}, {"stdout", false, `log10 J at 1000\.00 K .* gamma > d0 > q`}, {"stdout", false, `gamma 2% \(normal, σ = 0\.0028 J/m2; command line\)`}, {"stdout", false, `d0 x2 \(log-normal, σ\(ln\) = 0\.693, ±1σ = ×/÷ 2; command line\)`}, {"stdout", false, `quantiles: empirical quantile`}, {"stdout", true, `NaN|Inf`}, {"stderr", true, `.`}}},
 
 	// JSON: the uncertainty block, the bands per row, the spreads and the ranking.
 	{"spread_rate", []string{"rate", "--material", "demo-alloy", "--temps", "1000", "--spread", "gamma=2%", "--spread", "d0=x2", "--samples", "500", "--format", "json"}, []check{{"stdout", false, `"uncertainty": \{`}, {"stdout", false, `"samples": 500,`}, {"stdout", false, `"seed": 1,`}, {"stdout", false, `"distribution": "log-normal"`}, {"stdout", false, `"sd_ln": 0\.693147`}, {"stdout", false, `"p5": -1[0-9]\.`}, {"stdout", false, `"p5_log10_rate_per_m3_s": -1[0-9]\.`}, {"stdout", false, `"minus_1sd": -0\.30102999`}, {"stdout", true, `NaN|Inf`}}},
@@ -266,9 +266,87 @@ var outputCases = []struct {
 
 	// The shipped demo card works end to end.
 	{"ttt_basic", []string{"ttt", "--material", "demo-alloy"}, []check{{"stdout", false, `^nose: `}, {"stdout", true, `NaN|Inf`}}},
+
+	// Spreadsheet CSV: a byte-order mark, semicolons with decimal commas,
+	// percentages for fractions. Each file holds the numbers of another in
+	// another spelling and gives its answer: the Avrami fit of
+	// testdata/fit/crystallized-fraction.csv (n = 2.612, SE 0.01691), the
+	// quench factor of cool_curve/hold.csv (2.00000).
+	{"csv", []string{"fit", "avrami", "$WORK/bom.csv"}, []check{{"stdout", false, `^n = 2\.612, SE 0\.01691, 95 % \[2\.572, 2\.652\]$`}}},
+	{"csv", []string{"fit", "avrami", "$WORK/semicolon.csv"}, []check{{"stdout", false, `^n = 2\.612, SE 0\.01691, 95 % \[2\.572, 2\.652\]$`}, {"stdout", false, `columns time_min, fraction_percent`}}},
+	{"csv", []string{"fit", "avrami", "$REPO/testdata/fit/crystallized-fraction.csv"}, []check{{"stdout", false, `^n = 2\.612, SE 0\.01691, 95 % \[2\.572, 2\.652\]$`}}},
+	{"csv", []string{"cool", "--curve", "$WORK/curve-bom.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}}},
+	{"csv", []string{"cool", "--curve", "$WORK/curve-semicolon.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}}},
+
+	// A percentage for --fraction: 0.0001% is the default 1e-6.
+	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--fraction", "0.0001%", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.08e\+04 K/s`}}},
+
+	// Every bare temperature is kelvin, and says how it was read.
+	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "650"}, []check{{"stderr", false, `^undercool: note: --at: read as 650 K \(376\.85 °C\); write 650C for Celsius$`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900,1000C,950", "--te", "1150"}, []check{{"stderr", false, `^undercool: note: --temps: read as 900 K \(626\.85 °C\), 950 K \(676\.85 °C\); write 900C for Celsius$`}, {"stderr", false, `^undercool: note: --te: read as 1150 K \(876\.85 °C\); write 1150C for Celsius$`}}},
+	{"hold", []string{"ttt", "--material", "demo-alloy", "--range", "1000:800C:50"}, []check{{"stderr", false, `^undercool: note: --range: read as 1000 K \(726\.85 °C\); write 1000C for Celsius$`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K"}, []check{{"stderr", true, `note`}}},
+
+	// fit interface finds gamma without being given one: from the flags of
+	// the invented demo card less its gamma, the fit gives the gamma it
+	// gives with the card's own (the golden fit-interface.txt, 0.14266 J/m2);
+	// the start comes from the classical plot.
+	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--te", "1150K", "--dh", "14.2kJ/mol", "--vm", "9.8cm3/mol",
+		"--d0", "1e-5m2/s", "--q", "200kJ/mol", "--driving", "thompson-spaepen"}, []check{{"stdout", false, `^gamma = 0\.14266 J/m2 \(142\.66 mJ/m2\)`}}},
+	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--te", "1150K", "--dh", "14.2kJ/mol", "--vm", "9.8cm3/mol",
+		"--d0", "1e-5m2/s", "--q", "200kJ/mol", "--driving", "thompson-spaepen", "--format", "json"}, []check{{"stdout", false, `"source": "start of the fit, from the classical plot of nucleation-rates.csv; the fit replaces it"`}, {"stdout", false, `"gamma_j_per_m2": 0\.14266`}}},
+
+	// A fixed supersaturation at given temperatures needs no saturation
+	// temperature; the undercooling, which does, is the dash (empty in CSV).
+	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--temps", "20C,30C", "--format", "csv"}, []check{{"stdout", false, `^293\.15,20,,2,`}, {"stdout", false, `no saturation temperature given, so no undercooling`}}},
+	{"solution", []string{"rate", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--temps", "20C", "--format", "json"}, []check{{"stdout", false, `"undercooling_k": null`}, {"stdout", false, `"saturation_temperature_k": null`}}},
+	{"solution", []string{"hold", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--at", "20C", "--volume", "1mL"}, []check{{"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 293\.15 K`}}},
+	{"solution", []string{"ttt", "--supersaturation", "2", "--vm", "120cm3/mol", "--gamma", "5mJ/m2", "--prefactor", "fixed", "--j0", "1e20", "--growth-rate", "1um/s", "--temps", "20C,30C", "--format", "json"}, []check{{"stdout", false, `"inside_range": false`}}},
+
+	// --columns chooses columns by their JSON keys, in the order given, in
+	// the table, CSV and Markdown (a hold's CSV is its one record).
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,log10_rate_per_m3_s"}, []check{{"stdout", false, `^│ +T \(K\) +│ log10 J \(m\^-3 s\^-1\) │$`}, {"stdout", false, `^│ +900\.00 │ +11\.294 │$`}, {"stdout", true, `not shown`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "log10_rate_per_m3_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^log10_rate_per_m3_s,temperature_k$`}, {"stdout", false, `^11\.29[0-9]*,900$`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,critical_size", "--format", "markdown"}, []check{{"stdout", false, `^\| +T \(K\) +\| +n\* +\|$`}}},
+	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "900K", "--columns", "time_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^time_s,temperature_k$`}}},
+
+	// Markdown: the material's values are one item, sub-lines nested items.
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--format", "markdown"}, []check{{"stdout", false, `^- values: te = 1150 K, .*, q = 200 kJ/mol$`}, {"stdout", true, `^-\s{2,}`}}},
+	{"hold", []string{"ttt", "--material", "demo-alloy", "--temps", "900K", "--spread", "gamma=2%", "--samples", "20", "--format", "markdown"}, []check{{"stdout", false, `^  - nose temperature: `}, {"stdout", true, `^-\s{2,}`}}},
+
+	// Each closing caution fits what was computed: no interfacial energy in
+	// an Arrhenius or Avrami fit, or in a quench factor from a C-curve alone.
+	{"fit_arrhenius", []string{"fit", "arrhenius", "$REPO/testdata/fit/diffusion.csv"}, []check{{"stdout", false, `^estimates only: a fitted law describes its data within their scatter and range`}, {"stdout", true, `gamma cubed`}}},
+	{"fit_arrhenius", []string{"fit", "avrami", "$REPO/testdata/fit/crystallized-fraction.csv", "--format", "csv"}, []check{{"stdout", false, `^# estimates only: a fitted law describes`}, {"stdout", true, `gamma cubed`}}},
+	{"cool_curve", []string{"cool", "--curve", "$WORK/hold.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol"}, []check{{"stdout", false, `^estimates only: a quench factor holds for the alloy, temper and property`}, {"stdout", true, `gamma cubed`}}},
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$WORK/hold.csv"}, []check{{"stdout", false, `gamma cubed`}}},
+	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--material", "demo-alloy"}, []check{{"stdout", false, `gamma cubed`}}},
+
+	// The same quantity prints the same everywhere: the nose of vit1 in
+	// ttt, cool and the memo; a cooling rate with three digits; a measured
+	// curve's span in cool and the memo.
+	{"hold", []string{"ttt", "--material", "vit1"}, []check{{"stdout", false, `^nose: 733\.10 K \(459\.95 °C\), 24\.8 s$`}}},
+	{"hold", []string{"cool", "--material", "vit1", "--critical"}, []check{{"stdout", false, `^critical cooling rate to stay below X = 1e-06 at 625\.00 K: 0\.930 K/s `}, {"stdout", false, `^nose estimate \(Te - T_nose\)/t_nose: 8\.24 K/s \(nose 733\.10 K, 24\.8 s\)`}}},
+	{"hold", []string{"report", "--material", "vit1", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `^\| nose temperature +\| 733\.10 K \(459\.95 °C\) +\|`}, {"stdout", false, `^\| critical cooling rate +\| 0\.930 K/s +\|`}, {"stdout", false, `^\| nose estimate .*\| 8\.24 K/s +\|`}}},
+	{"hold", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, []check{{"stdout", false, `, 1199\.75 K to 305\.65 K over 2\.50 min \(lowest 303\.95 K\)$`}}},
+	{"hold", []string{"report", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `\(403 points, 1199\.75 K to 305\.65 K over 2\.50 min \(lowest 303\.95 K\)\)`}}},
+
+	// --help in groups, each shown where it applies.
+	{"hold", []string{"rate", "--help"}, []check{{"stdout", false, `(?s)^What to compute:$.*^The material:$.*^Solution values:$.*^Uncertainty:$.*^Output:$`}, {"stdout", false, `^      --supersaturation string`}}},
+	{"hold", []string{"rate", "--material", "ni", "--help"}, []check{{"stdout", false, `^Solution values: not shown \(ni is not a solution; undercool rate --help without --material`}, {"stdout", true, `--supersaturation`}}},
+	{"solution", []string{"rate", "--material", "$WORK/demo-solute-a.toml", "--help"}, []check{{"stdout", false, `^      --supersaturation string`}}},
+	{"hold", []string{"materials", "--help"}, []check{{"stdout", false, `^Output:$`}, {"stdout", true, `^The material:$|^What to compute:$|^Uncertainty:$`}}},
+	{"hold", []string{"fit", "--help"}, []check{{"stdout", false, `(?s)^Output:$.*--card-out`}}},
+
+	// --version, and the version in the memo.
+	{"hold", []string{"--version"}, []check{{"stdout", false, `^undercool \(devel\)$`}}},
+	{"hold", []string{"report", "--material", "demo-alloy", "--out", "-"}, []check{{"stdout", false, `^Date: [0-9]{4}-[0-9]{2}-[0-9]{2}\. Written by undercool report \(undercool \(devel\)\)\.`}, {"stdout", false, `^undercool report --material demo-alloy --out - --date [0-9]{4}-[0-9]{2}-[0-9]{2}$`}}},
 }
 
 func TestOutputs(t *testing.T) {
+	// The checks read values, not layout (TestScreenWidth and the goldens
+	// pin that): a screen wide enough that no line wraps.
+	t.Setenv("COLUMNS", "1000")
 	root, repo := caseFiles(t)
 	for _, c := range outputCases {
 		code, stdout, stderr := runCase(t, root, repo, c.dir, c.args)

@@ -7,6 +7,14 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgsvg"
+
+	"undercool/kinetics"
+	"undercool/presets"
+	"undercool/presets/answer"
 )
 
 // goldenTTT is the golden TTT figure, refreshed with
@@ -119,9 +127,101 @@ func TestDecadeTicks(t *testing.T) {
 	if labels == 0 || labels > 9 {
 		t.Errorf("%d labelled ticks over 23 decades, want 1 to 9", labels)
 	}
-	for k, want := range map[int]string{-8: "1e-8", -3: "0.001", 0: "1", 4: "10000", 5: "1e5"} {
+	// one way for every decade: no 100 beside 1e6
+	for k, want := range map[int]string{-8: "1e-8", -3: "1e-3", 0: "1e0", 2: "1e2", 4: "1e4", 5: "1e5"} {
 		if got := decadeLabel(k); got != want {
 			t.Errorf("decadeLabel(%d) = %q, want %q", k, got, want)
+		}
+	}
+}
+
+// figureText runs a command that writes an SVG figure and returns its
+// text, the figure's words.
+func figureText(t *testing.T, args ...string) string {
+	t.Helper()
+	out := filepath.Join(t.TempDir(), "f.svg")
+	var stdout, stderr bytes.Buffer
+	if code := run(append(args, "--plot", out), nil, &stdout, &stderr); code != 0 {
+		t.Fatalf("%s: exit %d: %s", strings.Join(args, " "), code, stderr.String())
+	}
+	b, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(b)
+}
+
+// TestFigures checks what the figures say: each nose named with several
+// fractions, invented materials said to be invented, decades labelled one
+// way, a measured curve drawn with where it reaches X (or its additivity
+// sum or quench factor reaches 1), in cool and in the memo.
+func TestFigures(t *testing.T) {
+	curve := filepath.Join(repoRoot(), "testdata", "curves", "demo-quench.csv")
+	plate := filepath.Join(repoRoot(), "testdata", "curves", "demo-plate-quench.csv")
+	root, _ := caseFiles(t)
+	own, linear := filepath.Join(root, "cool_linear_curve", "own.toml"), filepath.Join(root, "cool_linear_curve", "linear.csv")
+	for _, c := range []struct {
+		args []string
+		want []string
+	}{
+		{[]string{"ttt", "--material", "demo-alloy", "--fraction", "0.01,0.5,0.99"}, []string{"TTT, demo-alloy (invented demo)",
+			">nose of X = 0.01: 831.55 K, 1.00 min<", ">nose of X = 0.5: 831.55 K, 2.89 min<", ">nose of X = 0.99: 831.55 K, 4.64 min<", ">1e2<", ">Te = 1150.00 K<"}},
+		{[]string{"cool", "--material", "vit1", "--critical"}, []string{"CCT over TTT, vit1:", ">nose: 733.10 K, 24.8 s<", ">critical rate 0.930 K/s<", ">Tg = 625.00 K<"}},
+		{[]string{"cool", "--material", "demo-alloy", "--curve", curve}, []string{"measured curve over TTT, demo-alloy (invented demo)",
+			">measured curve (X = 1e-06 not reached: 5.4e-08 at its end)<", ">additivity sum reaches 1: 766.19 K, 19.8 s into the curve<"}},
+		{[]string{"cool", "--material", own, "--curve", linear}, []string{">measured curve<", ">X = 1e-06 reached: "}},
+		{[]string{"cool", "--curve", plate, "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol"}, []string{">C-curve<", ">quench factor reaches 1: 544.48 K, 3.69 s into the curve<"}},
+		{[]string{"rate", "--material", "demo-alloy"}, []string{"nucleation and growth rates, demo-alloy (invented demo)"}},
+		{[]string{"report", "--material", "demo-alloy", "--curve", curve, "--date", "2026-01-15", "--out", "-"}, []string{">measured curve (X = 1e-06 not reached", ">additivity sum reaches 1: 766.19 K"}},
+	} {
+		svg := figureText(t, c.args...)
+		for _, w := range c.want {
+			if !strings.Contains(svg, w) {
+				t.Errorf("%s: the figure lacks %q", strings.Join(c.args, " "), w)
+			}
+		}
+		if !strings.Contains(svg, ">1e") {
+			t.Errorf("%s: no decade labelled 1e…", strings.Join(c.args, " "))
+		}
+	}
+}
+
+// TestTimeAxisSpan checks that a TTT figure's time axis stops a factor of 3
+// beyond 1e4 times the slowest nose (it ran to 1e13 s for lithium
+// disilicate, whose nose is at 1.3e8 s), and that a legend sits beside the
+// axes, clear of the data and of the T_e and T_g lines.
+func TestTimeAxisSpan(t *testing.T) {
+	for _, name := range []string{"lithium-disilicate", "demo-alloy", "vit1"} {
+		c, err := presets.Open(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		md, err := c.Model()
+		if err != nil {
+			t.Fatal(err)
+		}
+		lo, hi := answer.DefaultSpan(md)
+		table, err := md.TTT(answer.Spread(hi, lo, 31), []float64{0.01, 0.99}, kinetics.JMAK{}, lo, hi)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fig, err := tttFigureOf(md, c, table)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p, err := fig.plot()
+		if err != nil {
+			t.Fatal(err)
+		}
+		slow := math.Exp(table.Noses[1].LnTime)
+		if limit := 3 * slow * 1e4; p.X.Max > limit*(1+1e-9) {
+			t.Errorf("%s: time axis to %.3g s, beyond 3 x 1e4 x the nose time (%.3g s)", name, p.X.Max, limit)
+		}
+		r := figureLayout([]*plot.Plot{p})
+		dc := draw.New(vgsvg.New(r.width, r.height))
+		plotC, legC := r.panel(dc, 0)
+		if data := p.DataCanvas(plotC); legC.Min.X <= data.Max.X {
+			t.Errorf("%s: the legend starts at x = %v, inside the axes (to %v)", name, legC.Min.X, data.Max.X)
 		}
 	}
 }

@@ -20,7 +20,7 @@ func init() {
 func setupRate(fs *pflag.FlagSet, e *env) func([]string) error {
 	mf := addMaterialFlags(fs)
 	tf := addTempFlags(fs, e, 21)
-	ff := addFormat(fs)
+	ff := addFormat(fs, e)
 	sf := addSpreadFlags(fs)
 	pf := addPlot(fs, "draw log10 J and u against temperature")
 	return func(args []string) error {
@@ -44,11 +44,11 @@ func setupRate(fs *pflag.FlagSet, e *env) func([]string) error {
 			return err
 		}
 		if pf.set {
-			if err := writeRatePlot(pf, c.Name, md, temps); err != nil {
+			if err := writeRatePlot(pf, figureName(c), md, temps); err != nil {
 				return err
 			}
 		}
-		return render(e.stdout, ff.value, a)
+		return render(e.stdout, ff, a)
 	}
 }
 
@@ -63,7 +63,7 @@ func start(name string, args []string, sf *spreadFlags) error {
 
 // renderWithPlot renders a, then writes the plot where one is asked for,
 // and only then prints a, so that a failed plot leaves no output.
-func renderWithPlot(e *env, a answer.Answer, format string, pf *plotFlag, plot func() error) error {
+func renderWithPlot(e *env, a answer.Answer, format *formatFlag, pf *plotFlag, plot func() error) error {
 	var out bytes.Buffer
 	if err := render(&out, format, a); err != nil {
 		return err

@@ -10,9 +10,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"undercool/cmd/undercool/internal/outfile"
-	"undercool/kinetics"
 	"undercool/kinetics/population"
-	"undercool/presets"
 	"undercool/presets/answer"
 )
 
@@ -60,6 +58,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(date, "date", "the memo's date, YYYY-MM-DD (default: today, UTC)")
 	sched := &scheduleFlag{}
 	fs.Var(sched, "schedule", "also follow the particles in size classes along this "+scheduleHelp+"; the figure goes beside the memo as FILE-evolve.svg")
+	setGroup(fs, groupOutput, "out", "plot", "date")
 	format := addText(fs, "format", "not used: the memo is always Markdown")
 	_ = fs.MarkHidden("format")
 	sf := addSpreadFlags(fs)
@@ -80,7 +79,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err != nil {
 			return err
 		}
-		in := answer.MemoInput{X: jf.fraction.X[0], JMAK: j, At: at.x, V: volume.x, Date: date.date, Names: flagNames}
+		in := answer.MemoInput{X: jf.fraction.X[0], JMAK: j, At: at.x, V: volume.x, Date: date.date, Version: buildVersion(), Names: flagNames}
 		if !date.set {
 			in.Date = time.Now().UTC().Format("2006-01-02")
 		}
@@ -113,6 +112,9 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err := canTransform(in.Model, j); err != nil {
 			return err
 		}
+		if !in.Model.HasTe() {
+			return noTe("report", "no temperature range for the memo's TTT table")
+		}
 		if in.Sampling, err = sf.sampling(e, in.Card); err != nil {
 			return err
 		}
@@ -135,7 +137,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 				}
 			}
 		}
-		in.Command = regenerate(fs, sf)
+		in.Command = regenerate(fs, sf, in.Date)
 		m, err := answer.Memos(in)
 		if err != nil {
 			return evolveError(err)
@@ -149,7 +151,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		}
 		// The memo and its plot are one set: written together or not at all.
 		if plot != "" {
-			if err := writeMemoPlot(&e.files, plot, m, in.Card, in.Model); err != nil {
+			if err := writeMemoPlot(&e.files, plot, m, in); err != nil {
 				return err
 			}
 		}
@@ -184,20 +186,36 @@ func memoPlot(out string, pf *plotFlag) string {
 
 // writeMemoPlot draws the TTT curve beside the memo, with the CCT curve and
 // the cooling line at the critical rate over it where there is one (the
-// figure of undercool cool --critical --plot).
-func writeMemoPlot(fl *files, path string, m *answer.Memo, c *presets.Card, md *kinetics.Model) error {
+// figure of undercool cool --critical --plot), and the measured cooling
+// curve where there is one (as cool --curve --plot draws it).
+func writeMemoPlot(fl *files, path string, m *answer.Memo, in answer.MemoInput) error {
 	pf := &plotFlag{path: path, format: "svg", files: fl}
+	var fig *tttFigure
+	var err error
 	if m.WithCCT() {
 		cr := m.Cool
-		return cctPlot(pf, cr.Path, md, c.Name, cr.X, []float64{cr.Qc}, true, cr.Qc)
+		fig, err = cctFigure(cr.Path, in.Model, in.Card, cr.X, []float64{cr.Qc}, true, cr.Qc)
+	} else {
+		fig, err = tttFigureOf(in.Model, in.Card, m.TTT.Curves)
 	}
-	return writeTTTPlot(pf, md, c.Name, m.TTT.Curves)
+	if err != nil {
+		return err
+	}
+	if m.Curve != nil {
+		curveOver(fig, *in.Path, in.X, m.Curve)
+	}
+	return saveFigure(pf, fig)
 }
 
-// regenerate is the command line that makes the same memo.
-func regenerate(fs *pflag.FlagSet, sf *spreadFlags) string {
+// regenerate is the command line that makes the same memo: the flags
+// given, and the memo's date when it was today's.
+func regenerate(fs *pflag.FlagSet, sf *spreadFlags, date string) string {
 	parts := []string{"undercool", "report"}
 	fs.VisitAll(func(f *pflag.Flag) {
+		if f.Name == "date" {
+			parts = append(parts, "--date", date)
+			return
+		}
 		if !f.Changed {
 			return
 		}

@@ -24,6 +24,8 @@ func TestScripts(t *testing.T) {
 		UpdateScripts: *update,
 		Setup: func(e *testscript.Env) error {
 			e.Setenv("REPO", repoRoot())
+			// The scripts read values, not layout: a screen no line wraps on.
+			e.Setenv("COLUMNS", "1000")
 			return nil
 		},
 	})

@@ -2,13 +2,13 @@ package main
 
 import (
 	"fmt"
-	"math"
 	"strings"
 
 	"github.com/spf13/pflag"
 	"gonum.org/v1/gonum/floats"
 
 	"undercool/kinetics"
+	"undercool/presets"
 	"undercool/presets/answer"
 	"undercool/presets/units"
 )
@@ -72,7 +72,7 @@ func noseSpan(temps []float64, given bool, md *kinetics.Model) (lo, hi float64) 
 	if given {
 		lo, hi = floats.Min(temps), floats.Max(temps)
 	}
-	if !given || !(lo < hi) {
+	if (!given || !(lo < hi)) && md.HasTe() {
 		lo, hi = answer.DefaultSpan(md)
 	}
 	return lo, hi
@@ -83,7 +83,7 @@ func setupTTT(fs *pflag.FlagSet, e *env) func([]string) error {
 	jf := addJMAKFlags(fs, true)
 	tf := addTempFlags(fs, e, 31)
 	pf := addPlot(fs, "draw the TTT curve(s), temperature against log time,")
-	ff := addFormat(fs)
+	ff := addFormat(fs, e)
 	sf := addSpreadFlags(fs)
 	return func(args []string) error {
 		if err := start("ttt", args, sf); err != nil {
@@ -105,6 +105,9 @@ func setupTTT(fs *pflag.FlagSet, e *env) func([]string) error {
 			return err
 		}
 		lo, hi := noseSpan(temps, tf.given(), md)
+		if !(lo < hi) {
+			return noTe("--temps", "no default range to find the nose in: give two temperatures or more")
+		}
 		smp, err := sf.sampling(e, c)
 		if err != nil {
 			return err
@@ -113,51 +116,41 @@ func setupTTT(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err != nil {
 			return err
 		}
-		return renderWithPlot(e, a, ff.value, pf, func() error {
-			return writeTTTPlot(pf, md, c.Name, a.Curves)
+		return renderWithPlot(e, a, ff, pf, func() error {
+			return writeTTTPlot(pf, md, c, a.Curves)
 		})
 	}
 }
 
 // writeTTTPlot draws the TTT curves of a table on plotPoints temperatures
 // over its nose range, whatever its rows, and writes the file.
-func writeTTTPlot(pf *plotFlag, md *kinetics.Model, name string, table *kinetics.TTT) error {
-	temps := answer.Spread(table.Hi, table.Lo, plotPoints)
-	fractions, j := table.Fractions, table.JMAK
-	fine, err := md.TTT(temps, fractions, j, table.Lo, table.Hi)
+func writeTTTPlot(pf *plotFlag, md *kinetics.Model, c *presets.Card, table *kinetics.TTT) error {
+	fig, err := tttFigureOf(md, c, table)
 	if err != nil {
 		return err
-	}
-	fig := &tttFigure{fractions: fractions, T: temps, te: md.Te(), tg: md.Material().Tg}
-	labels := make([]string, len(fractions))
-	for k, X := range fractions {
-		labels[k] = answer.FracLabel(X)
-	}
-	fig.title = fmt.Sprintf("TTT, %s: X = %s", name, strings.Join(labels, ", "))
-	if j.Nuclei > 0 {
-		fig.title += fmt.Sprintf(", %.3g nuclei/m3", j.Nuclei)
-	}
-	if j.Lag {
-		fig.title += ", with time lag"
-	}
-	fig.times = make([][]float64, len(temps))
-	for i := range temps {
-		fig.times[i] = make([]float64, len(fractions))
-		for k := range fractions {
-			fig.times[i][k], _ = answer.Seconds(fine.LnTime[i][k])
-		}
-	}
-	for _, n := range table.Noses {
-		if n.Inside() {
-			t, _ := answer.Seconds(n.LnTime)
-			fig.noses = append(fig.noses, [2]float64{n.T, t})
-		} else {
-			fig.noses = append(fig.noses, [2]float64{math.NaN(), math.NaN()})
-		}
 	}
 	p, err := fig.plot()
 	if err != nil {
 		return err
 	}
 	return savePlots(pf, p)
+}
+
+// tttFigureOf is the figure of the TTT curves of a table.
+func tttFigureOf(md *kinetics.Model, c *presets.Card, table *kinetics.TTT) (*tttFigure, error) {
+	fig := &tttFigure{}
+	if err := tttCurves(fig, md, table.Fractions, table.JMAK, table.Lo, table.Hi); err != nil {
+		return nil, err
+	}
+	labels := make([]string, len(table.Fractions))
+	for k, X := range table.Fractions {
+		labels[k] = answer.FracLabel(X)
+	}
+	fig.title = fmt.Sprintf("TTT, %s: X = %s", figureName(c), strings.Join(labels, ", "))
+	if j := table.JMAK; j.Nuclei > 0 {
+		fig.title += fmt.Sprintf(", %.3g nuclei/m3", j.Nuclei)
+	} else if j.Lag {
+		fig.title += ", with time lag"
+	}
+	return fig, nil
 }

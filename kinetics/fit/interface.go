@@ -110,6 +110,8 @@ func Interface(model *kinetics.Model, T, lnJ, w []float64) (*InterfaceFit, error
 		switch {
 		case s.Flags&kinetics.FlagOutsideTable != 0:
 			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is outside the tabulated driving force", T[i])}
+		case !(s.Dmu > 0) && !model.HasTe():
+			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("no driving force at %g K: no nucleation", T[i])}
 		case !(s.Dmu > 0):
 			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.Te())}
 		case math.IsInf(s.LnJ, -1):
@@ -219,24 +221,36 @@ func Interface(model *kinetics.Model, T, lnJ, w []float64) (*InterfaceFit, error
 
 // classical fills the linear plot of ln J − ln D against 1/(T·Δg_v²).
 func (f *InterfaceFit) classical(model *kinetics.Model, T, lnJ, w []float64) {
-	f.LinearGamma = math.NaN()
-	f.LinearX = make([]float64, len(T))
-	f.LinearY = make([]float64, len(T))
+	f.LinearX, f.LinearY, f.Linear, f.LinearGamma = Classical(model, T, lnJ, w)
+}
+
+// Classical is the classical plot of measured rates (ln J in m⁻³·s⁻¹ at T
+// in K, relative weights w or nil): x = 1/(T·Δg_v²) in m⁶/(J²·K), y = ln J
+// − ln D (ln J without a mobility law), the straight line through them
+// (nil for fewer than two distinct x) and the γ of its slope,
+//
+//	γ = (−3·k_B·slope/(16π·f(θ)))^(1/3)
+//
+// NaN when the slope is not negative. None of it depends on the model's γ,
+// so it gives a fit its starting value.
+func Classical(model *kinetics.Model, T, lnJ, w []float64) (x, y []float64, line *LineFit, gamma float64) {
+	gamma = math.NaN()
+	x, y = make([]float64, len(T)), make([]float64, len(T))
 	for i, t := range T {
 		s := model.At(t)
 		dgv := s.DrivingVolume(model.Material().Vm)
-		f.LinearX[i] = 1 / (t * dgv * dgv)
-		f.LinearY[i] = lnJ[i]
+		x[i] = 1 / (t * dgv * dgv)
+		y[i] = lnJ[i]
 		if model.Material().Mobility != nil {
-			f.LinearY[i] -= s.LnD
+			y[i] -= s.LnD
 		}
 	}
-	l, err := Line(f.LinearX, f.LinearY, w)
+	l, err := Line(x, y, w)
 	if err != nil {
-		return
+		return x, y, nil, gamma
 	}
-	f.Linear = l
 	if l.Slope < 0 {
-		f.LinearGamma = math.Cbrt(-3 * cnt.Boltzmann * l.Slope / (16 * math.Pi * model.ShapeFactor()))
+		gamma = math.Cbrt(-3 * cnt.Boltzmann * l.Slope / (16 * math.Pi * model.ShapeFactor()))
 	}
+	return x, y, l, gamma
 }

@@ -43,7 +43,7 @@ type CoolRow struct {
 	Time     Num  `json:"time_s" col:"after,time"`
 	OnsetT   *Num `json:"onset_temperature_k,omitempty" col:"onset T (K),f2"`
 	OnsetDT  *Num `json:"onset_undercooling_k,omitempty" col:"onset ΔT (K),f2"`
-	Expected *Num `json:"expected_nuclei,omitempty" col:"nuclei expected,g4"`
+	Expected *Num `json:"expected_nuclei,omitempty" col:"nuclei expected,g4,1"`
 }
 
 // Critical is the critical cooling rate to stay below a fraction, with the
@@ -92,9 +92,6 @@ type linear struct {
 	summary []string
 }
 
-// CoolingRateText writes a cooling rate with four digits.
-func CoolingRateText(q float64) string { return fmt.Sprintf("%.4g K/s", q) }
-
 // cctFactors are the rates of the CCT table about the critical rate, as
 // multiples of it.
 var cctFactors = []float64{0.01, 0.1, 0.3, 1, 3, 10}
@@ -131,13 +128,13 @@ func (l linear) critical(inputs LinearInputs, u *Uncertainty) (*Critical, error)
 	}
 	a := &Critical{Inputs: inputs, Rate: Num(l.Qc), NoseEstimate: Num(math.NaN()), Nose: TimeAt{Num(math.NaN()), Num(math.NaN())}, Uncertainty: u, linear: l, nose: n}
 	if l.Qc > 0 {
-		a.summary = append(a.summary, fmt.Sprintf("critical cooling rate to stay below X = %s at %.2f K: %.4g K/s (exact path integral; Xext scales as rate^-4)", FracLabel(l.X), cl.End, l.Qc))
+		a.summary = append(a.summary, fmt.Sprintf("critical cooling rate to stay below X = %s at %.2f K: %s (exact path integral; Xext scales as rate^-4)", FracLabel(l.X), cl.End, RateText(l.Qc)))
 	} else {
 		a.summary = append(a.summary, "critical cooling rate: none needed, nothing nucleates on the path")
 	}
 	if noseRate > 0 && n.Inside() {
 		t := math.Exp(n.LnTime)
-		a.summary = append(a.summary, fmt.Sprintf("nose estimate (Te - T_nose)/t_nose: %.4g K/s (nose %.2f K, %s); it overstates the rate, since a cooling path spends only part of its time near the nose", noseRate, n.T, ReadableTime(t)))
+		a.summary = append(a.summary, fmt.Sprintf("nose estimate (Te - T_nose)/t_nose: %s (nose %.2f K, %s); it overstates the rate, since a cooling path spends only part of its time near the nose", RateText(noseRate), n.T, ReadableTime(t)))
 		a.Nose, a.NoseEstimate = TimeAt{Num(n.T), Num(t)}, Num(noseRate)
 	} else {
 		a.summary = append(a.summary, "nose estimate: no nose of the TTT curve inside the path")
@@ -164,7 +161,7 @@ func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 		q := l.Rates[0]
 		X := cl.Fraction(q)
 		p := cl.Reach(q, l.X)
-		line := fmt.Sprintf("fraction at %.2f K after cooling at %s: %.4g", cl.End, CoolingRateText(q), X)
+		line := fmt.Sprintf("fraction at %.2f K after cooling at %s: %.4g", cl.End, RateText(q), X)
 		a.AtRate = &AtRate{Rate: Num(q), Fraction: Num(X)}
 		if p.Reached {
 			line += fmt.Sprintf("; X = %s reached at %.2f K after %s", FracLabel(l.X), p.Temp, ReadableTime(p.Time))
@@ -179,7 +176,7 @@ func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 			a.summary = append(a.summary, line)
 		}
 	}
-	a.summary = append(a.summary, fmt.Sprintf("critical cooling rate to stay below X = %s: %.4g K/s", FracLabel(l.X), l.Qc))
+	a.summary = append(a.summary, fmt.Sprintf("critical cooling rate to stay below X = %s: %s", FracLabel(l.X), RateText(l.Qc)))
 	a.Rows = l.rows(l.Rates)
 	return a
 }
@@ -187,7 +184,7 @@ func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 // onset is the first nucleus in the volume at rate q, and its summary line.
 func (l linear) onset(q float64) (*Onset, string) {
 	o := onsetOf(l.Path.Onset(l.V, q), l.Path.Te)
-	return o, o.line(l.V, CoolingRateText(q))
+	return o, o.line(l.V, RateText(q))
 }
 
 // rows are the CCT rows of the rates.

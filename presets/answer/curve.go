@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
+	"strings"
 
 	"gonum.org/v1/gonum/floats"
 
@@ -65,6 +66,7 @@ type Curve struct {
 	Rows        []BandRow    `json:"rows"`
 
 	Analysis *kinetics.CurveAnalysis `json:"-"` // with a material
+	Quench   kinetics.QuenchResult   `json:"-"` // against the C-curve used
 	about    []string
 	summary  []string
 }
@@ -80,7 +82,7 @@ type AlongCurve struct {
 
 // BandRow is one temperature band of the quench factor.
 type BandRow struct {
-	Band  string `json:"band" col:"band (K)"`
+	Band  string `json:"band" col:"band (K),,1"`
 	Hi    Num    `json:"band_high_k" col:"from (K),f1"`
 	Lo    Num    `json:"band_low_k" col:"to (K),f1"`
 	Time  Num    `json:"time_s" col:"time in band,time"`
@@ -108,8 +110,8 @@ func Curves(in CurveInput) (*Curve, error) {
 		a.AlongCurve = a.along(an, md.Te(), in)
 		quench, k1 = an.Additivity, math.Log1p(-in.X)
 	}
-	a.about = append(a.about, fmt.Sprintf("curve: %s, %d points (%s, %s), %s to %s, %.2f to %.2f K",
-		d.File, n, d.Headers["time"], d.Headers["temperature"], ReadableTime(p.Time[0]), ReadableTime(p.Time[n-1]), floats.Max(p.Temp), floats.Min(p.Temp)))
+	a.about = append(a.about, fmt.Sprintf("curve: %s, %d points (%s, %s), %s",
+		d.File, n, d.Headers["time"], d.Headers["temperature"], CurveSpan(p)))
 	if in.Model != nil {
 		a.about = append(a.about, transformLine)
 	}
@@ -125,7 +127,7 @@ func Curves(in CurveInput) (*Curve, error) {
 	a.about = append(a.about, "C-curve: "+cc)
 	retained := quench.Retained(k1)
 	a.summary = append(a.summary, fmt.Sprintf("quench factor Q = integral of dt/C(T): %.4g; retained property fraction exp(k1 Q) = %.4g", quench.Q, retained))
-	a.Q, a.Retained = Num(quench.Q), Num(retained)
+	a.Q, a.Retained, a.Quench = Num(quench.Q), Num(retained), quench
 	a.Rows = []BandRow{} // [] in JSON without bands
 	for _, b := range quench.Bands {
 		a.Rows = append(a.Rows, BandRow{fmt.Sprintf("%.0f–%.0f", b.Hi, b.Lo), Num(b.Hi), Num(b.Lo), Num(b.Time), Num(b.Q), Num(100 * b.Share)})
@@ -138,6 +140,26 @@ func Curves(in CurveInput) (*Curve, error) {
 		}
 	}
 	return a, nil
+}
+
+// CurveSpan says where a measured path runs, the same way wherever it is
+// named: "1199.75 K to 305.65 K over 2.50 min", with its highest and lowest
+// temperatures where they are not its ends.
+func CurveSpan(p kinetics.Path) string {
+	n := len(p.Time)
+	first, last := p.Temp[0], p.Temp[n-1]
+	s := fmt.Sprintf("%.2f K to %.2f K over %s", first, last, ReadableTime(p.Time[n-1]-p.Time[0]))
+	var extra []string
+	if hi := floats.Max(p.Temp); hi > max(first, last) {
+		extra = append(extra, fmt.Sprintf("highest %.2f K", hi))
+	}
+	if lo := floats.Min(p.Temp); lo < min(first, last) {
+		extra = append(extra, fmt.Sprintf("lowest %.2f K", lo))
+	}
+	if len(extra) > 0 {
+		s += " (" + strings.Join(extra, ", ") + ")"
+	}
+	return s
 }
 
 // along is the material's part of the answer and its summary lines.
@@ -193,10 +215,14 @@ func curveHeadlines(p kinetics.Path, X, V, band float64) ([]headline, func(*kine
 // Doc is how the curve reads: the table is where the quench factor was collected.
 func (a *Curve) Doc() Doc {
 	d := Doc{Title: "undercool cool: measured cooling curve " + a.Inputs.Curve, About: a.about, Summary: a.summary, Table: tableOf(a.Rows)}
+	caution := Caution
+	if a.AlongCurve == nil {
+		caution = QuenchCaution // a C-curve alone: no nucleation rate
+	}
 	d.Notes = append(d.Notes,
 		fmt.Sprintf("the table is where along the curve the quench factor was collected: bands of %g K, hottest first", float64(a.Band)),
 		"additivity (Scheil) treats the path as a sequence of isothermal holds; it is exact only for isokinetic transformations (Cahn 1956)",
-		Caution)
+		caution)
 	a.Uncertainty.addTo(&d)
 	return d
 }

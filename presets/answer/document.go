@@ -32,12 +32,16 @@ type Table struct {
 }
 
 // Col is one column: its header with its unit, its key (the JSON key,
-// and the CSV header), and how a cell reads in a text table (nil: as
-// text, left-aligned).
+// and the CSV header), how a cell reads in a text table (nil: as text,
+// left-aligned), and when it gives way on a narrow screen.
 type Col struct {
 	Head string
 	Key  string
 	Text func(any) string
+	// Drop orders the columns a terminal table leaves out when it does not
+	// fit the screen: the larger first; 0 only when nothing else is left.
+	// CSV, JSON and Markdown show every column.
+	Drop int
 }
 
 // Cell is how a cell of the column reads in a text table.
@@ -220,10 +224,10 @@ var formats = map[string]func(any) string{
 }
 
 // tableOf is the table of a list of rows: a slice of structs whose fields
-// with a col tag are the columns, in order, headed by the tag's first part
-// and formatted by its second (see formats; none: text), keyed by the
-// field's JSON name. A pointer field is a column only where the first row
-// has it.
+// with a col tag are the columns, in order, headed by the tag's first part,
+// formatted by its second (see formats; none: text) and, by a third, given
+// up in that order on a narrow screen (Col.Drop), keyed by the field's JSON
+// name. A pointer field is a column only where the first row has it.
 func tableOf[R any](rows []R) *Table {
 	t := &Table{}
 	rt := reflect.TypeFor[R]()
@@ -238,7 +242,15 @@ func tableOf[R any](rows []R) *Table {
 			continue
 		}
 		head, format, _ := strings.Cut(tag, ",")
+		format, drop, _ := strings.Cut(format, ",")
 		col := Col{Head: head, Key: strings.Split(f.Tag.Get("json"), ",")[0]}
+		if drop != "" {
+			n, err := strconv.Atoi(drop)
+			if err != nil || n < 1 {
+				panic("answer: col tag " + tag + ": the third part is a drop order, 1 or more")
+			}
+			col.Drop = n
+		}
 		if format != "" {
 			col.Text = formats[format]
 			if col.Text == nil {

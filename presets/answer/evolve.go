@@ -410,8 +410,8 @@ func (a *Evolve) sizeUnit() (string, func(any) string) {
 func (a *Evolve) HistogramTable() Table {
 	unit, size := a.sizeUnit()
 	t := Table{Title: fmt.Sprintf("final distribution, %s in %d bins of equal width in log %s", a.Kind, len(a.Histogram), a.Kind),
-		Cols: []Col{{fmt.Sprintf("from (%s)", unit), "from_m", size}, {fmt.Sprintf("to (%s)", unit), "to_m", size},
-			{"number (m^-3)", "number_per_m3", Sig(4)}, {"volume share", "volume_share", Fixed(4)}}}
+		Cols: []Col{{Head: fmt.Sprintf("from (%s)", unit), Key: "from_m", Text: size}, {Head: fmt.Sprintf("to (%s)", unit), Key: "to_m", Text: size},
+			{Head: "number (m^-3)", Key: "number_per_m3", Text: Sig(4)}, {Head: "volume share", Key: "volume_share", Text: Fixed(4)}}}
 	for _, b := range a.Histogram {
 		t.Rows = append(t.Rows, []any{float64(b.Lo), float64(b.Hi), float64(b.Number), float64(b.Volume)})
 	}

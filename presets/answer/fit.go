@@ -229,14 +229,14 @@ func intervalNote(exact bool, what string, t float64, dof int, how string) strin
 	return fmt.Sprintf("intervals: estimate ± t·SE with Student t = %.4f (%d degrees of freedom)%s", t, dof, how)
 }
 
-// fitDoc finishes the doc of a fit: the remarks on the data, the caution;
-// no table where the points are not listed.
-func fitDoc(d Doc, data FitData, names Names) Doc {
+// fitDoc finishes the doc of a fit: the remarks on the data, the caution
+// that fits what it computed; no table where the points are not listed.
+func fitDoc(d Doc, data FitData, names Names, caution string) Doc {
 	if !data.listed() {
 		d.Table = nil
 	}
 	d.Notes = append(d.Notes, data.notes(names)...)
-	d.Notes = append(d.Notes, Caution)
+	d.Notes = append(d.Notes, caution)
 	return d
 }
 

@@ -94,8 +94,8 @@ type FitArrhenius struct {
 type ArrheniusRow struct {
 	Line     string `json:"line" col:"line"`
 	T        Num    `json:"temperature_k" col:"T (K),f2"`
-	TC       Num    `json:"temperature_c" col:"T (°C),f2"`
-	InvT     Num    `json:"inverse_temperature_per_k" col:"1000/T (1/K),per_kk"`
+	TC       Num    `json:"temperature_c" col:"T (°C),f2,2"`
+	InvT     Num    `json:"inverse_temperature_per_k" col:"1000/T (1/K),per_kk,1"`
 	Y        Num    `json:"value" col:"y,g4"`
 	Fitted   Num    `json:"fitted_value" col:"fitted,g4"`
 	Residual Num    `json:"residual_ln" col:"residual (ln),f4"`
@@ -199,7 +199,7 @@ func (a *FitArrhenius) Doc() Doc {
 	d.Table = tableOf(a.Rows)
 	d.Table.Cols[4].Head = q.symbol + " (" + q.unit + ")"
 	d.Notes = append(d.Notes, intervalNote(l.Exact(), "line", l.T, l.DoF, "; the pre-exponential's interval is exp of that of ln A"))
-	return fitDoc(d, a.Data, a.names)
+	return fitDoc(d, a.Data, a.names, FitCaution)
 }
 
 // Card is the material card the fit gives: base (nil: none) with d0 and q

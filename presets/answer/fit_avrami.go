@@ -14,7 +14,7 @@ import (
 func AvramiColumns() []presets.Column {
 	return []presets.Column{
 		{Quantity: "time", Kind: units.Time, Required: true},
-		{Quantity: "fraction", Kind: units.Dimensionless, Required: true},
+		{Quantity: "fraction", Kind: units.Fraction, Required: true},
 		WeightColumn,
 	}
 }
@@ -63,10 +63,10 @@ type AvramiRow struct {
 	Line     string `json:"line" col:"line"`
 	T        Num    `json:"time_s" col:"t (s),g5"`
 	X        Num    `json:"fraction" col:"X,f4"`
-	LnT      Num    `json:"ln_time" col:"ln t,f4"`
-	LnLn     Num    `json:"ln_minus_ln_one_minus_x" col:"ln(-ln(1-X)),f4"`
+	LnT      Num    `json:"ln_time" col:"ln t,f4,2"`
+	LnLn     Num    `json:"ln_minus_ln_one_minus_x" col:"ln(-ln(1-X)),f4,2"`
 	Fitted   Num    `json:"fitted_fraction" col:"fitted X,f4"`
-	Residual Num    `json:"residual" col:"residual,f4"`
+	Residual Num    `json:"residual" col:"residual,f4,1"`
 	Used     string `json:"used" col:"used"`
 }
 
@@ -169,5 +169,5 @@ func (a *FitAvrami) Doc() Doc {
 	}
 	doc.Table = tableOf(a.Rows)
 	doc.Notes = append(doc.Notes, intervalNote(l.Exact(), "line", l.T, l.DoF, "; those of k and the times are first-order (delta method) on their logarithms"))
-	return fitDoc(doc, d, a.names)
+	return fitDoc(doc, d, a.names, FitCaution)
 }

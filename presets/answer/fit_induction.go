@@ -67,11 +67,11 @@ type InductionRow struct {
 	T        Num    `json:"temperature_k" col:"T (K),f2"`
 	S        Num    `json:"supersaturation" col:"S,g5"`
 	Time     Num    `json:"induction_time_s" col:"t_ind (s),g5"`
-	X        Num    `json:"x_per_k3" col:"1/(T^3 ln^2 S) (K^-3),g5"`
-	LnT      Num    `json:"ln_time" col:"ln t,f4"`
-	Fitted   Num    `json:"fitted_ln_time" col:"fitted,f4"`
+	X        Num    `json:"x_per_k3" col:"1/(T^3 ln^2 S) (K^-3),g5,2"`
+	LnT      Num    `json:"ln_time" col:"ln t,f4,2"`
+	Fitted   Num    `json:"fitted_ln_time" col:"fitted,f4,1"`
 	Residual Num    `json:"residual_ln" col:"residual,f4"`
-	Size     Num    `json:"critical_size" col:"n*,g4"`
+	Size     Num    `json:"critical_size" col:"n*,g4,1"`
 }
 
 // InductionFitInput asks for γ and A from induction times.
@@ -165,7 +165,7 @@ func (a *FitInduction) Doc() Doc {
 		d.Notes = append(d.Notes, "the fitted gamma gives a critical nucleus below 10 molecules: CNT is outside its range, and gamma and A are apparent values that correlate these data (common for crystallization from solution)")
 	}
 	d.Notes = append(d.Notes, "induction taken as mononuclear (the wait for the first nucleus); where growth to a detectable amount dominates, the slope still gives gamma but A is not the nucleation prefactor")
-	return fitDoc(d, a.Data, a.names)
+	return fitDoc(d, a.Data, a.names, Caution)
 }
 
 // Card is the material card with the fitted γ and A as a fixed prefactor.

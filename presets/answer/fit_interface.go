@@ -57,14 +57,53 @@ type FitInterface struct {
 type InterfaceRow struct {
 	Line       string  `json:"line" col:"line"`
 	T          Num     `json:"temperature_k" col:"T (K),f2"`
-	TC         Num     `json:"temperature_c" col:"T (°C),f2"`
+	TC         Num     `json:"temperature_c" col:"T (°C),f2,2"`
 	Log10J     Num     `json:"log10_rate_per_m3_s" col:"log10 J (m^-3 s^-1),f3"`
 	Fitted     Num     `json:"fitted_log10_rate_per_m3_s" col:"fitted,f3"`
 	Residual   Num     `json:"residual_log10" col:"residual (decades),f3"`
-	Size       Num     `json:"critical_size" col:"n*,g4"`
-	ClassicalX Num     `json:"classical_x_m6_per_k_j2" col:"1/(T dg_v^2) (K^-1 m6/J2),g5"`
-	ClassicalY Num     `json:"classical_y" col:"classical y,f4"`
+	Size       Num     `json:"critical_size" col:"n*,g4,1"`
+	ClassicalX Num     `json:"classical_x_m6_per_k_j2" col:"1/(T dg_v^2) (K^-1 m6/J2),g5,3"`
+	ClassicalY Num     `json:"classical_y" col:"classical y,f4,3"`
 	Flags      Strings `json:"flags" col:"flags"`
+}
+
+// StartGamma gives a card without an interfacial energy the one the
+// classical plot of the data suggests, so that the card builds a model to
+// fit: a fit must not ask for its own result. The fit searches the whole
+// range of γ, so the start only names the model; the fit replaces it. A
+// card that has gamma is left alone. Errors: the card's own (a value
+// missing besides gamma), and those of the data (*BadData).
+func StartGamma(c *presets.Card, data FitData) error {
+	if c.Has("gamma") {
+		return nil
+	}
+	if err := data.positive("rate"); err != nil {
+		return err
+	}
+	if err := data.aboveZero(); err != nil {
+		return err
+	}
+	const placeholder = 0.1 // J/m2: the classical plot does not depend on γ
+	probe := c.Clone()
+	if err := probe.Set("gamma", fmt.Sprintf("%g J/m2", placeholder), "placeholder"); err != nil {
+		panic("answer: StartGamma: " + err.Error())
+	}
+	md, err := probe.Model()
+	if err != nil {
+		return err
+	}
+	d := data.Data
+	lnJ := make([]float64, len(d.Lines))
+	for i, j := range d.Columns["rate"] {
+		lnJ[i] = math.Log(j)
+	}
+	_, _, _, g := fit.Classical(md, d.Columns["temperature"], lnJ, data.W)
+	source := fmt.Sprintf("start of the fit, from the classical plot of %s; the fit replaces it", data.Name())
+	if !(g >= fit.GammaFitMin && g <= fit.GammaFitMax) {
+		g = math.Sqrt(fit.GammaFitMin * fit.GammaFitMax)
+		source = fmt.Sprintf("start of the fit (the classical plot of %s gives none); the fit replaces it", data.Name())
+	}
+	return c.Set("gamma", fmt.Sprintf("%.4g J/m2", g), source)
 }
 
 // Interface fits γ and a prefactor scale to a file read with
@@ -159,7 +198,7 @@ func (a *FitInterface) Doc() Doc {
 	d.Table = tableOf(a.Rows)
 	d.Notes = append(d.Notes, intervalNote(res.Exact(), "fit", res.T, res.DoF, ", SE from the Jacobian at the minimum (linear approximation); A's interval is exp of that of ln A"))
 	d.Notes = append(d.Notes, FlagNotes(res.Flags)...)
-	return fitDoc(d, a.Data, a.names)
+	return fitDoc(d, a.Data, a.names, Caution)
 }
 
 // Card is the material card with the fitted gamma, and the prefactor

@@ -93,6 +93,8 @@ func neverReason(md *kinetics.Model, s kinetics.State, j kinetics.JMAK, lnt floa
 	switch {
 	case s.Flags&kinetics.FlagOutsideTable != 0:
 		return "the temperature lies outside the tabulated driving force"
+	case !(s.Dmu > 0) && !md.HasTe():
+		return "no driving force"
 	case !(s.Dmu > 0):
 		return fmt.Sprintf("no driving force at or above the equilibrium temperature (T_e = %.2f K)", md.Te())
 	case s.Flags&kinetics.FlagNoMobility != 0:
@@ -153,10 +155,10 @@ func (a *Hold) Doc() Doc {
 	}
 	d.Record = &Table{
 		Cols: []Col{
-			{"T (K)", "temperature_k", nil}, {"X", "fraction", nil}, {"time (s)", "time_s", nil},
-			{"log10 J", "log10_rate_per_m3_s", nil}, {"u", "growth_rate_m_per_s", nil},
-			{"r*", "critical_radius_m", nil}, {"n*", "critical_size", nil}, {"ΔG*", "barrier_j", nil},
-			{"tau", "time_lag_s", nil}, {"flags", "flags", nil},
+			{Head: "T (K)", Key: "temperature_k"}, {Head: "X", Key: "fraction"}, {Head: "time (s)", Key: "time_s"},
+			{Head: "log10 J", Key: "log10_rate_per_m3_s"}, {Head: "u", Key: "growth_rate_m_per_s"},
+			{Head: "r*", Key: "critical_radius_m"}, {Head: "n*", Key: "critical_size"}, {Head: "ΔG*", Key: "barrier_j"},
+			{Head: "tau", Key: "time_lag_s"}, {Head: "flags", Key: "flags"},
 		},
 		Rows: [][]any{{T, float64(a.X), t, float64(a.Log10J), s.Growth, float64(a.Radius), float64(a.Size), float64(a.Barrier), float64(a.Lag), []string(a.Flags)}},
 	}

@@ -160,9 +160,9 @@ func (a *Induction) Doc() Doc {
 	d.Summary = append(d.Summary, "growth rate: u = "+Sig(4)(s.Growth)+" m/s ("+a.Inputs.GrowthFrom+")")
 	d.Record = &Table{
 		Cols: []Col{
-			{"T (K)", "temperature_k", nil}, {"V (m3)", "volume_m3", nil}, {"S", "supersaturation", nil},
-			{"t_ind (s)", "induction_time_s", nil}, {"t_poly (s)", "polynuclear_time_s", nil}, {"dominant", "dominant", nil},
-			{"log10 J", "log10_rate_per_m3_s", nil}, {"n*", "critical_size", nil}, {"flags", "flags", nil},
+			{Head: "T (K)", Key: "temperature_k"}, {Head: "V (m3)", Key: "volume_m3"}, {Head: "S", Key: "supersaturation"},
+			{Head: "t_ind (s)", Key: "induction_time_s"}, {Head: "t_poly (s)", Key: "polynuclear_time_s"}, {Head: "dominant", Key: "dominant"},
+			{Head: "log10 J", Key: "log10_rate_per_m3_s"}, {Head: "n*", Key: "critical_size"}, {Head: "flags", Key: "flags"},
 		},
 		Rows: [][]any{{T, float64(a.V), float64(a.S), mono, float64(a.Poly), a.Dominant, float64(a.Log10J), float64(a.Size), []string(a.Flags)}},
 	}

@@ -98,12 +98,9 @@ func Describe(c *presets.Card, md *kinetics.Model) Material {
 	for _, v := range d.Values {
 		vals = append(vals, fmt.Sprintf("%s = %s", v.Key, v.Text))
 	}
-	for i := 0; i < len(vals); i += 6 {
-		prefix := "values: "
-		if i > 0 {
-			prefix = "        "
-		}
-		d.about = append(d.about, prefix+strings.Join(vals[i:min(i+6, len(vals))], ", "))
+	if len(vals) > 0 {
+		// one line, which a terminal wraps to its width and Markdown keeps as one item
+		d.about = append(d.about, "values: "+strings.Join(vals, ", "))
 	}
 	if sol, ok := md.Solution(); ok {
 		var line string
@@ -145,6 +142,9 @@ func describeSolution(c *presets.Card, sol cnt.Solution, te float64) (*Solution,
 	switch d := sol.(type) {
 	case cnt.Supersaturation:
 		line = fmt.Sprintf("solution: fixed supersaturation S = %.4g (ln S = %.4g) at every temperature; reference saturation temperature %.2f K", d.S, math.Log(d.S), te)
+		if math.IsNaN(te) {
+			line = fmt.Sprintf("solution: fixed supersaturation S = %.4g (ln S = %.4g) at every temperature; no saturation temperature given, so no undercooling (—)", d.S, math.Log(d.S))
+		}
 		s.Supersaturation = Num(d.S)
 	case cnt.VantHoff:
 		line = fmt.Sprintf("solution: %s and cooled at constant concentration; ideal (van 't Hoff) solubility, dh_sol = %.4g kJ/mol; S = 1 at and above T_sat", sat, d.DHsol/1e3)

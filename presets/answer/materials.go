@@ -75,9 +75,9 @@ type CardInputs struct {
 type CardValue struct {
 	Key     string `json:"key" col:"key"`
 	Text    string `json:"text" col:"value"`
-	SI      Num    `json:"value_si" col:"SI value,g6"`
-	Unit    string `json:"unit_si" col:"SI unit"`
-	Meaning string `json:"meaning" col:"meaning"`
+	SI      Num    `json:"value_si" col:"SI value,g6,2"`
+	Unit    string `json:"unit_si" col:"SI unit,,2"`
+	Meaning string `json:"meaning" col:"meaning,,1"`
 	Source  string `json:"source" col:"source"`
 }
 

@@ -27,6 +27,7 @@ type MemoInput struct {
 	Data     *presets.Data  // the curve's file
 	Sampling *Sampling
 	Date     string // YYYY-MM-DD
+	Version  string // of the program that writes the memo
 	Command  string // the command line that makes the memo again
 	Plot     string // how the memo links its figure; "": none
 	Names    Names
@@ -237,7 +238,7 @@ func (m *Memo) Blocks() []Block {
 	X := FracLabel(in.X)
 	bs := []Block{
 		Heading(1, "Transformation estimate: "+c.Name),
-		Para(fmt.Sprintf("Date: %s. Written by undercool report. Transformed fraction X = %s.", in.Date, X)),
+		Para(fmt.Sprintf("Date: %s. Written by undercool report (%s). Transformed fraction X = %s.", in.Date, in.Version, X)),
 		Quote("**Estimates only.** Nucleation rates depend on the cube of the interfacial energy inside an exponential: a 10 % error in it moves a rate by orders of magnitude. See the cautions at the end."),
 		Heading(2, "Question"),
 	}
@@ -252,9 +253,8 @@ func (m *Memo) Blocks() []Block {
 		qs = append(qs, fmt.Sprintf("Where does the first nucleus appear in a sample of %.4g m³ cooled at the critical rate?", in.V))
 	}
 	if p := in.Path; p != nil {
-		n := len(p.Time)
-		qs = append(qs, fmt.Sprintf("What did the measured cooling curve %s (%d points, %.2f to %.2f K over %s) do: the fraction at its end and the additivity sum?",
-			in.Data.File, n, p.Temp[0], p.Temp[n-1], ReadableTime(p.Time[n-1]-p.Time[0])))
+		qs = append(qs, fmt.Sprintf("What did the measured cooling curve %s (%d points, %s) do: the fraction at its end and the additivity sum?",
+			in.Data.File, len(p.Time), CurveSpan(*p)))
 	}
 	if ev := in.Evolve; ev != nil {
 		qs = append(qs, fmt.Sprintf("How do the particles nucleate, grow and coarsen along the schedule %s: their number, size and volume fraction against time, and their final size distribution?", ev.Schedule.String()))
@@ -305,14 +305,18 @@ func (m *Memo) Blocks() []Block {
 	bs = append(bs, Heading(2, "Uncertainty and what to measure next"))
 	bs = append(bs, m.uncertaintyBlocks()...)
 	if in.Plot != "" {
+		curve := ""
+		if m.Curve != nil {
+			curve = fmt.Sprintf(" The measured cooling curve %s is drawn over them, its time counted from its first point, with the points where it reaches X = %s and where its additivity sum reaches 1 marked where it does.", in.Data.File, X)
+		}
 		if m.WithCCT() {
 			bs = append(bs, Heading(2, "TTT and CCT plot"),
 				Para(fmt.Sprintf("![TTT and CCT curves of %s for X = %s](%s)", c.Name, X, in.Plot)),
-				Para(fmt.Sprintf("Temperature against log time: the isothermal TTT curve to X = %s with its nose marked, the CCT curve (where linear cooling from T_e reaches X) and the cooling line at the critical rate; T_e (and T_g where the card has one) are dashed.", X)))
+				Para(fmt.Sprintf("Temperature against log time: the isothermal TTT curve to X = %s with its nose marked, the CCT curve (where linear cooling from T_e reaches X) and the cooling line at the critical rate; T_e (and T_g where the card has one) are dashed.%s", X, curve)))
 		} else {
 			bs = append(bs, Heading(2, "TTT plot"),
 				Para(fmt.Sprintf("![TTT curve of %s for X = %s](%s)", c.Name, X, in.Plot)),
-				Para(fmt.Sprintf("Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.", X)))
+				Para(fmt.Sprintf("Temperature against log time to X = %s; the nose is marked, T_e (and T_g where the card has one) are dashed.%s", X, curve)))
 		}
 	}
 	if m.Evolve != nil {
@@ -334,7 +338,7 @@ func (m *Memo) Blocks() []Block {
 	if strings.EqualFold(c.Kind, "demo") {
 		bs = append(bs, Para("The material of this memo is invented for demonstration; its numbers describe no real material."))
 	}
-	return append(bs, Para("---"), Para("Regenerate this memo with:"), Code(in.Command))
+	return append(bs, Para("---"), Para(fmt.Sprintf("Regenerate this memo (the same, with %s) with:", in.Version)), Code(in.Command))
 }
 
 // resultBlocks are the results table and the short TTT table.

@@ -34,16 +34,16 @@ type Rate struct {
 // RateRow is the model at one temperature.
 type RateRow struct {
 	T             Num     `json:"temperature_k" col:"T (K),f2"`
-	TC            Num     `json:"temperature_c" col:"T (°C),f2"`
-	Undercooling  Num     `json:"undercooling_k" col:"ΔT (K),f2"`
-	S             *Num    `json:"supersaturation,omitempty" col:"S,g4"` // solutions only
-	DrivingVolume Num     `json:"driving_force_j_per_m3" col:"Δg (J/m3),g4"`
-	Radius        Num     `json:"critical_radius_m" col:"r* (nm),nm"`
-	Size          Num     `json:"critical_size" col:"n*,g4"`
-	Barrier       Num     `json:"barrier_j" col:"ΔG* (J),g4"`
-	BarrierKT     Num     `json:"barrier_kt" col:"ΔG*/kT,g4"`
-	Zeldovich     Num     `json:"zeldovich" col:"Z,g3"`
-	D             Num     `json:"diffusivity_m2_per_s" col:"D (m2/s),g3"`
+	TC            Num     `json:"temperature_c" col:"T (°C),f2,3"`
+	Undercooling  Num     `json:"undercooling_k" col:"ΔT (K),f2,1"`
+	S             *Num    `json:"supersaturation,omitempty" col:"S,g4,1"` // solutions only
+	DrivingVolume Num     `json:"driving_force_j_per_m3" col:"Δg (J/m3),g4,4"`
+	Radius        Num     `json:"critical_radius_m" col:"r* (nm),nm,1"`
+	Size          Num     `json:"critical_size" col:"n*,g4,2"`
+	Barrier       Num     `json:"barrier_j" col:"ΔG* (J),g4,4"`
+	BarrierKT     Num     `json:"barrier_kt" col:"ΔG*/kT,g4,1"`
+	Zeldovich     Num     `json:"zeldovich" col:"Z,g3,4"`
+	D             Num     `json:"diffusivity_m2_per_s" col:"D (m2/s),g3,4"`
 	Log10J        Num     `json:"log10_rate_per_m3_s" col:"log10 J (m^-3 s^-1),f3"`
 	U             Num     `json:"growth_rate_m_per_s" col:"u (m/s),g3"`
 	Flags         Strings `json:"flags" col:"flags"`
@@ -143,5 +143,14 @@ func FlagNotes(all kinetics.Flag) []string {
 	return notes
 }
 
-// Caution is the one-line reminder every result carries.
-const Caution = "estimates only: rates depend on gamma cubed inside an exponential; process decisions follow local codes, validated procedures and licensed practice"
+// The one-line reminders that close every result, each fitting what it
+// computed.
+const (
+	// Caution closes every answer that rests on a nucleation rate or an
+	// interfacial energy.
+	Caution = "estimates only: rates depend on gamma cubed inside an exponential; process decisions follow local codes, validated procedures and licensed practice"
+	// FitCaution closes a fit with no interfacial energy in it (Arrhenius, Avrami).
+	FitCaution = "estimates only: a fitted law describes its data within their scatter and range, not beyond; process decisions follow local codes, validated procedures and licensed practice"
+	// QuenchCaution closes a quench factor from C-curve constants alone.
+	QuenchCaution = "estimates only: a quench factor holds for the alloy, temper and property its C-curve constants were measured for; process decisions follow local codes, validated procedures and licensed practice"
+)

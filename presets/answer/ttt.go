@@ -188,15 +188,15 @@ func (a *TTT) Doc() Doc {
 	for _, n := range a.Nose {
 		d.Summary = append(d.Summary, n.line)
 	}
-	t := &Table{Cols: []Col{{"T (K)", "temperature_k", Fixed(2)}, {"T (°C)", "temperature_c", Fixed(2)}}}
+	t := &Table{Cols: []Col{{Head: "T (K)", Key: "temperature_k", Text: Fixed(2)}, {Head: "T (°C)", Key: "temperature_c", Text: Fixed(2), Drop: 1}}}
 	if fs := a.Curves.Fractions; len(fs) > 1 {
 		for _, X := range fs {
-			t.Cols = append(t.Cols, Col{"time to X = " + FracLabel(X), "time_s_x_" + FracLabel(X), TimeCell})
+			t.Cols = append(t.Cols, Col{Head: "time to X = " + FracLabel(X), Key: "time_s_x_" + FracLabel(X), Text: TimeCell})
 		}
 	} else {
-		t.Cols = append(t.Cols, Col{"time to X = " + FracLabel(fs[0]), "time_s", TimeCell})
+		t.Cols = append(t.Cols, Col{Head: "time to X = " + FracLabel(fs[0]), Key: "time_s", Text: TimeCell})
 	}
-	t.Cols = append(t.Cols, Col{"flags", "flags", nil})
+	t.Cols = append(t.Cols, Col{Head: "flags", Key: "flags"})
 	for _, r := range a.Rows {
 		row := []any{float64(r.T), float64(r.TC)}
 		for _, x := range r.Time {

@@ -378,7 +378,8 @@ func plain(n int) func(float64) string {
 // sig3 writes a value with three significant digits.
 func sig3(x float64) string { return Sig(3)(x) }
 
-// RateText writes a cooling rate, K/s.
+// RateText writes a cooling rate, K/s, with three significant digits: the
+// one way every output writes one.
 func RateText(q float64) string {
 	if math.IsNaN(q) || math.IsInf(q, 0) {
 		return Dash

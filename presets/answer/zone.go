@@ -67,13 +67,13 @@ type ZoneOnset struct {
 // ZoneRow is the onset at one rate; NaN where none is reached on the path.
 type ZoneRow struct {
 	RateMin Num     `json:"cooling_rate_k_per_min" col:"rate (K/min),g4"`
-	Rate    Num     `json:"cooling_rate_k_per_s" col:"rate (K/s),g4"`
+	Rate    Num     `json:"cooling_rate_k_per_s" col:"rate (K/s),g4,2"`
 	T       Num     `json:"onset_temperature_k" col:"onset T (K),f2"`
-	TC      Num     `json:"onset_temperature_c" col:"onset T (°C),f2"`
+	TC      Num     `json:"onset_temperature_c" col:"onset T (°C),f2,2"`
 	Width   Num     `json:"onset_undercooling_k" col:"ΔT_max (K),f3"`
 	S       Num     `json:"supersaturation_at_onset" col:"S at onset,g4"`
-	Time    Num     `json:"onset_time_s" col:"time (s),g4"`
-	Size    Num     `json:"critical_size_at_onset" col:"n* at onset,g3"`
+	Time    Num     `json:"onset_time_s" col:"time (s),g4,1"`
+	Size    Num     `json:"critical_size_at_onset" col:"n* at onset,g3,1"`
 	Flags   Strings `json:"flags" col:"flags"`
 }
 

@@ -117,7 +117,11 @@ var (
 	// MoleFraction is a composition: a plain fraction, or in atomic or
 	// mole per cent (0.18 at% is 0.0018) or parts per million.
 	MoleFraction = k("mole fraction", "", true, map[string]unit{"at%": {0.01, 0}, "mol%": {0.01, 0}, "ppm": {1e-6, 0}})
-	CoolingRate  = k("cooling rate", "K/s", false, map[string]unit{
+	// Fraction is a plain number, or a percentage: "45%", a header fraction_percent.
+	Fraction = k("fraction", "", true, map[string]unit{
+		"%": {0.01, 0}, "percent": {0.01, 0}, "pct": {0.01, 0},
+	})
+	CoolingRate = k("cooling rate", "K/s", false, map[string]unit{
 		"K/s": {1, 0}, "C/s": {1, 0}, "°C/s": {1, 0}, "K/min": {1.0 / 60, 0}, "C/min": {1.0 / 60, 0}, "°C/min": {1.0 / 60, 0},
 		"K/h": {1.0 / 3600, 0}, "C/h": {1.0 / 3600, 0}, "°C/h": {1.0 / 3600, 0},
 	})
