@@ -40,7 +40,7 @@ func ParseGammaLaw(s string) (GammaLaw, bool) {
 // GammaLawNames lists the accepted names of the interfacial-energy laws.
 func GammaLawNames() []string { return gammaLawNames[:] }
 
-// gammaAt is γ(T) in J/m² of a material (its law checked by NewModel):
+// GammaAt is γ(T) in J/m² of a material (its law checked by NewModel):
 //
 //	constant     γ
 //	linear       γ + s·(T − T_ref)
@@ -48,7 +48,7 @@ func GammaLawNames() []string { return gammaLawNames[:] }
 //
 // with γ = Material.Gamma, s = Material.GammaSlope, T_ref = Material.GammaTRef.
 // It may be ≤ 0 for a linear law far from T_ref; see GammaError.
-func (m *Material) gammaAt(T float64) float64 {
+func (m *Material) GammaAt(T float64) float64 {
 	switch m.GammaLaw {
 	case GammaLinear:
 		return m.Gamma + m.GammaSlope*(T-m.GammaTRef)
@@ -59,7 +59,7 @@ func (m *Material) gammaAt(T float64) float64 {
 }
 
 // GammaAt is the interfacial energy γ(T) of the model, J/m².
-func (md *Model) GammaAt(T float64) float64 { return md.m.gammaAt(T) }
+func (md *Model) GammaAt(T float64) float64 { return md.m.GammaAt(T) }
 
 // GammaError is an interfacial-energy law that is not positive somewhere
 // in the temperatures asked for: a linear γ(T) that crosses zero at Zero.
@@ -78,7 +78,7 @@ func (e *GammaError) Error() string {
 // otherwise.
 func (md *Model) CheckGamma(lo, hi float64) error {
 	m := &md.m
-	if m.GammaLaw != GammaLinear || (m.gammaAt(lo) > 0 && m.gammaAt(hi) > 0) {
+	if m.GammaLaw != GammaLinear || (m.GammaAt(lo) > 0 && m.GammaAt(hi) > 0) {
 		return nil
 	}
 	return &GammaError{Lo: math.Min(lo, hi), Hi: math.Max(lo, hi), Zero: m.GammaTRef - m.Gamma/m.GammaSlope, Law: m.GammaText()}

@@ -141,7 +141,7 @@ func (md *Model) state(T float64) State {
 		return s
 	}
 	s.Dmu = s.DrivingMole / cnt.Avogadro
-	gamma := md.m.gammaAt(T)
+	gamma := md.m.GammaAt(T)
 	if gamma > 0 {
 		s.Nucleus = cnt.Critical(s.Dmu, gamma, md.v, md.f, T)
 	} else {
@@ -204,7 +204,7 @@ func (md *Model) flags(s State) Flag {
 			f |= FlagWLFFarAboveTg
 		}
 	}
-	if !(md.m.gammaAt(s.T) > 0) {
+	if !(md.m.GammaAt(s.T) > 0) {
 		f |= FlagGammaNotPositive
 	}
 	return f | md.SpanFlags(s.T, s.T)
