@@ -70,7 +70,11 @@ type GammaError struct {
 }
 
 func (e *GammaError) Error() string {
-	return fmt.Sprintf("the interfacial energy %s is zero at %.4g K and not positive on that side of it, inside the temperatures asked for (%.4g to %.4g K)", e.Law, e.Zero, e.Lo, e.Hi)
+	asked := fmt.Sprintf("inside the temperatures asked for (%.4g to %.4g K)", e.Lo, e.Hi)
+	if e.Lo == e.Hi {
+		asked = fmt.Sprintf("at the temperature asked for (%.4g K)", e.Lo)
+	}
+	return fmt.Sprintf("the interfacial energy %s is zero at %.4g K and not positive on that side of it, %s", e.Law, e.Zero, asked)
 }
 
 // CheckGamma returns a *GammaError when γ(T) ≤ 0 anywhere in [lo, hi] K

@@ -40,6 +40,9 @@ type Hold struct {
 // Holds computes the time to X at T, with its band when there are spreads.
 func Holds(in HoldInput) (*Hold, error) {
 	md, T, X, j := in.Model, in.T, in.X, in.JMAK
+	if err := checkGamma(md, T); err != nil {
+		return nil, err
+	}
 	s, av := md.Isothermal(T, j)
 	lnt := av.LnTime(X)
 	t, _ := Seconds(lnt)
@@ -164,6 +167,7 @@ func (a *Hold) Doc() Doc {
 	if a.j.Lag {
 		d.Notes = append(d.Notes, LagNote)
 	}
+	a.Inputs.mark(&d)
 	a.Uncertainty.addTo(&d)
 	d.Notes = append(d.Notes, Caution)
 	return d

@@ -19,6 +19,7 @@ type ShippedCard struct {
 	Name        string `json:"name" col:"name"`
 	Kind        string `json:"kind" col:"kind"`
 	Te          Num    `json:"equilibrium_temperature_k" col:"T_e (K),f2"`
+	Standing    string `json:"standing" col:"standing"`
 	Description string `json:"description" col:"description"`
 }
 
@@ -38,7 +39,7 @@ func ListShipped(names Names) (*Shipped, error) {
 		} else if c.Driving == "solution" && c.Has("sat_temp") {
 			te = c.SI("sat_temp") // a solution's equilibrium is its saturation temperature
 		}
-		a.Rows = append(a.Rows, ShippedCard{c.Name, c.Kind, Num(te), c.Description})
+		a.Rows = append(a.Rows, ShippedCard{c.Name, c.Kind, Num(te), c.Standing.Short(), c.Description})
 	}
 	return a, nil
 }
@@ -60,13 +61,16 @@ type CardShown struct {
 
 // CardInputs are a card's names and model choices, as written.
 type CardInputs struct {
-	Name        string `json:"material"`
-	Card        string `json:"card"`
-	Kind        string `json:"kind"`
-	Description string `json:"description"`
-	Driving     string `json:"driving"`
-	Mobility    string `json:"mobility"`
-	Prefactor   string `json:"prefactor"`
+	Name        string   `json:"material"`
+	Card        string   `json:"card"`
+	Kind        string   `json:"kind"`
+	Description string   `json:"description"`
+	Driving     string   `json:"driving"`
+	Mobility    string   `json:"mobility"`
+	Prefactor   string   `json:"prefactor"`
+	GammaLaw    string   `json:"gamma_law"`
+	Growth      string   `json:"growth"`
+	Standing    Standing `json:"standing"`
 }
 
 // CardValue is one value of a card.
@@ -92,7 +96,11 @@ func Show(c *presets.Card) *CardShown {
 	if pre == "" {
 		pre = "attachment"
 	}
-	a := &CardShown{Inputs: CardInputs{c.Name, c.File, c.Kind, c.Description, driving, mob, pre}}
+	law, growth := c.Choice("gamma_law"), c.Choice("growth")
+	if growth == "table" {
+		growth += " " + c.GrowthFile
+	}
+	a := &CardShown{Inputs: CardInputs{c.Name, c.File, c.Kind, c.Description, driving, mob, pre, law, growth, standingOf(c.Standing)}}
 	for _, p := range presets.Params {
 		if v, ok := c.Values[p.Key]; ok {
 			a.Rows = append(a.Rows, CardValue{p.Key, v.Text, Num(v.SI), v.Kind.SI, p.About, v.Source})
@@ -108,7 +116,8 @@ func (a *CardShown) Doc() Doc {
 		Title: "undercool materials: " + in.Name,
 		About: []string{
 			"card: " + in.Card, "kind: " + in.Kind, "description: " + in.Description,
-			"models: driving force " + in.Driving + "; mobility " + in.Mobility + "; prefactor " + in.Prefactor,
+			"standing: " + in.Standing.Text,
+			"models: driving force " + in.Driving + "; mobility " + in.Mobility + "; prefactor " + in.Prefactor + "; interfacial energy " + in.GammaLaw + "; growth " + in.Growth,
 		},
 		Table: tableOf(a.Rows),
 	}
