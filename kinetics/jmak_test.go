@@ -32,7 +32,7 @@ func sameFloat(a, b, rel float64) bool {
 // X(200 min) between 0.387 and 0.404 (by hand), so ±0.009 about 0.40.
 func TestAvramiRecrystallization(t *testing.T) {
 	const n, rate = 2.5, 4.4e-3 // per min
-	half := 60 / rate            // s
+	half := 60 / rate           // s
 	a := Avrami{LnK: math.Log(math.Ln2) - n*math.Log(half), N: n, LnLag: math.Inf(-1)}
 	if got := a.Fraction(200 * 60); math.Abs(got-0.40) > 0.009 {
 		t.Errorf("X(200 min) = %.4f, the problem's 0.40 (±0.009 from the answer's two digits)", got)
