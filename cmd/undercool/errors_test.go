@@ -125,6 +125,7 @@ var errorCases = []struct {
 	{"rate", []string{"rate", "--material", "demo-alloy", "--growth", "fast"}, `^undercool: --growth: "fast" is not one of normal, viscosity-power, arrhenius, or a FILE.csv$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--growth", "viscosity-power"}, `^undercool: preset demo-alloy: the viscosity-power growth law needs a viscosity law \(vft or wlf\) and a glass transition Tg$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--glass-q", "100kJ/mol"}, `^undercool: preset demo-alloy: GlassQ, the activation energy of the glass below Tg, needs a viscosity law`, 2},
+	{"rate", []string{"rate", "--material", "lithium-disilicate", "--temps", "40K"}, `^undercool: --gamma-slope: the interfacial energy .* is zero at 51\.87 K and not positive on that side of it, at the temperature asked for \(40 K\)$`, 2},
 	{"fit", []string{"fit", "growth", "$WORK/zero.csv"}, `^undercool: fit growth: give the material with --material`, 2},
 	{"fit", []string{"fit", "arrhenius", "$WORK/zero.csv", "--keep-prefactor"}, `^undercool: --keep-prefactor: only fit interface holds a prefactor$`, 2},
 	{"rate", []string{"rate", "--material", "$WORK/unknown-key.toml"}, `unknown-key.toml:6: key "colour": unknown value \(allowed: te, dh`, 2},
