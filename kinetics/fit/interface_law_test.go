@@ -76,15 +76,7 @@ func TestFitInterfaceLinearRoundTrip(t *testing.T) {
 		if f.Exact() != (c.n == f.Params) || (f.Exact() && !math.IsNaN(f.SlopeSE)) {
 			t.Errorf("%s: exact %v with %d points and %d parameters, slope SE %g", c.name, f.Exact(), c.n, f.Params, f.SlopeSE)
 		}
-		fm, err := kinetics.NewModel(f.Fitted())
-		if err != nil {
-			t.Fatal(err)
-		}
-		for i, temp := range T {
-			if d := lnJ[i] - fm.LnJ(temp) - f.Residuals[i]; math.Abs(d) > 1e-6 {
-				t.Errorf("%s: fitted material at %g K off by %g in ln J", c.name, temp, d)
-			}
-		}
+		reproduces(t, c.name, f, T, lnJ)
 	}
 	// Fewer points than parameters.
 	T, lnJ := rateData(truth, 1, 700, 800, 2, 0)
@@ -104,5 +96,15 @@ func TestFitInterfaceKeepScale(t *testing.T) {
 	}
 	if !relClose(f.Gamma, 0.118, 1e-7) || f.Scale != 1 || f.Params != 1 || f.DoF != 4 {
 		t.Errorf("γ = %.10g, A = %g, %d parameters, %d dof", f.Gamma, f.Scale, f.Params, f.DoF)
+	}
+}
+
+func BenchmarkFitInterfaceLinear(b *testing.B) {
+	md := lawGlass(b)
+	T, lnJ := rateData(md, 3, 700, 800, 8, 0.1)
+	for b.Loop() {
+		if _, err := InterfaceWith(md, T, lnJ, nil, InterfaceOptions{Slope: true}); err != nil {
+			b.Fatal(err)
+		}
 	}
 }
