@@ -100,6 +100,8 @@ func neverReason(md *kinetics.Model, s kinetics.State, j kinetics.JMAK, lnt floa
 		return fmt.Sprintf("no driving force at or above the equilibrium temperature (T_e = %.2f K)", md.Te())
 	case s.Flags&kinetics.FlagNoMobility != 0:
 		return "no mobility: below the temperature where the viscosity law diverges"
+	case s.Flags&kinetics.FlagOutsideGrowthTable != 0:
+		return "no growth: the temperature lies outside the measured growth-rate table"
 	case j.Nuclei == 0 && math.IsInf(s.LnJ, -1):
 		return "no nucleation at this temperature"
 	case !math.IsInf(lnt, 1):
