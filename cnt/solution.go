@@ -160,19 +160,25 @@ func NewSolubilityTable(T, c []float64, conc float64, label string) (*Solubility
 }
 
 // LnSolubility is ln c_sat(T), interpolated linearly in 1/T; NaN outside the table.
-func (t *SolubilityTable) LnSolubility(T float64) float64 {
-	lo, hi, ok := bracket(t.T, T)
+func (t *SolubilityTable) LnSolubility(T float64) float64 { return LnInverseT(t.T, t.lnC, T) }
+
+// LnInverseT interpolates a logarithm ln y tabulated at ascending
+// temperatures ts linearly in 1/T, which is exact for an Arrhenius (or van 't
+// Hoff) quantity y = A·exp(−B/T) and close for any measured curve at the
+// usual spacing; NaN outside the table (no extrapolation) or for NaN T.
+func LnInverseT(ts, lnY []float64, T float64) float64 {
+	lo, hi, ok := bracket(ts, T)
 	if !ok {
 		return math.NaN()
 	}
-	if T == t.T[lo] {
-		return t.lnC[lo]
+	if T == ts[lo] {
+		return lnY[lo]
 	}
-	if T == t.T[hi] {
-		return t.lnC[hi]
+	if T == ts[hi] {
+		return lnY[hi]
 	}
-	w := (1/T - 1/t.T[lo]) / (1/t.T[hi] - 1/t.T[lo])
-	return t.lnC[lo] + w*(t.lnC[hi]-t.lnC[lo])
+	w := (1/T - 1/ts[lo]) / (1/ts[hi] - 1/ts[lo])
+	return lnY[lo] + w*(lnY[hi]-lnY[lo])
 }
 
 func (t *SolubilityTable) LnS(T float64) float64 { return math.Log(t.Conc) - t.LnSolubility(T) }

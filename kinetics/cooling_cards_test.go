@@ -8,10 +8,12 @@ import (
 )
 
 // TestCriticalRateBMG: the Zr-based bulk metallic glass Vit1 forms a glass
-// at about 1 K/s: Kim Y.J., Busch R., Johnson W.L., Rulison A.J., Rhim W.K.,
-// Appl. Phys. Lett. 65 (1994) 2136 (electrostatic levitation). Order of
-// magnitude: within a factor of 10 either way, since γ enters cubed in an
-// exponent and the card's γ is uncertain by several per cent.
+// at 0.9–1.2 K/s: Kim Y.J., Busch R., Johnson W.L., Rulison A.J., Rhim W.K.,
+// Appl. Phys. Lett. 65 (1994) 2136 (electrostatic levitation; abstract,
+// checked). Within a factor of 2 of the middle of that range, 1.04 K/s
+// (the target of the card's calibration; it was calibrated on the TTT
+// nose, not on this rate, which is held out). The path ends at Tg, and the
+// classical nose estimate overstates the rate (Uhlmann 1972).
 func TestCriticalRateBMG(t *testing.T) {
 	md := shippedModel(t, "vit1")
 	c, err := md.LinearCooling(0)
@@ -22,14 +24,13 @@ func TestCriticalRateBMG(t *testing.T) {
 		t.Errorf("path ends for %v, want the glass transition", c.Reason)
 	}
 	qc := c.CriticalRate(1e-6)
-	if !(qc > 0.1 && qc < 10) {
-		t.Errorf("Vit1 critical cooling rate %.3g K/s, want about 1 K/s (0.1–10)", qc)
+	if !(qc > 1.04/2 && qc < 1.04*2) {
+		t.Errorf("Vit1 critical cooling rate %.3g K/s, measured 0.9–1.2 K/s: want within a factor 2 of 1.04", qc)
 	}
 	nose, _, err := c.NoseRate(1e-6)
 	if err != nil {
 		t.Fatal(err)
 	}
-	// The nose estimate overstates the rate (Uhlmann 1972).
 	if !(nose > qc) {
 		t.Errorf("nose estimate %.3g K/s not above the integral %.3g K/s", nose, qc)
 	}
@@ -38,29 +39,43 @@ func TestCriticalRateBMG(t *testing.T) {
 
 // TestCriticalRateMetals: pure metals cannot be made glassy below about
 // 10^12–10^14 K/s (common practice; splat and melt-spinning experience).
-// Order of magnitude: 10^11 to 10^14.5 K/s accepted — the homogeneous CNT
-// with the cards' interfacial energies puts Ag and Au near 4·10^11.
+// Ni, Cu, Al and Fe come out inside that range. Ag and Au come out at about
+// 4·10^11 K/s, below it, with Turnbull's interfacial energies: a known miss
+// the README states; their test pins it (between 10^11 and 10^12), so that
+// a change of the physics that moves them is seen and the README updated.
 func TestCriticalRateMetals(t *testing.T) {
-	for _, name := range []string{"ni", "cu", "al", "fe", "ag", "au"} {
-		md := shippedModel(t, name)
-		c, err := md.LinearCooling(0)
+	for _, c := range []struct {
+		name   string
+		lo, hi float64 // log10 K/s
+	}{
+		{"ni", 12, 14}, {"cu", 12, 14}, {"al", 12, 14}, {"fe", 12, 14},
+		{"ag", 11, 12}, {"au", 11, 12}, // known miss, below the range
+	} {
+		md := shippedModel(t, c.name)
+		cl, err := md.LinearCooling(0)
 		if err != nil {
-			t.Fatalf("%s: %v", name, err)
+			t.Fatalf("%s: %v", c.name, err)
 		}
-		qc := c.CriticalRate(1e-6)
-		if lg := math.Log10(qc); !(lg > 11 && lg < 14.5) {
-			t.Errorf("%s: critical cooling rate %.3g K/s, want 10^11–10^14.5", name, qc)
+		qc := cl.CriticalRate(1e-6)
+		if lg := math.Log10(qc); !(lg > c.lo && lg < c.hi) {
+			t.Errorf("%s: critical cooling rate %.3g K/s, want 10^%g–10^%g", c.name, qc, c.lo, c.hi)
 		}
-		t.Logf("%s: critical rate %.3g K/s", name, qc)
+		t.Logf("%s: critical rate %.3g K/s", c.name, qc)
 	}
 }
 
-// TestMaxUndercoolingMetals: small droplets of pure metals undercool to
-// about 0.18 T_e before they freeze (common practice, after Turnbull D.,
-// J. Appl. Phys. 21 (1950) 1022, droplets of some 10–100 µm). Accepted:
-// 0.12–0.24 T_e for a 50 µm droplet at 1 K/s.
+// TestMaxUndercoolingMetals is a calibration reproduction, not a check:
+// the cards' interfacial energies are Turnbull's (J. Appl. Phys. 21 (1950)
+// 1022), which he derived from the maximum undercoolings of his metal
+// droplets (values from memory: Ni 319 K, Cu 236 K, Fe 295 K, Al 130 K,
+// Au 230 K, Ag 227 K). A 50 µm droplet cooled at 1 K/s must nucleate within
+// 10 % of his undercooling: Turnbull assumed a nucleation frequency, and
+// 1 % in γ moves the onset by about 1.5 % of ΔT (ΔT ∝ γ^(3/2) at a fixed
+// rate), so a card that still carries his γ lands within a few per cent
+// and one whose γ drifted does not.
 func TestMaxUndercoolingMetals(t *testing.T) {
 	V := 4.0 / 3 * math.Pi * math.Pow(25e-6, 3)
+	turnbull := map[string]float64{"ni": 319, "cu": 236, "fe": 295, "al": 130, "au": 230, "ag": 227}
 	for _, name := range []string{"ni", "cu", "al", "fe", "ag", "au"} {
 		md := shippedModel(t, name)
 		c, err := md.LinearCooling(0)
@@ -72,18 +87,24 @@ func TestMaxUndercoolingMetals(t *testing.T) {
 			t.Errorf("%s: droplet never nucleates", name)
 			continue
 		}
-		if u := (c.Te - o.Temp) / c.Te; !(u > 0.12 && u < 0.24) {
-			t.Errorf("%s: onset at %.1f K, undercooling %.3f T_e, want about 0.18 (0.12–0.24)", name, o.Temp, u)
+		dT := c.Te - o.Temp
+		t.Logf("%s: onset undercooling %.1f K (%.3f T_e); Turnbull %.0f K", name, dT, dT/c.Te, turnbull[name])
+		if math.Abs(dT-turnbull[name]) > 0.1*turnbull[name] {
+			t.Errorf("%s: onset undercooling %.1f K, Turnbull's %.0f K: more than 10 %% apart", name, dT, turnbull[name])
 		}
 	}
 }
 
-// TestWaterDroplets: pure water droplets of about 75 µm cooled at about
-// 1 K/min freeze homogeneously near 236–238 K (Isenrich F.N. et al., The
+// TestWaterDroplets: the median freezing temperature of 75 µm water
+// droplets cooled at 1 K/min is 237.3 K (Isenrich F.N. et al., The
 // Microfluidic Ice Nuclei Counter Zürich (MINCZ), Atmos. Meas. Tech. 15
-// (2022) 5367; Shardt N. et al. 2022). Tolerance ±3 K around 237 K: the
-// card's γ is the low end of the measured range and a constant γ; 1 % in γ
-// moves the onset by about 1 K.
+// (2022) 5367, abstract: standard deviation 0.1 K, accuracy 0.2 K; the
+// cooling rate from memory). Half the droplets are frozen where the
+// expected number of nuclei V·∫J dt is ln 2, that is where it is 1 in V/ln 2.
+// The ice card was calibrated on rates, not on this median: within ±1 K
+// (the 0.2 K accuracy, plus the ±1 decade between instruments over the
+// slope of about 1.5 decades per kelvin; presets/measured_test.go holds the
+// same row in its standing).
 func TestWaterDroplets(t *testing.T) {
 	md := shippedModel(t, "ice")
 	c, err := md.LinearCooling(0)
@@ -91,11 +112,11 @@ func TestWaterDroplets(t *testing.T) {
 		t.Fatal(err)
 	}
 	V := 4.0 / 3 * math.Pi * math.Pow(37.5e-6, 3)
-	o := c.Onset(V, 1.0/60)
-	if !o.Reached || math.Abs(o.Temp-237) > 3 {
-		t.Errorf("75 µm droplet at 1 K/min: onset %.2f K (reached %v), want 236–238 K (±3 K)", o.Temp, o.Reached)
+	o := c.Onset(V/math.Ln2, 1.0/60)
+	if !o.Reached || math.Abs(o.Temp-237.3) > 1 {
+		t.Errorf("75 µm droplet at 1 K/min: median %.2f K (reached %v), measured 237.3 K (±1 K)", o.Temp, o.Reached)
 	}
-	t.Logf("ice: onset %.2f K", o.Temp)
+	t.Logf("ice: median freezing %.2f K", o.Temp)
 }
 
 // BenchmarkCritical is the work of `cool --critical`: the path integral and

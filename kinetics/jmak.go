@@ -3,8 +3,6 @@ package kinetics
 import (
 	"fmt"
 	"math"
-
-	"undercool/cnt"
 )
 
 // JMAK chooses how the new phase appears in an isothermal transformation
@@ -129,25 +127,14 @@ func (a Avrami) Fraction(t float64) float64 {
 	return -math.Expm1(-math.Exp(a.LnK + a.N*math.Log(t-lag)))
 }
 
-// lnGrowth is ln u from an evaluated state, computed in logs so that a
-// mobility of 10⁻⁴⁰⁰ m²/s gives a finite logarithm rather than u = 0:
+// lnGrowth is ln u of an evaluated state, computed in logs (Model.state) so
+// that a mobility of 10⁻⁴⁰⁰ m²/s gives a finite logarithm rather than u = 0;
+// for normal growth
 //
 //	ln u = ln D − ln λ + ln(1 − exp(−Δμ/k_BT))
 //
-// −Inf without driving force or mobility, NaN without a mobility law.
-func (md *Model) lnGrowth(s State) float64 {
-	if md.m.Growth > 0 {
-		return math.Log(s.Growth) // a measured rate (solution.go); −Inf without driving force
-	}
-	if math.IsNaN(s.LnD) {
-		return math.NaN()
-	}
-	x := s.Dmu / (cnt.Boltzmann * s.T)
-	if !(x > 0) {
-		return math.Inf(-1)
-	}
-	return s.LnD - md.lnJump + math.Log(-math.Expm1(-x))
-}
+// −Inf without driving force or mobility, NaN without a growth law.
+func (md *Model) lnGrowth(s State) float64 { return s.lnU }
 
 // lnTimeLag is ln τ, τ = 1/(2π·Z²·β*), in logs; NaN where β* is not defined.
 func lnTimeLag(s State) float64 {

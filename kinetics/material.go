@@ -57,6 +57,16 @@ type Material struct {
 	Tg        float64          // glass transition, K (0: none), for ranges and flags
 	Conc      float64          // solute molecules per m³ in solution, for PrefactorDiffusion
 	Growth    float64          // measured growth rate u, m/s, in place of the mobility law's (0: from the mobility law)
+
+	// Temperature-dependent interface, glassy state, growth calibrated on
+	// its own, and the range a card was calibrated on.
+	GammaLaw     GammaLaw  // how γ depends on T; Gamma is then γ(GammaTRef)
+	GammaTRef    float64   // K, the temperature Gamma is given at (linear, negentropic)
+	GammaSlope   float64   // dγ/dT, J/(m²·K), for GammaLinear
+	GlassQ       float64   // J/mol, activation energy of the viscosity below T_g (0: the equilibrium law extrapolated)
+	GrowthLaw    GrowthLaw // nil: normal growth from the mobility law (or Growth)
+	CalibratedLo float64   // K, lowest temperature the material was calibrated on (0: no range)
+	CalibratedHi float64   // K, highest (0: no range)
 }
 
 // MolecularVolume is v = V_m/N_A, m³.
@@ -82,6 +92,7 @@ type Model struct {
 	lnN    float64 // ln of site density
 	lnJ0   float64
 	q      float64 // Arrhenius Q for Turnbull–Fisher, J/mol
+	tg     float64 // glass transition, K: the material's or its WLF law's (0: none)
 }
 
 // minMolecularVolume is the least volume per molecule accepted, m³.
@@ -136,12 +147,18 @@ func NewModel(m Material) (*Model, error) {
 	for _, c := range []struct {
 		name string
 		x    float64
-	}{{"Sites", m.Sites}, {"Jump", m.Jump}, {"Tg", m.Tg}, {"J0", m.J0}, {"Growth", m.Growth}} {
+	}{{"Sites", m.Sites}, {"Jump", m.Jump}, {"Tg", m.Tg}, {"J0", m.J0}, {"Growth", m.Growth}, {"CalibratedLo", m.CalibratedLo}, {"CalibratedHi", m.CalibratedHi}} {
 		if c.x != 0 {
 			if err := positive(c.name, c.x); err != nil {
 				return nil, err
 			}
 		}
+	}
+	if err := checkGammaLaw(m); err != nil {
+		return nil, err
+	}
+	if (m.CalibratedLo == 0) != (m.CalibratedHi == 0) || m.CalibratedLo > m.CalibratedHi {
+		return nil, fmt.Errorf("the calibrated range needs both ends, lowest first: got %g to %g K", m.CalibratedLo, m.CalibratedHi)
 	}
 	md := &Model{m: m, te: te, v: m.MolecularVolume(), jump: m.JumpDistance(), f: cnt.ShapeFactor(m.Theta)}
 	// A molecule smaller than 1e-33 m³ (a thousandth of a nucleon's) is a
@@ -207,6 +224,13 @@ func NewModel(m Material) (*Model, error) {
 		}
 		md.m.Mobility = mob
 	}
+	md.tg = glassTransition(md.m)
+	if err := checkGlassy(md.m); err != nil {
+		return nil, err
+	}
+	if err := md.prepareGrowth(); err != nil {
+		return nil, err
+	}
 	return md, nil
 }
 
@@ -250,5 +274,13 @@ func (md *Model) HasRate() bool {
 }
 
 // HasGrowth reports whether the model can give a growth rate (it has a
-// mobility law or a measured growth rate).
-func (md *Model) HasGrowth() bool { return md.m.Mobility != nil || md.m.Growth > 0 }
+// mobility law, a growth law or a measured growth rate).
+func (md *Model) HasGrowth() bool {
+	return md.m.Mobility != nil || md.m.Growth > 0 || md.m.GrowthLaw != nil
+}
+
+// Calibrated is the range of temperatures the material was calibrated on,
+// K, and whether it has one.
+func (md *Model) Calibrated() (lo, hi float64, ok bool) {
+	return md.m.CalibratedLo, md.m.CalibratedHi, md.m.CalibratedHi > 0
+}

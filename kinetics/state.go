@@ -25,6 +25,21 @@ const (
 	FlagWLFFarAboveTg
 	// FlagOutsideTable: the temperature lies outside a tabulated driving force.
 	FlagOutsideTable
+	// FlagBelowTgLiquid: below T_g with a viscosity law and no glassy
+	// branch: the equilibrium (liquid) law is extrapolated into the glass.
+	FlagBelowTgLiquid
+	// FlagBelowTgGlassy: below T_g with a viscosity law, on the Arrhenius
+	// branch of the glass (Material.GlassQ).
+	FlagBelowTgGlassy
+	// FlagOutsideCalibrated: outside the range of temperatures the material
+	// was calibrated on (Material.CalibratedLo, CalibratedHi).
+	FlagOutsideCalibrated
+	// FlagOutsideGrowthTable: outside a measured growth-rate table; the
+	// growth rate is taken as zero there.
+	FlagOutsideGrowthTable
+	// FlagGammaNotPositive: the interfacial-energy law gives γ(T) ≤ 0; no
+	// nucleus and no rate.
+	FlagGammaNotPositive
 )
 
 // Limits behind the validity flags (common practice).
@@ -44,6 +59,11 @@ var flagNames = []struct {
 	{FlagNoMobility, "no_mobility", "below the temperature where the viscosity law diverges: no mobility"},
 	{FlagWLFFarAboveTg, "wlf_far_above_tg", "WLF used more than 100 K above Tg"},
 	{FlagOutsideTable, "outside_table", "outside the tabulated driving force"},
+	{FlagBelowTgLiquid, "below_tg_liquid_law", "below Tg, in the glass: the liquid's viscosity law is extrapolated there (no glass_q on the card), an uncertain branch"},
+	{FlagBelowTgGlassy, "below_tg_glassy", "below Tg, in the glass: viscosity from the Arrhenius continuation from Tg with the card's glass_q"},
+	{FlagOutsideCalibrated, "outside_calibrated_range", "outside the range the card was calibrated on"},
+	{FlagOutsideGrowthTable, "outside_growth_table", "outside the measured growth-rate table: growth taken as zero there"},
+	{FlagGammaNotPositive, "gamma_not_positive", "the interfacial-energy law gives gamma <= 0: no nucleus, no rate"},
 }
 
 // Keys returns the snake_case names of the set flags, in a fixed order.
@@ -80,6 +100,8 @@ type State struct {
 	LnJ          float64     // ln J, J in m⁻³·s⁻¹ (−Inf: no nucleation; NaN: no rate model, or outside a tabulated driving force)
 	Growth       float64     // u, m/s (NaN: no mobility law)
 	Flags        Flag
+
+	lnU float64 // ln u, computed in logs (see Model.lnGrowth)
 }
 
 // DrivingVolume is Δg per unit volume of the new phase, J/m³.
@@ -104,14 +126,14 @@ func (s State) TimeLag() float64 {
 // At evaluates the model at temperature T (K, > 0).
 func (md *Model) At(T float64) State {
 	s := md.state(T)
-	s.Flags = md.flags(s)
+	s.Flags |= md.flags(s)
 	return s
 }
 
 // state is At without the validity flags, for the paths that need only
 // ln J and u (see rateAndGrowth).
 func (md *Model) state(T float64) State {
-	s := State{T: T, Undercooling: md.te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN()}
+	s := State{T: T, Undercooling: md.te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN(), lnU: math.NaN()}
 	kT := cnt.Boltzmann * T
 	s.DrivingMole = md.m.Driving.PerMole(T)
 	if math.IsNaN(s.DrivingMole) {
@@ -119,21 +141,42 @@ func (md *Model) state(T float64) State {
 		return s
 	}
 	s.Dmu = s.DrivingMole / cnt.Avogadro
-	s.Nucleus = cnt.Critical(s.Dmu, md.m.Gamma, md.v, md.f, T)
+	gamma := md.m.GammaAt(T)
+	if gamma > 0 {
+		s.Nucleus = cnt.Critical(s.Dmu, gamma, md.v, md.f, T)
+	} else {
+		s.Nucleus = cnt.Critical(0, 0, 0, 0, T)
+	}
+	x := s.Dmu / kT
 	if md.m.Mobility != nil {
-		s.LnD = md.m.Mobility.LnDiffusivity(T)
-		s.Growth = GrowthRate(s.LnD, md.jump, s.Dmu/kT)
-		if s.Dmu > 0 {
+		s.LnD = md.lnDiffusivity(T)
+		s.Growth = GrowthRate(s.LnD, md.jump, x)
+		s.lnU = math.Inf(-1)
+		if x > 0 {
+			s.lnU = s.LnD - md.lnJump + lnThermo(x)
 			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
 			if md.m.Prefactor == PrefactorDiffusion {
 				s.LnBeta = cnt.LnAttachmentDiffusion(s.LnD, s.Nucleus.Radius, md.m.Conc)
 			}
 		}
 	}
-	if md.m.Growth > 0 {
+	switch {
+	case md.m.GrowthLaw != nil:
+		s.lnU = math.Inf(-1)
+		if x > 0 {
+			var f Flag
+			s.lnU, f = md.m.GrowthLaw.lnRate(md, T, x)
+			s.Flags |= f
+		}
+		s.Growth = math.Exp(s.lnU)
+	case md.m.Growth > 0:
 		s.Growth = measuredGrowth(md.m.Growth, s.Dmu) // solution.go
+		s.lnU = math.Log(s.Growth)
 	}
 	s.LnJ = md.lnRate(s, T)
+	if !(gamma > 0) {
+		s.LnJ = math.NaN()
+	}
 	return s
 }
 
@@ -160,6 +203,28 @@ func (md *Model) flags(s State) Flag {
 		if w, ok := md.m.Mobility.(WLF); ok && s.T > w.Tg+wlfRange {
 			f |= FlagWLFFarAboveTg
 		}
+	}
+	if !(md.m.GammaAt(s.T) > 0) {
+		f |= FlagGammaNotPositive
+	}
+	return f | md.SpanFlags(s.T, s.T)
+}
+
+// SpanFlags are the flags a span of temperatures [lo, hi] (K) raises by
+// where it lies, whatever the model gives there: below T_g with a viscosity
+// law (naming the branch used), and outside the calibrated range. A path
+// answer (linear cooling, a measured curve) carries those of its span.
+func (md *Model) SpanFlags(lo, hi float64) Flag {
+	var f Flag
+	if md.tg > 0 && lo < md.tg && md.HasViscosity() {
+		if md.Glassy() {
+			f |= FlagBelowTgGlassy
+		} else {
+			f |= FlagBelowTgLiquid
+		}
+	}
+	if clo, chi, ok := md.Calibrated(); ok && (lo < clo || hi > chi) {
+		f |= FlagOutsideCalibrated
 	}
 	return f
 }

@@ -92,6 +92,7 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 	if b.err != nil {
 		return nil, nil, b.err
 	}
+	b.gammaLaw(&m)
 	var err error
 	if m.Driving, err = b.driving(m.Vm); err != nil {
 		return nil, nil, err
@@ -115,8 +116,20 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 		m.Mobility = kinetics.WLF{Tg: b.need("tg", "glass transition, for WLF"), C1: b.opt("wlf_c1", kinetics.WLFC1),
 			C2: b.opt("wlf_c2", kinetics.WLFC2), EtaG: b.opt("eta_g", kinetics.EtaAtTg), Jump: jump}
 	}
+	m.GlassQ = b.given("glass_q")
+	if m.GrowthLaw, err = b.growth(); err != nil {
+		return nil, nil, err
+	}
 	if b.err != nil {
 		return nil, nil, b.err
+	}
+	// The calibrated range is where the card holds, not a value of the
+	// physics: it is not recorded, so no spread may vary it.
+	m.CalibratedLo, m.CalibratedHi = c.SI("calibrated_t_min"), c.SI("calibrated_t_max")
+	for _, k := range [2]string{"calibrated_t_min", "calibrated_t_max"} {
+		if !c.Has(k) && (c.Has("calibrated_t_min") || c.Has("calibrated_t_max")) {
+			return nil, nil, &MissingError{File: c.File, Key: k, Why: "the calibrated range needs both ends"}
+		}
 	}
 	if pre != "" {
 		m.Prefactor, _ = kinetics.ParsePrefactor(pre)
@@ -142,7 +155,36 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 	if !c.Has("jump") {
 		b.read["jump"] = md.JumpDistance()
 	}
+	if g, ok := md.Material().GrowthLaw.(kinetics.ViscosityPower); ok && !c.Has("growth_ug") {
+		b.read["growth_ug"] = g.Ug
+	}
 	return md, b.read, nil
+}
+
+// gammaLaw reads the interfacial-energy law of the card into m.
+func (b *builder) gammaLaw(m *kinetics.Material) {
+	switch b.c.Choice("gamma_law") {
+	case "linear":
+		m.GammaLaw = kinetics.GammaLinear
+		m.GammaTRef = b.need("gamma_t_ref", "the temperature gamma is given at, for gamma_law linear")
+		m.GammaSlope = b.need("gamma_slope", "dgamma/dT, for gamma_law linear")
+	case "negentropic":
+		m.GammaLaw = kinetics.GammaNegentropic
+		m.GammaTRef = b.need("gamma_t_ref", "the temperature gamma is given at, for gamma_law negentropic")
+	}
+}
+
+// growth is the growth law of the card; nil for normal growth.
+func (b *builder) growth() (kinetics.GrowthLaw, error) {
+	switch b.c.Choice("growth") {
+	case "viscosity-power":
+		return kinetics.ViscosityPower{Ug: b.given("growth_ug"), Xi: b.opt("growth_xi", 1)}, nil
+	case "arrhenius":
+		return kinetics.ArrheniusGrowth{U0: b.need("growth_u0", "pre-exponential of growth, for growth arrhenius"), Q: b.need("growth_q", "activation energy of growth, for growth arrhenius")}, nil
+	case "table":
+		return b.c.growthTable()
+	}
+	return nil, nil
 }
 
 // driving is the driving force of the card, for a molar volume vm.
@@ -196,16 +238,33 @@ func (b *builder) driving(vm float64) (cnt.DrivingForce, error) {
 // mobility is the card's mobility law, or for a card without one the law
 // its values belong to (the first value in Params order that only one law
 // reads), "none" without any.
-func (c *Card) mobility() string {
-	if c.Mobility != "" {
-		return c.Mobility
+func (c *Card) mobility() string { return c.Choice("mobility") }
+
+// Choice is the card's choice on a model axis (mobility, gamma_law,
+// growth): as written, or for a card without one the choice its values
+// belong to (the first value in Params order that only one choice reads),
+// or the axis's default (none, constant, normal).
+func (c *Card) Choice(axis string) string {
+	var given, none string
+	switch axis {
+	case "mobility":
+		given, none = c.Mobility, "none"
+	case "gamma_law":
+		given, none = c.GammaLaw, "constant"
+	case "growth":
+		given, none = c.Growth, "normal"
+	default:
+		panic("presets: no model axis " + axis)
+	}
+	if given != "" {
+		return given
 	}
 	for _, p := range Params {
-		if p.For.Axis == "mobility" && c.Has(p.Key) {
+		if p.For.Axis == axis && c.Has(p.Key) {
 			return p.For.Name
 		}
 	}
-	return "none"
+	return none
 }
 
 // tables are the data files a card names, read once: every sample of a
@@ -215,6 +274,39 @@ type tables struct {
 	driving     *cnt.Table
 	solFile     string
 	sol         *solubilityData
+	growthFile  string
+	growth      *kinetics.GrowthTable
+}
+
+// growthColumns are the columns of a measured growth-rate table.
+var growthColumns = []Column{
+	{Quantity: "temperature", Kind: units.Temperature, Required: true},
+	{Quantity: "growth_rate", Kind: units.Velocity, Required: true},
+}
+
+// growthTable is the card's measured growth rate, read on first use.
+func (c *Card) growthTable() (*kinetics.GrowthTable, error) {
+	if c.tables == nil {
+		c.tables = &tables{}
+	}
+	t := c.tables
+	if t.growth != nil && t.growthFile == c.GrowthFile {
+		return t.growth, nil
+	}
+	d, err := ReadDataFile(c.GrowthFile, nil, growthColumns)
+	if err != nil {
+		return nil, err
+	}
+	g, err := kinetics.NewGrowthTable(d.Columns["temperature"], d.Columns["growth_rate"], c.GrowthFile)
+	if err != nil {
+		var pe *kinetics.PointError
+		if errors.As(err, &pe) && pe.Index < len(d.Lines) {
+			return nil, fmt.Errorf("%s:%d: %s", c.GrowthFile, d.Lines[pe.Index], pe.Msg)
+		}
+		return nil, fmt.Errorf("%s: %v", c.GrowthFile, err)
+	}
+	t.growthFile, t.growth = c.GrowthFile, g
+	return g, nil
 }
 
 // drivingTable is the card's tabulated driving force, read on first use.

@@ -34,6 +34,10 @@ type Card struct {
 	SolubilityFile string // CSV of the solubility c_sat(T) for driving "solution", relative to the card
 	Mobility       string // one of MobilityChoices
 	Prefactor      string // one of PrefactorChoices
+	GammaLaw       string // one of GammaLawChoices; "": constant, or linear with gamma_slope
+	Growth         string // one of GrowthChoices; "": normal, or the law its values belong to
+	GrowthFile     string // CSV of the measured growth rate u(T) for growth "table", relative to the card
+	Standing       Standing
 	Values         map[string]Value
 	Spreads        map[string]SpreadSpec // [spread]: standard deviations of values, by key
 	File           string                // where it came from: a path, or "preset NAME"
@@ -55,6 +59,10 @@ type rawCard struct {
 	SolubilityTable string              `toml:"solubility_table"`
 	Mobility        string              `toml:"mobility"`
 	Prefactor       string              `toml:"prefactor"`
+	GammaLaw        string              `toml:"gamma_law"`
+	Growth          string              `toml:"growth"`
+	GrowthTable     string              `toml:"growth_table"`
+	Standing        *rawStanding        `toml:"standing"`
 	Values          map[string]rawValue `toml:"values"`
 	Spread          map[string]rawValue `toml:"spread"`
 }
@@ -119,8 +127,8 @@ func Parse(data []byte, file string) (*Card, error) {
 	c := &Card{
 		Name: raw.Name, Kind: raw.Kind, Description: raw.Description,
 		Driving: raw.Driving, DrivingFile: raw.DrivingTable, Mobility: raw.Mobility, Prefactor: raw.Prefactor,
-		SolubilityFile: raw.SolubilityTable,
-		Values:         map[string]Value{}, File: file,
+		SolubilityFile: raw.SolubilityTable, GammaLaw: raw.GammaLaw, Growth: raw.Growth, GrowthFile: raw.GrowthTable,
+		Values: map[string]Value{}, File: file,
 	}
 	topChecks := []struct {
 		key, val string
@@ -130,6 +138,8 @@ func Parse(data []byte, file string) (*Card, error) {
 		{"driving", c.Driving, DrivingChoices},
 		{"mobility", c.Mobility, MobilityChoices},
 		{"prefactor", c.Prefactor, PrefactorChoices},
+		{"gamma_law", c.GammaLaw, GammaLawChoices},
+		{"growth", c.Growth, GrowthChoices},
 	}
 	if c.Name == "" {
 		return nil, fmt.Errorf("%s: missing value for key \"name\"", file)
@@ -144,6 +154,12 @@ func Parse(data []byte, file string) (*Card, error) {
 	}
 	if c.Driving == "table" && c.DrivingFile == "" {
 		return nil, fmt.Errorf("%s: driving \"table\" needs driving_table = \"FILE.csv\"", file)
+	}
+	if (c.Growth == "table") != (c.GrowthFile != "") {
+		return nil, fmt.Errorf("%s:%d: growth \"table\" and growth_table = \"FILE.csv\" go together", file, lineOf(data, "growth"))
+	}
+	if c.Standing, err = standingOf(raw.Standing, file); err != nil {
+		return nil, err
 	}
 	for _, key := range sortedKeys(raw.Values) {
 		rv := raw.Values[key]
@@ -241,7 +257,10 @@ func allowedKeys(k toml.Key) string {
 		}
 		return strings.Join(paramKeys(), ", ")
 	}
-	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, [values], [spread]"
+	if len(k) > 1 && k[0] == "standing" {
+		return "calibrated, checked, error, note"
+	}
+	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, gamma_law, growth, growth_table, [values], [spread], [standing]"
 }
 
 // load reads a card from a file, at most MaxCardBytes of it.
@@ -263,6 +282,9 @@ func load(path string) (*Card, error) {
 	}
 	if c.SolubilityFile != "" && !filepath.IsAbs(c.SolubilityFile) {
 		c.SolubilityFile = filepath.Join(filepath.Dir(path), c.SolubilityFile)
+	}
+	if c.GrowthFile != "" && !filepath.IsAbs(c.GrowthFile) {
+		c.GrowthFile = filepath.Join(filepath.Dir(path), c.GrowthFile)
 	}
 	return c, nil
 }

@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 
+	"undercool/kinetics"
 	"undercool/kinetics/sample"
 	"undercool/presets/units"
 )
@@ -22,7 +23,7 @@ type Param struct {
 	// Spread is how a spread of the value is drawn by default: log-normal
 	// for a factor on a rate (its median the value), normal otherwise.
 	Spread sample.Distribution
-	Group  string // the help group: material, mobility, prefactor, solution, alloy or crystallizer
+	Group  string // the help group: material, mobility, prefactor, growth, solution, alloy or crystallizer
 	// For is the model choice that reads the value; zero for a value more
 	// than one model reads. Giving a value of the solution driving force on
 	// the command line chooses that driving force, and a card without a
@@ -47,7 +48,7 @@ func (p Param) Units() string {
 
 // Choice is one model choice of a card: its axis and its name.
 type Choice struct {
-	Axis string // "driving", "mobility" or "prefactor"
+	Axis string // "driving", "mobility", "prefactor", "gamma_law" or "growth"
 	Name string // one of the axis's choices, e.g. "vft"
 }
 
@@ -141,6 +142,17 @@ var Params = []Param{
 	{"kv", []units.Kind{units.Dimensionless}, "volume shape factor k_v of a crystal, volume = k_v L^3; default pi/6 (a sphere of diameter L)", positive, normal, "crystallizer", Choice{}},
 	{"seed_mass", []units.Kind{units.MassConcentration}, "seed crystals charged, mass per volume of solvent (evolve)", positive, normal, "crystallizer", Choice{}},
 	{"seed_size", []units.Kind{units.Length}, "size L of the seed crystals (evolve)", positive, normal, "crystallizer", Choice{}},
+	// The interface law, the glassy state, growth calibrated on its own and
+	// the range a card was calibrated on.
+	{"gamma_t_ref", []units.Kind{units.Temperature}, "temperature at which gamma is given, for gamma_law linear or negentropic", positive, normal, "material", Choice{}},
+	{"gamma_slope", []units.Kind{units.InterfacialEnergySlope}, "dgamma/dT of gamma_law linear, gamma(T) = gamma + gamma_slope (T - gamma_t_ref)", anyFinite, normal, "material", Choice{"gamma_law", "linear"}},
+	{"glass_q", []units.Kind{units.MolarEnergy}, "activation energy of the viscosity below Tg, the Arrhenius continuation of the viscosity law from Tg in the glass", positive, normal, "mobility", Choice{}},
+	{"growth_ug", []units.Kind{units.Velocity}, "kinetic coefficient of growth at Tg, for growth viscosity-power; default the Stokes-Einstein value", positive, logNormal, "growth", Choice{"growth", "viscosity-power"}},
+	{"growth_xi", []units.Kind{units.Dimensionless}, "decoupling exponent xi of growth viscosity-power, u ~ (1/eta)^xi, > 0; default 1", positive, normal, "growth", Choice{"growth", "viscosity-power"}},
+	{"growth_u0", []units.Kind{units.Velocity}, "pre-exponential of the kinetic coefficient, for growth arrhenius", positive, logNormal, "growth", Choice{"growth", "arrhenius"}},
+	{"growth_q", []units.Kind{units.MolarEnergy}, "activation energy of the kinetic coefficient, for growth arrhenius", nonNegative, normal, "growth", Choice{"growth", "arrhenius"}},
+	{"calibrated_t_min", []units.Kind{units.Temperature}, "lowest temperature the card was calibrated on; answers below it are flagged", positive, normal, "material", Choice{}},
+	{"calibrated_t_max", []units.Kind{units.Temperature}, "highest temperature the card was calibrated on; answers above it are flagged", positive, normal, "material", Choice{}},
 }
 
 // concKinds are the families a concentration or a solubility may be
@@ -183,4 +195,8 @@ var (
 	MobilityChoices  = []string{"arrhenius", "vft", "wlf", "none", "stokes-einstein", "diffusivity"}
 	KindChoices      = []string{"metal", "glass", "molecular", "solution", "demo"}
 	PrefactorChoices = []string{"attachment", "turnbull-fisher", "fixed", "diffusion"}
+	GammaLawChoices  = kinetics.GammaLawNames()
+	// GrowthChoices are the growth laws: normal (from the mobility law),
+	// viscosity-power, arrhenius, or a measured table (a file).
+	GrowthChoices = []string{"normal", "viscosity-power", "arrhenius", "table"}
 )

@@ -35,6 +35,15 @@ func (c *Card) TOML(header []string) []byte {
 	if c.Prefactor != "" {
 		fmt.Fprintf(&b, "prefactor = %s\n", tomlString(c.Prefactor))
 	}
+	if c.GammaLaw != "" {
+		fmt.Fprintf(&b, "gamma_law = %s\n", tomlString(c.GammaLaw))
+	}
+	if c.Growth != "" {
+		fmt.Fprintf(&b, "growth = %s\n", tomlString(c.Growth))
+	}
+	if c.Growth == "table" && c.GrowthFile != "" {
+		fmt.Fprintf(&b, "growth_table = %s\n", tomlString(absolute(c.GrowthFile)))
+	}
 	b.WriteString("\n[values]\n")
 	width := 0
 	for _, p := range Params {
@@ -47,7 +56,33 @@ func (c *Card) TOML(header []string) []byte {
 			fmt.Fprintf(&b, "%-*s = { value = %s, source = %s }\n", width, p.Key, tomlString(v.Text), tomlString(v.Source))
 		}
 	}
+	writeStanding(&b, c.Standing)
 	return b.Bytes()
+}
+
+// writeStanding writes the [standing] table of a card that states one.
+func writeStanding(b *bytes.Buffer, s Standing) {
+	if len(s.Calibrated) == 0 && len(s.Checked) == 0 && s.Note == "" {
+		return
+	}
+	list := func(rows []string) string {
+		q := make([]string, len(rows))
+		for i, r := range rows {
+			q[i] = tomlString(r)
+		}
+		return "[" + strings.Join(q, ", ") + "]"
+	}
+	b.WriteString("\n[standing]\n")
+	if len(s.Calibrated) > 0 {
+		fmt.Fprintf(b, "calibrated = %s\n", list(s.Calibrated))
+	}
+	if len(s.Checked) > 0 {
+		fmt.Fprintf(b, "checked = %s\n", list(s.Checked))
+		fmt.Fprintf(b, "error = %s\n", tomlString(s.Error))
+	}
+	if s.Note != "" {
+		fmt.Fprintf(b, "note = %s\n", tomlString(s.Note))
+	}
 }
 
 func absolute(p string) string {

@@ -152,8 +152,8 @@ func (c *Card) unused(p Param) string {
 		switch p.For.Axis {
 		case "driving":
 			now = c.Driving
-		case "mobility":
-			now = c.mobility()
+		case "mobility", "gamma_law", "growth":
+			now = c.Choice(p.For.Axis)
 		default:
 			now = c.Prefactor
 			if now == "" {

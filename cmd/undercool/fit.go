@@ -14,23 +14,26 @@ func init() {
 	commands["fit"] = &command{
 		summary: "Fit a model to measurements in a CSV file whose header names carry units: " +
 			"arrhenius (Q and the pre-exponential from ln y against 1/T), " +
-			"interface (the interfacial energy and a prefactor scale from measured nucleation rates, the rest of the material from --material and flags) or " +
+			"interface (the interfacial energy and a prefactor scale from measured nucleation rates, the rest of the material from --material and flags; with --gamma-law linear, gamma at --gamma-t-ref and its slope dgamma/dT together) or " +
+			"growth (the kinetic coefficient of growth from measured growth rates, columns temperature_UNIT and growth_rate_UNIT: log10 u_g and the decoupling exponent xi of the viscosity-power law, or u_0 and Q_u of the Arrhenius law with --growth arrhenius; the driving force and viscosity from --material) or " +
 			"avrami (n and k from transformed fractions against time) or " +
 			"induction (the interfacial energy and the apparent prefactor A of a solution from induction times, ln t against 1/(T^3 ln^2 S); columns temperature_UNIT, supersaturation, induction_time_UNIT). " +
 			"Estimates come with standard errors and 95 % intervals (Student t, N - 2 degrees of freedom); two points give the exact answer and no interval. " +
 			"Lines starting with # are comments; FILE - reads standard input.",
-		usage:   "undercool fit arrhenius|interface|avrami|induction FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
+		usage:   "undercool fit arrhenius|interface|growth|avrami|induction FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--keep-prefactor] [--keep-xi] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
 		example: "undercool fit arrhenius testdata/fit/diffusion.csv --card-out solute.toml",
 		setup:   setupFit,
 	}
 }
 
 // fitKinds are the accepted first arguments of fit.
-var fitKinds = []string{"arrhenius", "interface", "avrami", "induction"}
+var fitKinds = []string{"arrhenius", "interface", "growth", "avrami", "induction"}
 
 // fitFlags are the flags of the fit command.
 type fitFlags struct {
 	weights bool
+	keepA   bool
+	keepXi  bool
 	cardOut *pathFlag
 	kind    *choiceFlag
 	plot    *plotFlag
@@ -42,7 +45,9 @@ type fitFlags struct {
 func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
 	f := &fitFlags{}
 	fs.BoolVar(&f.weights, "weights", false, "weigh the points by the file's weight column (relative weights on the logarithm, each > 0)")
-	f.cardOut = addOutput(fs, "card-out", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface)")
+	fs.BoolVar(&f.keepA, "keep-prefactor", false, "fit interface: hold the material's prefactor (A = 1) and fit only the interfacial energy (and its slope)")
+	fs.BoolVar(&f.keepXi, "keep-xi", false, "fit growth: hold the decoupling exponent xi at the material's (--growth-xi, default 1) and fit only u_g")
+	f.cardOut = addOutput(fs, "card-out", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface, growth)")
 	f.kind = addChoice(fs, "kind", "metal", presets.KindChoices, "kind of material written by arrhenius --card-out without --material: "+strings.Join(presets.KindChoices, ", "))
 	f.plot = addPlot(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot)")
 	f.mf = addMaterialFlags(fs)
@@ -59,6 +64,12 @@ func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
 		}
 		if len(args) != 2 {
 			return usagef("fit %s: give one data file (or - for standard input), got %d arguments", kind, len(args)-1)
+		}
+		if f.keepA && kind != "interface" {
+			return usagef("--keep-prefactor: only fit interface holds a prefactor")
+		}
+		if f.keepXi && kind != "growth" {
+			return usagef("--keep-xi: only fit growth has the exponent xi")
 		}
 		if f.cardOut.set && !strings.HasSuffix(strings.ToLower(f.cardOut.text), ".toml") {
 			return usagef("--card-out: %q must end in .toml", f.cardOut.text)
@@ -122,6 +133,9 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 		if err := answer.StartGamma(c, data); err != nil {
 			return nil, nil, usage(err)
 		}
+		if c, err = answer.InterfaceCard(c, data); err != nil {
+			return nil, nil, err
+		}
 		md, err := c.Model()
 		if err != nil {
 			return nil, nil, usage(err)
@@ -129,7 +143,47 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 		if !md.HasRate() {
 			return nil, nil, usagef("fit interface: the material has no rate; give a mobility law (--mobility with its values) or --prefactor fixed with --j0")
 		}
-		a, err := answer.Interface(c, md, data, flagNames)
+		a, err := answer.Interface(c, md, data, f.keepA, flagNames)
+		if err != nil {
+			return nil, nil, err
+		}
+		return a, a.Card, nil
+	case "growth":
+		if f.mf.given() == "" {
+			return nil, nil, usagef("fit growth: give the material with --material NAME|FILE.toml (and flags); its driving force and viscosity are used")
+		}
+		c, err := f.mf.card()
+		if err != nil {
+			return nil, nil, err
+		}
+		// The fit needs the driving force and the viscosity, not the law it
+		// fits: the model is built with normal growth unless ξ is held.
+		law := c.Choice("growth")
+		if f.keepXi && law == "arrhenius" {
+			return nil, nil, usagef("--keep-xi: the exponent xi belongs to the viscosity-power law, not arrhenius")
+		}
+		base := c.Clone()
+		if !f.keepXi {
+			base.Growth, base.GrowthFile = "normal", ""
+		}
+		md, err := base.Model()
+		if err != nil {
+			return nil, nil, usage(err)
+		}
+		if law != "arrhenius" {
+			law = "viscosity-power"
+			if !md.HasViscosity() {
+				law = "arrhenius"
+			}
+		}
+		if f.keepXi && law != "viscosity-power" {
+			return nil, nil, usagef("--keep-xi: the exponent xi belongs to the viscosity-power law, not %s", law)
+		}
+		data, err := read(answer.GrowthColumns())
+		if err != nil {
+			return nil, nil, err
+		}
+		a, err := answer.Growth(c, md, data, law, f.keepXi, flagNames)
 		if err != nil {
 			return nil, nil, err
 		}

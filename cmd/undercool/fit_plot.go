@@ -79,6 +79,8 @@ func fitPlot(pf *plotFlag, a answer.Answer) error {
 		return avramiPlot(pf, a.Data.Name(), a.Time, a.X, a.Fit)
 	case *answer.FitInduction:
 		return inductionPlot(pf, a.Data.Name(), a.Times, a.Fit)
+	case *answer.FitGrowth:
+		return growthPlot(pf, a.Data.Name(), a.T, a.U, a.Fit)
 	}
 	panic(fmt.Sprintf("undercool: fitPlot: %T", a))
 }
@@ -207,4 +209,54 @@ func inductionPlot(pf *plotFlag, file string, t []float64, res *fit.InductionFit
 		return err
 	}
 	return savePlots(pf, p)
+}
+
+// growthPlot is two panels: log10 u measured and fitted against T, and
+// the straight line the fit is made on.
+func growthPlot(pf *plotFlag, file string, T, u []float64, res *fit.GrowthFit) error {
+	pts := make(plotter.XYs, len(T))
+	for i, t := range T {
+		pts[i] = plotter.XY{X: t, Y: math.Log10(u[i])}
+	}
+	lo, hi := span(T)
+	line := fittedLine(lo, hi, 60, func(t float64) (float64, bool) {
+		g := res.Model.GrowthRate(t)
+		return math.Log10(g), g > 0
+	})
+	p := plot.New()
+	p.Title.Text = "growth fit (" + res.Law + "), " + file
+	p.X.Label.Text = "temperature (K)"
+	p.Y.Label.Text = "log10 u (m/s)"
+	p.X.Tick.Marker = plainTicks{}
+	p.X.Min, p.X.Max = lo, hi
+	name := fmt.Sprintf("fit, u_g = %.3g m/s, xi = %.3g", res.Ug, res.Xi)
+	if res.Law == "arrhenius" {
+		name = fmt.Sprintf("fit, Q_u = %.4g kJ/mol", res.Arrhenius.Q/1e3)
+	}
+	if err := dataAndLine(p, pts, line, "data", name); err != nil {
+		return err
+	}
+	plots := []*plot.Plot{p}
+	if res.Line != nil {
+		sp := make(plotter.XYs, len(T))
+		for i := range T {
+			sp[i] = plotter.XY{X: res.X[i], Y: res.Y[i]}
+		}
+		xlo, xhi := span(res.X)
+		sl := fittedLine(xlo, xhi, 2, func(x float64) (float64, bool) { return res.Line.At(x), true })
+		q := plot.New()
+		q.Title.Text = "the straight line fitted"
+		q.X.Label.Text = "log10 eta(Tg) - log10 eta(T)"
+		q.Y.Label.Text = "log10 u - log10[(T/Tg)(1 - exp(-dmu/kT))]"
+		if res.Law == "arrhenius" {
+			q.X.Label.Text = "1/T (1/K)"
+			q.Y.Label.Text = "ln(u/[1 - exp(-dmu/kT)])"
+		}
+		q.X.Min, q.X.Max = xlo, xhi
+		if err := dataAndLine(q, sp, sl, "data", "straight line"); err != nil {
+			return err
+		}
+		plots = append(plots, q)
+	}
+	return savePlots(pf, plots...)
 }

@@ -126,7 +126,16 @@ var goldenCases = []struct {
 		"--material", "../../testdata/solution/demo-solute-a.toml", "--volume", "100mL"}},
 	{"fit-induction-novolume.json", []string{"fit", "induction", "../../testdata/solution/demo-solute-a-induction.csv",
 		"--vm", "120cm3/mol", "--format", "json"}},
+	{"fit-growth.json", []string{"fit", "growth", "../../testdata/measured/lithium-disilicate-growth.csv", "--material", "lithium-disilicate", "--format", "json"}},
+	{"fit-growth.txt", []string{"fit", "growth", "../../testdata/measured/lithium-disilicate-growth.csv", "--material", "lithium-disilicate"}},
+	{"fit-interface-linear.txt", []string{"fit", "interface", "../../testdata/measured/lithium-disilicate-nucleation.csv", "--material", "lithium-disilicate", "--keep-prefactor"}},
+	{"fit-interface-linear.json", []string{"fit", "interface", "../../testdata/measured/lithium-disilicate-nucleation.csv", "--material", "lithium-disilicate", "--format", "json"}},
+	// calibrated cards: the glassy branch, the calibrated range
+	{"hold-indomethacin.txt", []string{"hold", "--material", "indomethacin", "--at", "25C", "--fraction", "0.01"}},
+	{"hold-indomethacin.json", []string{"hold", "--material", "indomethacin", "--at", "0C", "--fraction", "0.01", "--format", "json"}},
+	{"ttt-vit1.txt", []string{"ttt", "--material", "vit1", "--range", "990:650:20"}},
 	// materials
+	{"materials-lithium-disilicate.txt", []string{"materials", "lithium-disilicate"}},
 	{"materials.json", []string{"materials", "--format", "json"}},
 	{"materials.txt", []string{"materials"}},
 	{"materials-demo.json", []string{"materials", "demo-alloy", "--format", "json"}},

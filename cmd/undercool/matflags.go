@@ -17,6 +17,8 @@ type materialFlags struct {
 	driving    *choiceFlag
 	mobility   *choiceFlag
 	prefactor  *choiceFlag
+	gammaLaw   *choiceFlag
+	growth     *choiceFlag
 	solubility *textFlag
 	values     []*valueFlag // in the order of presets.Params
 }
@@ -77,6 +79,11 @@ func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 	mf.driving.other, mf.driving.msg = isCSV, driving+", or a FILE.csv"
 	mf.mobility = addChoice(fs, "mobility", "", presets.MobilityChoices, "mobility law: "+strings.Join(presets.MobilityChoices, ", ")+" (stokes-einstein and diffusivity: a solute in a solvent)")
 	mf.prefactor = addChoice(fs, "prefactor", "", presets.PrefactorChoices, "rate prefactor: "+strings.Join(presets.PrefactorChoices, ", ")+" (attachment: the default; diffusion: solutions)")
+	mf.gammaLaw = addChoice(fs, "gamma-law", "", presets.GammaLawChoices, "interfacial energy law: "+strings.Join(presets.GammaLawChoices, ", ")+" (linear: --gamma at --gamma-t-ref plus --gamma-slope (T - ref); negentropic: gamma proportional to T)")
+	growth := choicesHelp(presets.GrowthChoices)
+	mf.growth = addChoice(fs, "growth", "", presets.GrowthChoices, "growth law: "+growth+" (viscosity-power: --growth-ug, --growth-xi; arrhenius: --growth-u0, --growth-q), or FILE.csv with temperature_k and growth_rate_m_per_s columns")
+	mf.growth.choices = without(presets.GrowthChoices, "table")
+	mf.growth.other, mf.growth.msg = isCSV, growth+", or a FILE.csv"
 	mf.solubility = addText(fs, "solubility", "solubility table FILE.csv (temperature_UNIT, solubility_UNIT) for driving solution, with --conc or --sat-temp")
 	setGroup(fs, groupMaterial, "material", "driving", "mobility", "prefactor")
 	setGroup(fs, groupSolution, "solubility")
@@ -110,7 +117,7 @@ func (mf *materialFlags) given() string {
 		name string
 		set  bool
 	}{{"material", mf.material.set}, {"driving", mf.driving.set}, {"mobility", mf.mobility.set},
-		{"prefactor", mf.prefactor.set}, {"solubility", mf.solubility.set}}
+		{"prefactor", mf.prefactor.set}, {"gamma-law", mf.gammaLaw.set}, {"growth", mf.growth.set}, {"solubility", mf.solubility.set}}
 	for _, f := range named {
 		if f.set {
 			return f.name
@@ -136,8 +143,10 @@ func (mf *materialFlags) card() (*presets.Card, error) {
 		c = &presets.Card{Name: "command line", Kind: "demo", Driving: "linear", Values: map[string]presets.Value{}, File: "command line"}
 	}
 	solution := mf.solubility.set
+	var changed []string
 	for _, f := range mf.values {
 		if f.set {
+			changed = append(changed, f.p.Key)
 			c.Values[f.p.Key] = f.v
 			solution = solution || f.p.For == presets.Choice{Axis: "driving", Name: "solution"}
 		}
@@ -166,9 +175,28 @@ func (mf *materialFlags) card() (*presets.Card, error) {
 	if mf.prefactor.set {
 		c.Prefactor = mf.prefactor.value
 	}
+	if mf.gammaLaw.set {
+		c.GammaLaw = mf.gammaLaw.value
+	}
+	if g := mf.growth; g.set {
+		if strings.HasSuffix(strings.ToLower(g.value), ".csv") {
+			c.Growth, c.GrowthFile = "table", g.value
+		} else {
+			c.Growth, c.GrowthFile = g.value, ""
+		}
+	}
+	for _, f := range []struct {
+		name string
+		set  bool
+	}{{"driving", mf.driving.set}, {"mobility", mf.mobility.set}, {"prefactor", mf.prefactor.set}, {"gamma_law", mf.gammaLaw.set}, {"growth", mf.growth.set}} {
+		if f.set {
+			changed = append(changed, f.name)
+		}
+	}
+	c.Changed(changed)
 	// The tables the card or the flags name are inputs too.
 	if fl := mf.material.files; fl != nil {
-		for _, path := range []string{c.DrivingFile, c.SolubilityFile} {
+		for _, path := range []string{c.DrivingFile, c.SolubilityFile, c.GrowthFile} {
 			if err := fl.input(path); err != nil {
 				return nil, err
 			}

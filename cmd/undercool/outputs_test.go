@@ -100,10 +100,10 @@ var outputCases = []struct {
 
 	// The time to a fraction at one temperature, on an invented card written for
 	// this test (values invented; not a real material).
-	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K"}, []check{{"stdout", false, `^undercool hold: time to transform at one temperature`}, {"stdout", false, `^time to X = 1e-06 at 800\.00 K \(526\.85 °C\): 7\.29 s$`}, {"stdout", false, `^undercooling 350\.00 K; driving force 3546 J/mol$`}, {"stdout", false, `^critical nucleus: radius 0\.7738 nm, 119\.3 molecules`}, {"stdout", false, `^nucleation rate: log10 J = 17\.067`}, {"stdout", false, `^growth rate: u = 1\.425e-09 m/s$`}, {"stdout", true, `NaN|Inf`}}},
+	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K"}, []check{{"stdout", false, `^undercool hold: time to transform at one temperature`}, {"stdout", false, `^time to X = 1e-06 at 800\.00 K \(526\.85 °C\): 7\.29 s \(estimate\)$`}, {"stdout", false, `^undercooling 350\.00 K; driving force 3546 J/mol \(estimate\)$`}, {"stdout", false, `^critical nucleus: radius 0\.7738 nm, 119\.3 molecules`}, {"stdout", false, `^nucleation rate: log10 J = 17\.067`}, {"stdout", false, `^growth rate: u = 1\.425e-09 m/s \(estimate\)$`}, {"stdout", true, `NaN|Inf`}}},
 
 	// Celsius; a longer time in readable units with the seconds beside it.
-	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "726.85C", "--fraction", "0.5"}, []check{{"stdout", false, `at 1000\.00 K \(726\.85 °C\): 5\.34 years \(1\.685e\+08 s\)$`}}},
+	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "726.85C", "--fraction", "0.5"}, []check{{"stdout", false, `at 1000\.00 K \(726\.85 °C\): 5\.34 years \(1\.685e\+08 s\) \(estimate\)$`}}},
 	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "1000", "--fraction", "0.5", "--format", "json"}, []check{{"stdout", false, `"temperature_k": 1000,`}, {"stdout", false, `"fraction": 0\.5,`}, {"stdout", false, `"time_s": 1685149`}, {"stdout", false, `"never": false`}, {"stdout", false, `"log10_rate_per_m3_s": `}, {"stdout", false, `"growth_rate_m_per_s": `}, {"stdout", false, `"critical_radius_m": `}}},
 
 	// Above T_e it never happens: say so, exit 0, time_s null.
@@ -114,8 +114,8 @@ var outputCases = []struct {
 	{"hold_basic", []string{"hold", "--te", "1300K", "--dh", "55kJ/mol", "--vm", "60cm3/mol", "--gamma", "0.18J/m2", "--mobility", "vft", "--vft-a", "-3", "--vft-b", "4500K", "--vft-t0", "500K", "--at", "450K"}, []check{{"stdout", false, `never: no mobility`}}},
 
 	// The time lag, site saturation, CSV, markdown.
-	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K", "--lag"}, []check{{"stdout", false, `^time lag: .* \(included in the time\)$`}}},
-	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K", "--nuclei", "1e18"}, []check{{"stdout", false, `^nuclei: 1e\+18 per m3, present from the start$`}}},
+	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K", "--lag"}, []check{{"stdout", false, `^time lag: .* \(included in the time\) \(estimate\)$`}}},
+	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K", "--nuclei", "1e18"}, []check{{"stdout", false, `^nuclei: 1e\+18 per m3, present from the start \(estimate\)$`}}},
 	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K", "--format", "csv"}, []check{{"stdout", false, `^temperature_k,fraction,time_s,log10_rate_per_m3_s,growth_rate_m_per_s,critical_radius_m,critical_size,barrier_j,time_lag_s,flags$`}, {"stdout", false, `^800,1e-06,7\.289`}}},
 	{"hold_basic", []string{"hold", "--material", "$WORK/alloy.toml", "--at", "800K", "--format", "markdown"}, []check{{"stdout", false, `^- time to X = 1e-06 at 800\.00 K`}}},
 
@@ -180,7 +180,7 @@ var outputCases = []struct {
 	// A = 1e3 m⁻³ s⁻¹, u = 1e-8 m/s, X = 1e-6:
 	// ΔG*/kT = 4.28803, log10 J = 1.13773, n* = 12.373,
 	// t_mono = 728.23 s in 100 mL and 72823 s in 1 mL, t_poly = 16239 s.
-	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "25C", "--supersaturation", "2", "--volume", "100mL"}, []check{{"stdout", false, `^undercool hold: induction time of a held volume`}, {"stdout", false, `^solution: fixed supersaturation S = 2 \(ln S = 0\.6931\)`}, {"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 298\.15 K \(25\.00 °C\): 12\.1 min \(728\.2 s\)$`}, {"stdout", false, `^polynuclear time to X = 1e-06 \(many nuclei growing, JMAK\): 4\.51 h \(1\.624e\+04 s\)$`}, {"stdout", false, `^dominates: polynuclear`}, {"stdout", false, `^critical nucleus: radius 0\.838 nm, 12\.37 molecules, barrier 1\.765e-20 J \(4\.288 kT\)$`}, {"stdout", false, `^nucleation rate: log10 J = 1\.138 `}, {"stdout", false, `flag low_barrier`}, {"stdout", true, `NaN|Inf`}}},
+	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "25C", "--supersaturation", "2", "--volume", "100mL"}, []check{{"stdout", false, `^undercool hold: induction time of a held volume`}, {"stdout", false, `^solution: fixed supersaturation S = 2 \(ln S = 0\.6931\)`}, {"stdout", false, `^induction time, mononuclear \(first nucleus, 1/\(J V\)\) at 298\.15 K \(25\.00 °C\): 12\.1 min \(728\.2 s\) \(estimate\)$`}, {"stdout", false, `^polynuclear time to X = 1e-06 \(many nuclei growing, JMAK\): 4\.51 h \(1\.624e\+04 s\) \(estimate\)$`}, {"stdout", false, `^dominates: polynuclear`}, {"stdout", false, `^critical nucleus: radius 0\.838 nm, 12\.37 molecules, barrier 1\.765e-20 J \(4\.288 kT\) \(estimate\)$`}, {"stdout", false, `^nucleation rate: log10 J = 1\.138 `}, {"stdout", false, `flag low_barrier`}, {"stdout", true, `NaN|Inf`}}},
 
 	// A small vessel: the wait for the first nucleus dominates.
 	{"solution_hold", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "25C", "--supersaturation", "2", "--volume", "1mL", "--format", "json"}, []check{{"stdout", false, `"induction_time_s": 72822\.8`}, {"stdout", false, `"polynuclear_time_s": 16239\.0`}, {"stdout", false, `"dominant": "mononuclear"`}, {"stdout", false, `"supersaturation": 2,`}, {"stdout", false, `"volume_m3": 0\.000001,`}, {"stdout", true, `NaN|Inf`}}},
@@ -239,13 +239,13 @@ var outputCases = []struct {
 
 	// The TTT table and its nose, on an invented card written for this test
 	// (values invented; not a real material).
-	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--range", "1100:700:100"}, []check{{"stdout", false, `^undercool ttt: time to transform in an isothermal hold`}, {"stdout", false, `transformation: JMAK 3-D, continuous nucleation \(Avrami exponent 4\), no time lag`}, {"stdout", false, `^nose: 831\.55 K \(558\.40 °C\), 6\.01 s$`}, {"stdout", false, `time to X = 1e-06`}, {"stdout", false, `1100\.00 .* 3\.97e\+73 years`}, {"stdout", false, `900\.00 .* 20\.8 s`}, {"stdout", false, `nose searched between 700\.00 and 1100\.00 K to 0\.01 K`}, {"stdout", true, `NaN|Inf`}}},
+	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--range", "1100:700:100"}, []check{{"stdout", false, `^undercool ttt: time to transform in an isothermal hold`}, {"stdout", false, `transformation: JMAK 3-D, continuous nucleation \(Avrami exponent 4\), no time lag`}, {"stdout", false, `^nose: 831\.55 K \(558\.40 °C\), 6\.01 s \(estimate\)$`}, {"stdout", false, `time to X = 1e-06`}, {"stdout", false, `1100\.00 .* 3\.97e\+73 years`}, {"stdout", false, `900\.00 .* 20\.8 s`}, {"stdout", false, `nose searched between 700\.00 and 1100\.00 K to 0\.01 K`}, {"stdout", true, `NaN|Inf`}}},
 
 	// JSON: seconds, the nose, null for never.
 	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--temps", "1200,900,700", "--format", "json"}, []check{{"stdout", false, `"fraction": 0\.000001,`}, {"stdout", false, `"nose": \{`}, {"stdout", false, `"inside_range": true`}, {"stdout", false, `"temperature_k": 831\.5[4-6]`}, {"stdout", false, `"time_s": 6\.014`}, {"stdout", false, `"time_s": null`}, {"stdout", false, `"time_s": 20\.79`}, {"stdout", true, `NaN|Inf`}}},
 
 	// Several fractions: start, middle and finish; the nose temperature is the same.
-	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--fraction", "0.01,0.5,0.99", "--temps", "900,800"}, []check{{"stdout", false, `^nose \(X = 0\.01\): 831\.55 K \(558\.40 °C\), 1\.00 min$`}, {"stdout", false, `^nose \(X = 0\.5\): 831\.55 K \(558\.40 °C\), 2\.89 min$`}, {"stdout", false, `^nose \(X = 0\.99\): 831\.55 K \(558\.40 °C\), 4\.64 min$`}, {"stdout", false, `time to X = 0\.01 .* time to X = 0\.5 .* time to X = 0\.99`}}},
+	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--fraction", "0.01,0.5,0.99", "--temps", "900,800"}, []check{{"stdout", false, `^nose \(X = 0\.01\): 831\.55 K \(558\.40 °C\), 1\.00 min \(estimate\)$`}, {"stdout", false, `^nose \(X = 0\.5\): 831\.55 K \(558\.40 °C\), 2\.89 min \(estimate\)$`}, {"stdout", false, `^nose \(X = 0\.99\): 831\.55 K \(558\.40 °C\), 4\.64 min \(estimate\)$`}, {"stdout", false, `time to X = 0\.01 .* time to X = 0\.5 .* time to X = 0\.99`}}},
 	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--fraction", "0.01,0.5", "--temps", "900", "--format", "json"}, []check{{"stdout", false, `"fraction": \[`}, {"stdout", false, `"time_s": \[`}}},
 	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--fraction", "0.01,0.5", "--temps", "900", "--format", "csv"}, []check{{"stdout", false, `^temperature_k,temperature_c,time_s_x_0\.01,time_s_x_0\.5,flags$`}, {"stdout", false, `^900,626\.85,`}}},
 
@@ -305,7 +305,7 @@ var outputCases = []struct {
 
 	// --columns chooses columns by their JSON keys, in the order given, in
 	// the table, CSV and Markdown (a hold's CSV is its one record).
-	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,log10_rate_per_m3_s"}, []check{{"stdout", false, `^│ +T \(K\) +│ log10 J \(m\^-3 s\^-1\) │$`}, {"stdout", false, `^│ +900\.00 │ +11\.294 │$`}, {"stdout", true, `not shown`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,log10_rate_per_m3_s"}, []check{{"stdout", false, `^│ +T \(K\) +│ log10 J \(m\^-3 s\^-1\) \(estimate\) │$`}, {"stdout", false, `^│ +900\.00 │ +11\.294 │$`}, {"stdout", true, `not shown`}}},
 	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "log10_rate_per_m3_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^log10_rate_per_m3_s,temperature_k$`}, {"stdout", false, `^11\.29[0-9]*,900$`}}},
 	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,critical_size", "--format", "markdown"}, []check{{"stdout", false, `^\| +T \(K\) +\| +n\* +\|$`}}},
 	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "900K", "--columns", "time_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^time_s,temperature_k$`}}},
@@ -325,9 +325,9 @@ var outputCases = []struct {
 	// The same quantity prints the same everywhere: the nose of vit1 in
 	// ttt, cool and the memo; a cooling rate with three digits; a measured
 	// curve's span in cool and the memo.
-	{"hold", []string{"ttt", "--material", "vit1"}, []check{{"stdout", false, `^nose: 733\.10 K \(459\.95 °C\), 24\.8 s$`}}},
-	{"hold", []string{"cool", "--material", "vit1", "--critical"}, []check{{"stdout", false, `^critical cooling rate to stay below X = 1e-06 at 625\.00 K: 0\.930 K/s `}, {"stdout", false, `^nose estimate \(Te - T_nose\)/t_nose: 8\.24 K/s \(nose 733\.10 K, 24\.8 s\)`}}},
-	{"hold", []string{"report", "--material", "vit1", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `^\| nose temperature +\| 733\.10 K \(459\.95 °C\) +\|`}, {"stdout", false, `^\| critical cooling rate +\| 0\.930 K/s +\|`}, {"stdout", false, `^\| nose estimate .*\| 8\.24 K/s +\|`}}},
+	{"hold", []string{"ttt", "--material", "vit1"}, []check{{"stdout", false, `^nose: 895\.00 K \(621\.85 °C\), 1\.00 min$`}}},
+	{"hold", []string{"cool", "--material", "vit1", "--critical"}, []check{{"stdout", false, `^critical cooling rate to stay below X = 1e-06 at 625\.00 K: 0\.726 K/s `}, {"stdout", false, `^nose estimate \(Te - T_nose\)/t_nose: 1\.63 K/s \(nose 895\.00 K, 1\.00 min\)`}}},
+	{"hold", []string{"report", "--material", "vit1", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `^\| nose temperature +\| 895\.00 K \(621\.85 °C\) +\|`}, {"stdout", false, `^\| critical cooling rate +\| 0\.726 K/s +\|`}, {"stdout", false, `^\| nose estimate .*\| 1\.63 K/s +\|`}}},
 	{"hold", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, []check{{"stdout", false, `, 1199\.75 K to 305\.65 K over 2\.50 min \(lowest 303\.95 K\)$`}}},
 	{"hold", []string{"report", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--date", "2026-01-15", "--out", "-"}, []check{{"stdout", false, `\(403 points, 1199\.75 K to 305\.65 K over 2\.50 min \(lowest 303\.95 K\)\)`}}},
 

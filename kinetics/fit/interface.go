@@ -54,6 +54,16 @@ type InterfaceFit struct {
 	Model              *kinetics.Model // the material with the fitted γ (scale not applied)
 	Flags              kinetics.Flag   // validity flags of the fitted model at the data temperatures
 
+	// The law fitted: γ above is γ(TRef) of a linear or negentropic law;
+	// Slope is dγ/dT of a linear law fitted with it (InterfaceWith).
+	Law       kinetics.GammaLaw
+	TRef      float64    // K; 0 for a constant γ
+	Slope     float64    // J/(m²·K); 0 unless fitted
+	SlopeSE   float64    // NaN when exact or not fitted
+	SlopeCI   [2]float64 // 95 % interval of the slope
+	KeepScale bool       // the prefactor was held (A = 1), not fitted
+	Params    int        // the number of parameters fitted (0: 2, γ and A)
+
 	// The classical plot and the γ from its slope (NaN when the slope is not negative).
 	LinearX, LinearY []float64 // 1/(T·Δg_v²) in m⁶/(J²·K); ln J − ln D (ln J without a mobility law)
 	Linear           *LineFit
@@ -68,6 +78,9 @@ func (f *InterfaceFit) Exact() bool { return f.DoF == 0 }
 // fixed prefactor J0 multiplied by A.
 func (f *InterfaceFit) Fitted() kinetics.Material {
 	m := f.Model.Material()
+	if f.KeepScale {
+		return m
+	}
 	if m.Prefactor == kinetics.PrefactorFixed {
 		m.J0 *= f.Scale
 	} else {
@@ -85,43 +98,10 @@ func (f *InterfaceFit) Fitted() kinetics.Material {
 // and an error when all temperatures are equal or no γ in
 // [GammaFitMin, GammaFitMax] J/m² fits.
 func Interface(model *kinetics.Model, T, lnJ, w []float64) (*InterfaceFit, error) {
-	if len(T) != len(lnJ) || (w != nil && len(w) != len(T)) {
-		panic("fit: Interface: slices differ in length")
-	}
-	if !model.HasRate() {
-		return nil, errors.New("the material has no rate: give a mobility law or a fixed prefactor")
+	if err := checkRates(model, T, lnJ, w, 2); err != nil {
+		return nil, err
 	}
 	n := len(T)
-	if n < 2 {
-		return nil, fmt.Errorf("an interface fit has 2 parameters (gamma and a prefactor scale) and needs at least 2 points, got %d", n)
-	}
-	same := true
-	for i := range T {
-		if !(T[i] > 0) || math.IsInf(T[i], 1) {
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("temperature must be above absolute zero, got %g K", T[i])}
-		}
-		if math.IsNaN(lnJ[i]) || math.IsInf(lnJ[i], 0) {
-			return nil, &kinetics.PointError{Index: i, Msg: "the rate must be positive and finite"}
-		}
-		if w != nil && (!(w[i] > 0) || math.IsInf(w[i], 1)) {
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("weight must be positive and finite, got %g", w[i])}
-		}
-		s := model.At(T[i])
-		switch {
-		case s.Flags&kinetics.FlagOutsideTable != 0:
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is outside the tabulated driving force", T[i])}
-		case !(s.Dmu > 0) && !model.HasTe():
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("no driving force at %g K: no nucleation", T[i])}
-		case !(s.Dmu > 0):
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.Te())}
-		case math.IsInf(s.LnJ, -1):
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("the model has no mobility at %g K", T[i])}
-		}
-		same = same && T[i] == T[0]
-	}
-	if same {
-		return nil, errors.New("all temperatures are the same: fitting gamma needs at least two different temperatures")
-	}
 	weight := func(i int) float64 {
 		if w == nil {
 			return 1
@@ -177,7 +157,7 @@ func Interface(model *kinetics.Model, T, lnJ, w []float64) (*InterfaceFit, error
 	if math.IsNaN(lg) || lg-lo < 1e-3 || hi-lg < 1e-3 {
 		return nil, fmt.Errorf("no interfacial energy between %g and %g J/m2 fits these rates", GammaFitMin, GammaFitMax)
 	}
-	f := &InterfaceFit{N: n, DoF: n - 2, Gamma: math.Exp(lg)}
+	f := &InterfaceFit{N: n, DoF: n - 2, Gamma: math.Exp(lg), Law: base.GammaLaw, TRef: base.GammaTRef, Slope: base.GammaSlope, SlopeSE: math.NaN(), SlopeCI: [2]float64{math.NaN(), math.NaN()}, Params: 2}
 	f.Model = with(f.Gamma)
 	f.LnScale = residuals(f.Model)
 	f.Scale = math.Exp(f.LnScale)
@@ -253,4 +233,48 @@ func Classical(model *kinetics.Model, T, lnJ, w []float64) (x, y []float64, line
 		gamma = math.Cbrt(-3 * cnt.Boltzmann * l.Slope / (16 * math.Pi * model.ShapeFactor()))
 	}
 	return x, y, l, gamma
+}
+
+// checkRates checks the data of an interface fit of np parameters: a
+// *kinetics.PointError for a point the model cannot fit (no driving force,
+// no mobility, a non-finite value), an error for too few points, for all
+// temperatures equal, or for a model without a rate.
+func checkRates(model *kinetics.Model, T, lnJ, w []float64, np int) error {
+	if len(T) != len(lnJ) || (w != nil && len(w) != len(T)) {
+		panic("fit: Interface: slices differ in length")
+	}
+	if !model.HasRate() {
+		return errors.New("the material has no rate: give a mobility law or a fixed prefactor")
+	}
+	if n := len(T); n < np {
+		return fmt.Errorf("%w: an interface fit of %d parameters needs at least %d points, got %d", ErrFewPoints, np, np, n)
+	}
+	same := true
+	for i := range T {
+		if !(T[i] > 0) || math.IsInf(T[i], 1) {
+			return &kinetics.PointError{Index: i, Msg: fmt.Sprintf("temperature must be above absolute zero, got %g K", T[i])}
+		}
+		if math.IsNaN(lnJ[i]) || math.IsInf(lnJ[i], 0) {
+			return &kinetics.PointError{Index: i, Msg: "the rate must be positive and finite"}
+		}
+		if w != nil && (!(w[i] > 0) || math.IsInf(w[i], 1)) {
+			return &kinetics.PointError{Index: i, Msg: fmt.Sprintf("weight must be positive and finite, got %g", w[i])}
+		}
+		s := model.At(T[i])
+		switch {
+		case s.Flags&kinetics.FlagOutsideTable != 0:
+			return &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is outside the tabulated driving force", T[i])}
+		case !(s.Dmu > 0) && !model.HasTe():
+			return &kinetics.PointError{Index: i, Msg: fmt.Sprintf("no driving force at %g K: no nucleation", T[i])}
+		case !(s.Dmu > 0):
+			return &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%g K is at or above the equilibrium temperature %g K: no driving force, no nucleation", T[i], model.Te())}
+		case math.IsInf(s.LnJ, -1):
+			return &kinetics.PointError{Index: i, Msg: fmt.Sprintf("the model has no mobility at %g K", T[i])}
+		}
+		same = same && T[i] == T[0]
+	}
+	if same {
+		return errors.New("all temperatures are the same: fitting gamma needs at least two different temperatures")
+	}
+	return nil
 }

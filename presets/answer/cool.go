@@ -54,6 +54,7 @@ type Critical struct {
 	NoseEstimate Num          `json:"nose_estimate_k_per_s"`
 	Nose         TimeAt       `json:"nose"`
 	*Onset
+	Flags       Strings      `json:"flags"`
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
 	Rows        []CoolRow    `json:"rows"`
 
@@ -67,6 +68,7 @@ type CCT struct {
 	Inputs LinearInputs `json:"inputs"`
 	*AtRate
 	Critical    Num          `json:"critical_cooling_rate_k_per_s" result:"critical cooling rate"`
+	Flags       Strings      `json:"flags"`
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
 	Rows        []CoolRow    `json:"rows"`
 
@@ -89,6 +91,7 @@ type linear struct {
 	X, V    float64           `json:"-"`
 	Rates   []float64         `json:"-"` // as given (Critical: none)
 	Qc      float64           `json:"-"` // the critical rate
+	Flags   kinetics.Flag     `json:"-"` // of the path's span of temperatures
 	summary []string
 }
 
@@ -103,7 +106,10 @@ func Cool(in LinearInput) (Answer, error) {
 	if err != nil {
 		return nil, err
 	}
-	l := linear{Path: cl, Model: md, Name: in.Card.Name, X: in.X, V: in.V, Qc: cl.CriticalRate(in.X)}
+	if err := checkGamma(md, cl.End, cl.Te); err != nil {
+		return nil, err
+	}
+	l := linear{Path: cl, Model: md, Name: in.Card.Name, X: in.X, V: in.V, Qc: cl.CriticalRate(in.X), Flags: md.SpanFlags(cl.End, cl.Te)}
 	inputs := LinearInputs{Describe(in.Card, md), "linear", Num(cl.End), cl.Reason.String(), Num(in.X), Num(in.V)}
 	inputs.about = append(inputs.about, endLine(cl, in.Names), transformLine)
 	heads, eval := coolHeadlines(in.End, in.X, in.V, in.Rates, in.Critical)
@@ -126,7 +132,7 @@ func (l linear) critical(inputs LinearInputs, u *Uncertainty) (*Critical, error)
 	if err != nil {
 		return nil, fmt.Errorf("nose: %w", err)
 	}
-	a := &Critical{Inputs: inputs, Rate: Num(l.Qc), NoseEstimate: Num(math.NaN()), Nose: TimeAt{Num(math.NaN()), Num(math.NaN())}, Uncertainty: u, linear: l, nose: n}
+	a := &Critical{Inputs: inputs, Rate: Num(l.Qc), NoseEstimate: Num(math.NaN()), Nose: TimeAt{Num(math.NaN()), Num(math.NaN())}, Flags: l.Flags.Keys(), Uncertainty: u, linear: l, nose: n}
 	if l.Qc > 0 {
 		a.summary = append(a.summary, fmt.Sprintf("critical cooling rate to stay below X = %s at %.2f K: %s (exact path integral; Xext scales as rate^-4)", FracLabel(l.X), cl.End, RateText(l.Qc)))
 	} else {
@@ -156,7 +162,7 @@ func (l linear) critical(inputs LinearInputs, u *Uncertainty) (*Critical, error)
 
 func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 	cl := l.Path
-	a := &CCT{Inputs: inputs, Critical: Num(l.Qc), Uncertainty: u, linear: l}
+	a := &CCT{Inputs: inputs, Critical: Num(l.Qc), Flags: l.Flags.Keys(), Uncertainty: u, linear: l}
 	if len(l.Rates) == 1 {
 		q := l.Rates[0]
 		X := cl.Fraction(q)
@@ -233,7 +239,12 @@ func (l linear) doc(inputs LinearInputs, rows []CoolRow, u *Uncertainty, critica
 	if critical {
 		d.Notes = append(d.Notes, "the nose estimate uses the isothermal TTT curve of the same model (continuous nucleation, JMAK)")
 	}
+	if l.Flags != 0 {
+		d.Notes = append(d.Notes, "the path passes through temperatures where:")
+		d.Notes = append(d.Notes, FlagNotes(l.Flags)...)
+	}
 	d.Notes = append(d.Notes, Caution)
+	inputs.mark(&d, "fraction")
 	u.addTo(&d)
 	return d
 }

@@ -62,6 +62,7 @@ type Curve struct {
 	Q           Num          `json:"quench_factor" result:"quench factor"`
 	Retained    Num          `json:"retained_property_fraction" result:"retained property fraction"`
 	Band        Num          `json:"band_k"`
+	Flags       *Strings     `json:"flags,omitempty"` // with a material
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
 	Rows        []BandRow    `json:"rows"`
 
@@ -69,6 +70,7 @@ type Curve struct {
 	Quench   kinetics.QuenchResult   `json:"-"` // against the C-curve used
 	about    []string
 	summary  []string
+	flags    kinetics.Flag
 }
 
 // AlongCurve is what the material did along the curve.
@@ -100,6 +102,9 @@ func Curves(in CurveInput) (*Curve, error) {
 	k1 := 0.0
 	if in.Model != nil {
 		md := in.Model
+		if err := checkGamma(md, p.Temp...); err != nil {
+			return nil, err
+		}
 		m := Describe(in.Card, md)
 		a.Inputs.Material, a.about = &m, m.About()
 		an, err := md.AnalyzeCurve(p, in.X, in.Band)
@@ -108,6 +113,9 @@ func Curves(in CurveInput) (*Curve, error) {
 		}
 		a.Analysis = &an
 		a.AlongCurve = a.along(an, md.Te(), in)
+		a.flags = md.SpanFlags(floats.Min(p.Temp), floats.Max(p.Temp))
+		keys := Strings(a.flags.Keys())
+		a.Flags = &keys
 		quench, k1 = an.Additivity, math.Log1p(-in.X)
 	}
 	a.about = append(a.about, fmt.Sprintf("curve: %s, %d points (%s, %s), %s",
@@ -223,6 +231,13 @@ func (a *Curve) Doc() Doc {
 		fmt.Sprintf("the table is where along the curve the quench factor was collected: bands of %g K, hottest first", float64(a.Band)),
 		"additivity (Scheil) treats the path as a sequence of isothermal holds; it is exact only for isokinetic transformations (Cahn 1956)",
 		caution)
+	if a.flags != 0 {
+		d.Notes = append(d.Notes, "the curve passes through temperatures where:")
+		d.Notes = append(d.Notes, FlagNotes(a.flags)...)
+	}
+	if a.Inputs.Material != nil {
+		a.Inputs.mark(&d)
+	}
 	a.Uncertainty.addTo(&d)
 	return d
 }

@@ -194,6 +194,7 @@ func (a *FitInduction) Card() (*presets.Card, []string, error) {
 		[3]string{"j0", fmt.Sprintf("%.7g /m3/s", res.A), as + "; apparent, belongs with the fitted gamma"}); err != nil {
 		return nil, nil, err
 	}
+	c.Standing = fittedStanding(base.Standing, a.Data, "fit induction")
 	header := []string{
 		"Written by undercool fit induction: gamma and the apparent prefactor A (as j0, prefactor fixed)",
 		"fitted to " + name + "; every other value as in " + base.File + ".",

@@ -40,6 +40,9 @@ type Hold struct {
 // Holds computes the time to X at T, with its band when there are spreads.
 func Holds(in HoldInput) (*Hold, error) {
 	md, T, X, j := in.Model, in.T, in.X, in.JMAK
+	if err := checkGamma(md, T); err != nil {
+		return nil, err
+	}
 	s, av := md.Isothermal(T, j)
 	lnt := av.LnTime(X)
 	t, _ := Seconds(lnt)
@@ -99,6 +102,8 @@ func neverReason(md *kinetics.Model, s kinetics.State, j kinetics.JMAK, lnt floa
 		return fmt.Sprintf("no driving force at or above the equilibrium temperature (T_e = %.2f K)", md.Te())
 	case s.Flags&kinetics.FlagNoMobility != 0:
 		return "no mobility: below the temperature where the viscosity law diverges"
+	case s.Flags&kinetics.FlagOutsideGrowthTable != 0:
+		return "no growth: the temperature lies outside the measured growth-rate table"
 	case j.Nuclei == 0 && math.IsInf(s.LnJ, -1):
 		return "no nucleation at this temperature"
 	case !math.IsInf(lnt, 1):
@@ -166,6 +171,7 @@ func (a *Hold) Doc() Doc {
 	if a.j.Lag {
 		d.Notes = append(d.Notes, LagNote)
 	}
+	a.Inputs.mark(&d)
 	a.Uncertainty.addTo(&d)
 	d.Notes = append(d.Notes, Caution)
 	return d

@@ -171,6 +171,7 @@ func (a *Induction) Doc() Doc {
 		d.Notes = append(d.Notes, fmt.Sprintf("the critical nucleus holds %.2g molecules: CNT is outside its range; with an apparent gamma and prefactor fitted to induction times the times are a correlation of those measurements, not a prediction", s.Nucleus.Size))
 	}
 	d.Notes = append(d.Notes, "induction times: mononuclear 1/(J V), polynuclear [3(-ln(1-X))/(pi J u^3)]^(1/4); the longer one dominates (Kashchiev and van Rosmalen, Cryst. Res. Technol. 38 (2003) 555)")
+	a.Inputs.mark(&d)
 	a.Uncertainty.addTo(&d)
 	d.Notes = append(d.Notes, Caution)
 	return d

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 
+	"gonum.org/v1/gonum/floats"
+
 	"undercool/cnt"
 	"undercool/kinetics"
 	"undercool/presets"
@@ -19,6 +21,11 @@ type Material struct {
 	Driving         string    `json:"driving"`
 	Mobility        string    `json:"mobility"`
 	Prefactor       string    `json:"prefactor"`
+	GammaLaw        string    `json:"gamma_law"`
+	Growth          string    `json:"growth"`
+	Glassy          string    `json:"below_tg,omitempty"`
+	Calibrated      *Range    `json:"calibrated_range_k,omitempty"`
+	Standing        Standing  `json:"standing"`
 	Te              Num       `json:"equilibrium_temperature_k"`
 	MolecularVolume Num       `json:"molecular_volume_m3"`
 	JumpDistance    Num       `json:"jump_distance_m"`
@@ -28,6 +35,30 @@ type Material struct {
 
 	about []string // the header lines
 }
+
+// Range is a span of temperatures, K.
+type Range struct {
+	Lo Num `json:"low"`
+	Hi Num `json:"high"`
+}
+
+// Standing is how far the card has been held against measurements (see
+// presets.Standing).
+type Standing struct {
+	Text       string  `json:"text"`
+	Estimate   bool    `json:"estimate"`
+	Calibrated Strings `json:"calibrated_on"`
+	Checked    Strings `json:"checked_against"`
+	Error      string  `json:"rms_error,omitempty"`
+	Note       string  `json:"note,omitempty"`
+}
+
+func standingOf(s presets.Standing) Standing {
+	return Standing{Text: s.String(), Estimate: s.Estimate(), Calibrated: s.Calibrated, Checked: s.Checked, Error: s.Error, Note: s.Note}
+}
+
+// StandingLine is the header line of a card's standing.
+func StandingLine(c *presets.Card) string { return "standing: " + c.Standing.String() }
 
 // Values are the values of a card, in the order of presets.Params; JSON
 // writes them as one object keyed by the card keys.
@@ -87,12 +118,24 @@ func Describe(c *presets.Card, md *kinetics.Model) Material {
 	}
 	d := Material{
 		Name: c.Name, Card: c.File, Driving: driving, Mobility: mob, Prefactor: m.Prefactor.String(),
+		GammaLaw: m.GammaLaw.String(), Growth: md.GrowthName(), Glassy: glassyText(md), Standing: standingOf(c.Standing),
 		Te: Num(md.Te()), MolecularVolume: Num(md.MolecularVolume()), JumpDistance: Num(md.JumpDistance()),
 		ShapeFactor: Num(md.ShapeFactor()), Values: cardValues(c),
 	}
+	if c.Growth == "table" {
+		d.Growth = "table " + c.GrowthFile
+	}
 	d.about = []string{
 		MaterialLine(c),
+		StandingLine(c),
 		fmt.Sprintf("models: driving force %s; mobility %s; prefactor %s; %s", driving, mob, d.Prefactor, nucleationSite(m)),
+	}
+	if m.GammaLaw != kinetics.GammaConstant || m.GrowthLaw != nil || d.Glassy != "" {
+		d.about = append(d.about, lawsLine(md, d.Growth))
+	}
+	if lo, hi, ok := md.Calibrated(); ok {
+		d.Calibrated = &Range{Num(lo), Num(hi)}
+		d.about = append(d.about, fmt.Sprintf("calibrated range: %.2f to %.2f K; answers outside it are flagged", lo, hi))
 	}
 	var vals []string
 	for _, v := range d.Values {
@@ -109,6 +152,39 @@ func Describe(c *presets.Card, md *kinetics.Model) Material {
 	}
 	d.about = append(d.about, fmt.Sprintf("derived: v = %.4g m3 per molecule, jump distance = %.4g m, f(theta) = %.4g", md.MolecularVolume(), md.JumpDistance(), md.ShapeFactor()))
 	return d
+}
+
+// glassyText says what the model does below T_g with a viscosity law; ""
+// for a model without a glass transition or a viscosity law.
+func glassyText(md *kinetics.Model) string {
+	switch {
+	case md.Tg() == 0 || !md.HasViscosity():
+		return ""
+	case md.Glassy():
+		return fmt.Sprintf("arrhenius continuation of the viscosity from Tg = %.2f K with glass_q = %.4g kJ/mol", md.Tg(), md.Material().GlassQ/1e3)
+	}
+	return fmt.Sprintf("the liquid's viscosity law extrapolated below Tg = %.2f K (no glass_q)", md.Tg())
+}
+
+// lawsLine is the header line of the interface law, the growth law and
+// the glassy branch.
+func lawsLine(md *kinetics.Model, growth string) string {
+	m := md.Material()
+	parts := []string{"gamma(T) = " + m.GammaText()}
+	switch g := m.GrowthLaw.(type) {
+	case kinetics.ViscosityPower:
+		parts = append(parts, fmt.Sprintf("growth viscosity-power u = u_g (T/Tg) (eta(Tg)/eta)^xi [1 - exp(-dmu/kT)], u_g = %.4g m/s, xi = %.4g", g.Ug, g.Xi))
+	case kinetics.ArrheniusGrowth:
+		parts = append(parts, fmt.Sprintf("growth arrhenius u = u_0 exp(-Q_u/RT) [1 - exp(-dmu/kT)], u_0 = %.4g m/s, Q_u = %.4g kJ/mol", g.U0, g.Q/1e3))
+	case *kinetics.GrowthTable:
+		parts = append(parts, fmt.Sprintf("growth %s, ln u interpolated in 1/T, %.2f to %.2f K, zero outside", growth, g.T[0], g.T[len(g.T)-1]))
+	default:
+		parts = append(parts, "growth "+growth)
+	}
+	if t := glassyText(md); t != "" {
+		parts = append(parts, "below Tg: "+t)
+	}
+	return "laws: " + strings.Join(parts, "; ")
 }
 
 // MaterialLine names the material and where its card came from.
@@ -179,3 +255,50 @@ func describeJMAK(j kinetics.JMAK) Transformation {
 
 // line is the header line of the transformation law.
 func (t Transformation) line() string { return "transformation: " + t.Law }
+
+// EstimateWord is what stands beside every headline number of a material
+// whose standing is an estimate.
+const EstimateWord = "(estimate)"
+
+// mark puts EstimateWord beside every headline number of a doc on a
+// material whose standing is an estimate: after each summary line, and in
+// the heads of the columns whose keys begin with one of cols.
+func (m Material) mark(d *Doc, cols ...string) {
+	if !m.Standing.Estimate {
+		return
+	}
+	for i := range d.Summary {
+		d.Summary[i] += " " + EstimateWord
+	}
+	if d.Table == nil {
+		return
+	}
+	for i, c := range d.Table.Cols {
+		for _, k := range cols {
+			if strings.HasPrefix(c.Key, k) {
+				d.Table.Cols[i].Head += " " + EstimateWord
+				break
+			}
+		}
+	}
+}
+
+// checkGamma is an *InputError when the interfacial-energy law of the
+// model is not positive somewhere in the temperatures asked for (K).
+// Temperatures that are not positive (unset) are left out.
+func checkGamma(md *kinetics.Model, temps ...float64) error {
+	var asked []float64
+	for _, T := range temps {
+		if T > 0 {
+			asked = append(asked, T)
+		}
+	}
+	if len(asked) == 0 {
+		return nil
+	}
+	lo, hi := floats.Min(asked), floats.Max(asked)
+	if err := md.CheckGamma(lo, hi); err != nil {
+		return &InputError{"gamma_slope", err}
+	}
+	return nil
+}

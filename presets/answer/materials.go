@@ -19,6 +19,7 @@ type ShippedCard struct {
 	Name        string `json:"name" col:"name"`
 	Kind        string `json:"kind" col:"kind"`
 	Te          Num    `json:"equilibrium_temperature_k" col:"T_e (K),f2"`
+	Standing    string `json:"standing" col:"standing"`
 	Description string `json:"description" col:"description"`
 }
 
@@ -40,7 +41,7 @@ func ListShipped(names Names) (*Shipped, error) {
 		} else if md, err := c.Model(); err == nil {
 			te = md.Te() // the solvus temperature of a dilute alloy
 		}
-		a.Rows = append(a.Rows, ShippedCard{c.Name, c.Kind, Num(te), c.Description})
+		a.Rows = append(a.Rows, ShippedCard{c.Name, c.Kind, Num(te), c.Standing.Short(), c.Description})
 	}
 	return a, nil
 }
@@ -62,13 +63,16 @@ type CardShown struct {
 
 // CardInputs are a card's names and model choices, as written.
 type CardInputs struct {
-	Name        string `json:"material"`
-	Card        string `json:"card"`
-	Kind        string `json:"kind"`
-	Description string `json:"description"`
-	Driving     string `json:"driving"`
-	Mobility    string `json:"mobility"`
-	Prefactor   string `json:"prefactor"`
+	Name        string   `json:"material"`
+	Card        string   `json:"card"`
+	Kind        string   `json:"kind"`
+	Description string   `json:"description"`
+	Driving     string   `json:"driving"`
+	Mobility    string   `json:"mobility"`
+	Prefactor   string   `json:"prefactor"`
+	GammaLaw    string   `json:"gamma_law"`
+	Growth      string   `json:"growth"`
+	Standing    Standing `json:"standing"`
 }
 
 // CardValue is one value of a card.
@@ -94,7 +98,11 @@ func Show(c *presets.Card) *CardShown {
 	if pre == "" {
 		pre = "attachment"
 	}
-	a := &CardShown{Inputs: CardInputs{c.Name, c.File, c.Kind, c.Description, driving, mob, pre}}
+	law, growth := c.Choice("gamma_law"), c.Choice("growth")
+	if growth == "table" {
+		growth += " " + c.GrowthFile
+	}
+	a := &CardShown{Inputs: CardInputs{c.Name, c.File, c.Kind, c.Description, driving, mob, pre, law, growth, standingOf(c.Standing)}}
 	for _, p := range presets.Params {
 		if v, ok := c.Values[p.Key]; ok {
 			a.Rows = append(a.Rows, CardValue{p.Key, v.Text, Num(v.SI), v.Kind.SI, p.About, v.Source})
@@ -110,7 +118,8 @@ func (a *CardShown) Doc() Doc {
 		Title: "undercool materials: " + in.Name,
 		About: []string{
 			"card: " + in.Card, "kind: " + in.Kind, "description: " + in.Description,
-			"models: driving force " + in.Driving + "; mobility " + in.Mobility + "; prefactor " + in.Prefactor,
+			"standing: " + in.Standing.Text,
+			"models: driving force " + in.Driving + "; mobility " + in.Mobility + "; prefactor " + in.Prefactor + "; interfacial energy " + in.GammaLaw + "; growth " + in.Growth,
 		},
 		Table: tableOf(a.Rows),
 	}

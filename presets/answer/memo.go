@@ -73,6 +73,9 @@ func Memos(in MemoInput) (*Memo, error) {
 		return nil, err
 	}
 	m.flags = m.TTT.flags
+	if m.Cool != nil {
+		m.flags |= m.Cool.linear.Flags
+	}
 	if n := m.nose(); n.Inside() {
 		m.flags |= md.At(n.T).Flags
 	}
@@ -103,6 +106,7 @@ func Memos(in MemoInput) (*Memo, error) {
 			return nil, err
 		}
 		us = append(us, m.Curve.Uncertainty)
+		m.flags |= m.Curve.flags
 	}
 	m.u = merge(us)
 	if in.Evolve != nil {
@@ -240,6 +244,7 @@ func (m *Memo) Blocks() []Block {
 		Heading(1, "Transformation estimate: "+c.Name),
 		Para(fmt.Sprintf("Date: %s. Written by undercool report (%s). Transformed fraction X = %s.", in.Date, in.Version, X)),
 		Quote("**Estimates only.** Nucleation rates depend on the cube of the interfacial energy inside an exponential: a 10 % error in it moves a rate by orders of magnitude. See the cautions at the end."),
+		Para("**Standing of the card:** " + c.Standing.String() + "."),
 		Heading(2, "Question"),
 	}
 	qs := []string{fmt.Sprintf("At which temperature does the material reach X = %s fastest in an isothermal hold (the nose of the TTT curve), and how soon?", X)}
@@ -279,6 +284,11 @@ func (m *Memo) Blocks() []Block {
 	for _, l := range m.TTT.Inputs.Material.About() {
 		if s, ok := strings.CutPrefix(l, "models: "); ok {
 			choices = append(choices, s)
+		}
+		for _, p := range []string{"laws: ", "calibrated range: "} {
+			if strings.HasPrefix(l, p) {
+				choices = append(choices, l)
+			}
 		}
 	}
 	choices = append(choices, "transformation: "+in.JMAK.Describe(),
@@ -349,8 +359,12 @@ func (m *Memo) resultBlocks() []Block {
 		cols = append(cols, text("P5"), text("P50"), text("P95"))
 	}
 	results := Table{Cols: cols}
+	mark := ""
+	if m.TTT.Inputs.Standing.Estimate {
+		mark = " " + EstimateWord
+	}
 	for _, l := range m.results() {
-		row := []any{mdEscape(l.label), mdEscape(l.value)}
+		row := []any{mdEscape(l.label), mdEscape(l.value + mark)}
 		if m.u != nil {
 			p5, p50, p95 := "", "", ""
 			if l.head >= 0 {

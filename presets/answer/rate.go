@@ -65,6 +65,9 @@ func none(x float64, ok bool) Num {
 // when there are spreads and the model has a rate.
 func Rates(in RateInput) (*Rate, error) {
 	md := in.Model
+	if err := checkGamma(md, in.Temps...); err != nil {
+		return nil, err
+	}
 	a := &Rate{Inputs: Describe(in.Card, md), noRate: !md.HasRate(), names: in.Names}
 	sol, isSol := md.Solution()
 	for _, T := range in.Temps {
@@ -128,6 +131,7 @@ func (a *Rate) Doc() Doc {
 		n := a.names
 		d.Notes = append(d.Notes, fmt.Sprintf("no rate: the material has no mobility law; give %s with its values, or %s fixed with %s", n.of("mobility"), n.of("prefactor"), n.of("j0")))
 	}
+	a.Inputs.mark(&d, "log10_rate_per_m3_s", "growth_rate_m_per_s")
 	a.Uncertainty.addTo(&d)
 	d.Notes = append(d.Notes, Caution)
 	return d

@@ -88,6 +88,9 @@ func FracLabel(X float64) string { return strconv.FormatFloat(X, 'g', 4, 64) }
 // temperature and time when there are spreads.
 func TTTs(in TTTInput) (*TTT, error) {
 	md := in.Model
+	if err := checkGamma(md, append([]float64{in.Lo, in.Hi}, in.Temps...)...); err != nil {
+		return nil, err
+	}
 	curves, err := md.TTT(in.Temps, in.Fractions, in.JMAK, in.Lo, in.Hi)
 	if err != nil {
 		return nil, err
@@ -213,6 +216,7 @@ func (a *TTT) Doc() Doc {
 	if a.Curves.JMAK.Lag {
 		d.Notes = append(d.Notes, LagNote)
 	}
+	a.Inputs.mark(&d, "time_s")
 	a.Uncertainty.addTo(&d)
 	d.Notes = append(d.Notes, Caution)
 	return d

@@ -153,5 +153,6 @@ func (a *Zone) Doc() Doc {
 	}
 	d.Notes = append(d.Notes, "this is the onset of the first nucleus; a measured width also needs the crystals to grow to a detectable amount, so it is wider (Kubota N., J. Cryst. Growth 310 (2008) 629)")
 	d.Notes = append(d.Notes, Caution)
+	a.Inputs.mark(&d, "onset")
 	return d
 }

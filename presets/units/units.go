@@ -92,6 +92,10 @@ var (
 	InterfacialEnergy = k("interfacial energy", "J/m2", false, map[string]unit{
 		"J/m2": {1, 0}, "mJ/m2": {1e-3, 0}, "erg/cm2": {1e-3, 0},
 	})
+	// InterfacialEnergySlope is dγ/dT of a temperature-dependent interfacial energy.
+	InterfacialEnergySlope = k("interfacial energy per kelvin", "J/(m2 K)", false, map[string]unit{
+		"J/m2/K": {1, 0}, "J/(m2*K)": {1, 0}, "mJ/m2/K": {1e-3, 0}, "mJ/(m2*K)": {1e-3, 0}, "erg/cm2/K": {1e-3, 0},
+	})
 	MolarVolume = k("molar volume", "m3/mol", false, map[string]unit{
 		"m3/mol": {1, 0}, "cm3/mol": {1e-6, 0}, "L/mol": {1e-3, 0},
 	})

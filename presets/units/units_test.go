@@ -69,6 +69,10 @@ func TestParse(t *testing.T) {
 		{"132 erg/cm2", InterfacialEnergy, 0.132},
 		{"132 mJ/m²", InterfacialEnergy, 0.132},
 		{"132 mJ m^-2", InterfacialEnergy, math.NaN()}, // not an accepted spelling: see TestParseErrors
+		// Slopes of interfacial energy with temperature.
+		{"1.829e-4 J/m2/K", InterfacialEnergySlope, 1.829e-4},
+		{"0.1829 mJ/m2/K", InterfacialEnergySlope, 1.829e-4},
+		{"-0.3887 erg/cm2/K", InterfacialEnergySlope, -3.887e-4},
 		// Molar volumes.
 		{"6.59 cm3/mol", MolarVolume, 6.59e-6},
 		{"6.59e-6 m3/mol", MolarVolume, 6.59e-6},
@@ -212,7 +216,7 @@ func TestUnitsSortedAndKnown(t *testing.T) {
 	}
 	// Every listed spelling parses as written.
 	for _, k := range []Kind{Temperature, TemperatureDifference, MolarEnergy, EnergyDensity, MolarHeatCapacity,
-		InterfacialEnergy, MolarVolume, Diffusivity, Length, Viscosity, Angle, NumberDensity, RateDensity,
+		InterfacialEnergy, InterfacialEnergySlope, MolarVolume, Diffusivity, Length, Viscosity, Angle, NumberDensity, RateDensity,
 		CoolingRate, Volume, Time, MoleFraction} {
 		for _, s := range k.Units() {
 			if _, err := Parse("1 "+s, k); err != nil {
@@ -223,7 +227,7 @@ func TestUnitsSortedAndKnown(t *testing.T) {
 }
 
 var fuzzKinds = []Kind{Temperature, TemperatureDifference, MolarEnergy, EnergyDensity, MolarHeatCapacity,
-	InterfacialEnergy, MolarVolume, Diffusivity, Length, Viscosity, Angle, NumberDensity, RateDensity,
+	InterfacialEnergy, InterfacialEnergySlope, MolarVolume, Diffusivity, Length, Viscosity, Angle, NumberDensity, RateDensity,
 	Dimensionless, CoolingRate, Volume, Time}
 
 // FuzzParse: no input makes the parser panic, and every accepted value is finite.
