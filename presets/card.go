@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"os"
 	"path/filepath"
 	"sort"
 	"strconv"
@@ -99,8 +98,15 @@ func oneOf(s string, choices []string) bool {
 }
 
 // Parse reads a card from TOML. file names it in errors ("cards/x.toml" or
-// "preset x"); dir is where a driving table is looked for.
+// "preset x"). A card larger than MaxCardBytes or nested deeper than
+// MaxCardDepth is a *LimitError.
 func Parse(data []byte, file string) (*Card, error) {
+	if len(data) > MaxCardBytes {
+		return nil, tooLarge(file, MaxCardBytes, "a card")
+	}
+	if err := checkDepth(data, file); err != nil {
+		return nil, err
+	}
 	var raw rawCard
 	md, err := toml.Decode(string(data), &raw)
 	if err != nil {
@@ -116,7 +122,7 @@ func Parse(data []byte, file string) (*Card, error) {
 		if line == 0 && len(k) > 2 {
 			line = lineOf(data, k[1]) // a field inside an inline table: the value's line
 		}
-		return nil, fmt.Errorf("%s:%d: unknown key %q (allowed: %s)", file, line, k.String(), allowedKeys(k))
+		return nil, fmt.Errorf("%s:%d: unknown key %s (allowed: %s)", file, line, units.Quote(k.String()), allowedKeys(k))
 	}
 	c := &Card{
 		Name: raw.Name, Kind: raw.Kind, Description: raw.Description,
@@ -143,7 +149,7 @@ func Parse(data []byte, file string) (*Card, error) {
 			return nil, fmt.Errorf("%s: missing value for key %q (one of %s)", file, t.key, strings.Join(t.choices, ", "))
 		}
 		if t.val != "" && !oneOf(t.val, t.choices) {
-			return nil, fmt.Errorf("%s:%d: key %q: %q is not one of %s", file, lineOf(data, t.key), t.key, t.val, strings.Join(t.choices, ", "))
+			return nil, fmt.Errorf("%s:%d: key %q: %s is not one of %s", file, lineOf(data, t.key), t.key, units.Quote(t.val), strings.Join(t.choices, ", "))
 		}
 	}
 	if c.Driving == "table" && c.DrivingFile == "" {
@@ -158,7 +164,7 @@ func Parse(data []byte, file string) (*Card, error) {
 	for _, key := range sortedKeys(raw.Values) {
 		rv := raw.Values[key]
 		line := lineOf(data, key)
-		where := fmt.Sprintf("%s:%d: key %q", file, line, key)
+		where := fmt.Sprintf("%s:%d: key %s", file, line, units.Quote(key))
 		p, ok := ParamByKey(key)
 		if !ok {
 			return nil, fmt.Errorf("%s: unknown value (allowed: %s)", where, strings.Join(paramKeys(), ", "))
@@ -257,10 +263,14 @@ func allowedKeys(k toml.Key) string {
 	return "name, kind, description, driving, driving_table, solubility_table, mobility, prefactor, gamma_law, growth, growth_table, [values], [spread], [standing]"
 }
 
-// load reads a card from a file.
+// load reads a card from a file, at most MaxCardBytes of it.
 func load(path string) (*Card, error) {
-	data, err := os.ReadFile(path)
+	data, err := ReadFile(path, MaxCardBytes, "a card")
 	if err != nil {
+		var le *LimitError
+		if errors.As(err, &le) {
+			return nil, err
+		}
 		return nil, fmt.Errorf("cannot read material card %s: %v", path, errors.Unwrap(err))
 	}
 	c, err := Parse(data, path)

@@ -6,7 +6,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"os"
 	"strings"
 
@@ -135,9 +134,11 @@ func unitHint(c Column) string {
 // must be a finite number. A byte-order mark at the start is skipped, and a
 // file whose header is separated by semicolons is read as such, with decimal
 // commas (as spreadsheets write it in many languages). Errors name the file
-// and line.
+// and line; more than MaxDataBytes, MaxLineBytes a line or MaxDataRows is a
+// *LimitError.
 func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
-	br := bufio.NewReaderSize(r, sniffSize)
+	lr := &limitedReader{r: r, n: MaxDataBytes, line: MaxLineBytes}
+	br := bufio.NewReaderSize(lr, sniffSize)
 	if b, err := br.Peek(len(utf8BOM)); err == nil && string(b) == utf8BOM {
 		br.Discard(len(utf8BOM))
 	}
@@ -147,9 +148,11 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 	cr.Comment = '#'
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
+	cr.ReuseRecord = true
 	d := &Data{File: file, Columns: map[string][]float64{}, Headers: map[string]string{}}
-	var index []int      // column position → cols index (−1: ignored)
-	var unitsOf []string // column position → unit text
+	var index []int                           // column position → cols index
+	var parse []func(string) (float64, error) // column position → its parser
+	var values [][]float64                    // column position → its values
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
@@ -157,7 +160,12 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 		}
 		if err != nil {
 			var pe *csv.ParseError
-			if errors.As(err, &pe) {
+			switch {
+			case errors.Is(err, errTooLarge):
+				return nil, tooLarge(file, MaxDataBytes, "a data file")
+			case errors.Is(err, errLineTooLong):
+				return nil, &LimitError{fmt.Sprintf("%s:%d", file, lr.lines+1), fmt.Sprintf("a line longer than the %d KiB a line of a data file may be", MaxLineBytes>>10)}
+			case errors.As(err, &pe):
 				return nil, fmt.Errorf("%s:%d: not valid CSV: %v", file, pe.Line, pe.Err)
 			}
 			return nil, fmt.Errorf("%s: %v", file, err)
@@ -168,25 +176,26 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 		}
 		if index == nil {
 			index = make([]int, len(rec))
-			unitsOf = make([]string, len(rec))
+			parse = make([]func(string) (float64, error), len(rec))
+			values = make([][]float64, len(rec))
 			seen := map[int]bool{}
 			for j, h := range rec {
 				i, u, ok := matchHeader(h, cols)
 				if !ok {
-					return nil, fmt.Errorf("%s:%d: unknown column %q; accepted: %s", file, line, strings.TrimSpace(h), acceptedHeaders(cols))
+					return nil, fmt.Errorf("%s:%d: unknown column %s; accepted: %s", file, line, units.Quote(strings.TrimSpace(h)), acceptedHeaders(cols))
 				}
 				if seen[i] {
 					return nil, fmt.Errorf("%s:%d: two columns for %s", file, line, cols[i].Quantity)
 				}
 				seen[i] = true
-				if u != "" {
-					if _, err := units.Parse("1"+u, cols[i].Kind); err != nil {
-						return nil, fmt.Errorf("%s:%d: column %q: unit %q is not a unit of %s (%s)", file, line, strings.TrimSpace(h), u, cols[i].Kind.Name, unitHint(cols[i]))
-					}
-				} else if cols[i].Kind.SI != "" { // a plain number (a fraction) may go without
-					return nil, fmt.Errorf("%s:%d: column %q needs a unit, e.g. %s_%s", file, line, h, cols[i].Quantity, headerExample(cols[i].Kind))
+				if u == "" && cols[i].Kind.SI != "" { // a plain number (a fraction) may go without
+					return nil, fmt.Errorf("%s:%d: column %s needs a unit, e.g. %s_%s", file, line, units.Quote(h), cols[i].Quantity, headerExample(cols[i].Kind))
 				}
-				index[j], unitsOf[j] = i, u
+				p, err := cols[i].Kind.In(u)
+				if err != nil {
+					return nil, fmt.Errorf("%s:%d: column %s: unit %s is not a unit of %s (%s)", file, line, units.Quote(strings.TrimSpace(h)), units.Quote(u), cols[i].Kind.Name, unitHint(cols[i]))
+				}
+				index[j], parse[j] = i, p
 				d.Headers[cols[i].Quantity] = strings.TrimSpace(h)
 			}
 			for _, c := range cols {
@@ -196,6 +205,9 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 			}
 			continue
 		}
+		if len(d.Lines) == MaxDataRows {
+			return nil, &LimitError{file, fmt.Sprintf("more than the %d data rows a data file may have", MaxDataRows)}
+		}
 		if len(rec) != len(index) {
 			hint := ""
 			if comma == ',' && len(rec) > len(index) {
@@ -204,18 +216,19 @@ func ReadData(r io.Reader, file string, cols []Column) (*Data, error) {
 			return nil, fmt.Errorf("%s:%d: %d fields, header has %d%s", file, line, len(rec), len(index), hint)
 		}
 		for j, f := range rec {
-			c := cols[index[j]]
-			f = strings.TrimSpace(f)
 			if comma == ';' {
-				f = decimalPoint(f)
+				f = decimalPoint(strings.TrimSpace(f))
 			}
-			v, err := units.Parse(f+unitsOf[j], c.Kind)
-			if err != nil || math.IsNaN(v) {
-				return nil, fmt.Errorf("%s:%d: column %q: %q is not a finite number", file, line, d.Headers[c.Quantity], strings.TrimSpace(f))
+			v, err := parse[j](f)
+			if err != nil {
+				return nil, fmt.Errorf("%s:%d: column %s: %s is not a finite number", file, line, units.Quote(d.Headers[cols[index[j]].Quantity]), units.Quote(strings.TrimSpace(f)))
 			}
-			d.Columns[c.Quantity] = append(d.Columns[c.Quantity], v)
+			values[j] = append(values[j], v)
 		}
 		d.Lines = append(d.Lines, line)
+	}
+	for j, v := range values {
+		d.Columns[cols[index[j]].Quantity] = v
 	}
 	if index == nil {
 		return nil, fmt.Errorf("%s: empty file: no header row", file)

@@ -88,7 +88,7 @@ func (r Range) check(x float64, text string) error {
 	if r.Contains(x) {
 		return nil
 	}
-	return fmt.Errorf("%q %s", text, r.Must)
+	return fmt.Errorf("%s %s", units.Quote(text), r.Must)
 }
 
 var (

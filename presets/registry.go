@@ -34,11 +34,17 @@ func Preset(name string) (*Card, error) {
 	return Parse(data, "preset "+name)
 }
 
-// Open returns a card by preset name or by path (anything ending .toml or
-// containing a path separator is a path).
+// Open returns a card by preset name or by path (see IsPath).
 func Open(nameOrPath string) (*Card, error) {
-	if strings.HasSuffix(nameOrPath, ".toml") || strings.ContainsRune(nameOrPath, '/') {
+	if IsPath(nameOrPath) {
 		return load(nameOrPath)
 	}
 	return Preset(nameOrPath)
+}
+
+// IsPath reports whether Open reads a card from a file: anything ending
+// .toml or containing a path separator is a path, anything else a preset's
+// name.
+func IsPath(nameOrPath string) bool {
+	return strings.HasSuffix(nameOrPath, ".toml") || strings.ContainsRune(nameOrPath, '/')
 }

@@ -40,7 +40,7 @@ type SpreadSpec struct {
 func ParseSpread(key, text string) (SpreadSpec, error) {
 	p, ok := ParamByKey(key)
 	if !ok {
-		return SpreadSpec{}, fmt.Errorf("unknown parameter %q (known: %s)", key, strings.Join(paramKeys(), ", "))
+		return SpreadSpec{}, fmt.Errorf("unknown parameter %s (known: %s)", units.Quote(key), strings.Join(paramKeys(), ", "))
 	}
 	t := strings.TrimSpace(text)
 	s := SpreadSpec{Key: key, Text: t}
@@ -50,10 +50,10 @@ func ParseSpread(key, text string) (SpreadSpec, error) {
 	number := func(num string) (float64, error) {
 		x, err := strconv.ParseFloat(strings.TrimSpace(num), 64)
 		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-			return 0, fmt.Errorf("%s: %q is not a finite number", key, t)
+			return 0, fmt.Errorf("%s: %s is not a finite number", key, units.Quote(t))
 		}
 		if x < 0 {
-			return 0, fmt.Errorf("%s: %q: a standard deviation must not be negative", key, t)
+			return 0, fmt.Errorf("%s: %s: a standard deviation must not be negative", key, units.Quote(t))
 		}
 		return x, nil
 	}
@@ -74,7 +74,7 @@ func ParseSpread(key, text string) (SpreadSpec, error) {
 			return s, err
 		}
 		if x < 1 {
-			return s, fmt.Errorf("%s: a factor spread must be at least 1, got %q", key, t)
+			return s, fmt.Errorf("%s: a factor spread must be at least 1, got %s", key, units.Quote(t))
 		}
 		s.Form, s.X = sample.Factor, x
 		return s, nil
@@ -91,7 +91,7 @@ func ParseSpread(key, text string) (SpreadSpec, error) {
 		return s, fmt.Errorf("%s: %v (or give a percentage such as 2%%)", key, err)
 	}
 	if x < 0 {
-		return s, fmt.Errorf("%s: %q: a standard deviation must not be negative", key, t)
+		return s, fmt.Errorf("%s: %s: a standard deviation must not be negative", key, units.Quote(t))
 	}
 	s.Form, s.X, s.Kind = sample.Absolute, x, kinds[i]
 	return s, nil
@@ -245,7 +245,7 @@ func parseSpreads(data []byte, file string, raw map[string]rawValue) (map[string
 	for _, key := range sortedKeys(raw) {
 		rv := raw[key]
 		line := spreadLine(data, key)
-		where := fmt.Sprintf("%s:%d: [spread] key %q", file, line, key)
+		where := fmt.Sprintf("%s:%d: [spread] key %s", file, line, units.Quote(key))
 		if _, ok := ParamByKey(key); !ok {
 			return nil, fmt.Errorf("%s: unknown parameter (allowed: %s)", where, strings.Join(paramKeys(), ", "))
 		}

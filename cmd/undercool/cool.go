@@ -34,7 +34,7 @@ type coolFlags struct {
 	fraction *fractionFlag
 	end      *tempFlag
 	volume   *quantityFlag
-	curve    *textFlag
+	curve    *pathFlag
 	ccurve   *ccurveFlag
 	band     *quantityFlag
 	plot     *plotFlag
@@ -59,7 +59,7 @@ func setupCool(fs *pflag.FlagSet, e *env) func([]string) error {
 	cf.fraction = addFraction(fs, false, "transformed fraction to stay below or to reach, strictly between 0 and 1 (1e-6: the usual detection limit)")
 	cf.end = addTemp(fs, e, "end", "end of linear cooling, K, C or F below Te (default: Tg where the card has one, else where the rest of the path adds less than 1e-6 of the extended volume)")
 	cf.volume = addVolume(fs, "a sample volume", "sample volume for the onset of nucleation (first nucleus expected), m3, mm3, uL, mL, L or um3 (> 0)")
-	cf.curve = addText(fs, "curve", "measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c), time strictly increasing")
+	cf.curve = addInput(fs, "curve", "measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c), time strictly increasing")
 	cf.ccurve = &ccurveFlag{}
 	fs.Var(cf.ccurve, "c-curve", "Evancho-Staley C-curve constants k1=..,k2=..,k3=..,k4=..,k5=.. (k1 < 0 dimensionless, k2 s, k3 and k5 J/mol, k4 K) for the quench factor of --curve; default: the material's TTT curve")
 	cf.band = &quantityFlag{kind: units.TemperatureDifference, what: "a band width, K"}

@@ -5,15 +5,14 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"os"
-	"os/signal"
 	"strings"
-	"syscall"
 
 	"github.com/spf13/pflag"
 
+	"undercool/cmd/undercool/internal/outfile"
 	"undercool/kinetics"
 	"undercool/kinetics/population"
+	"undercool/presets"
 	"undercool/presets/answer"
 	"undercool/presets/units"
 )
@@ -36,15 +35,23 @@ const scheduleHelp = "thermal schedule, steps separated by ';' or written one pe
 // scheduleFlag is --schedule TEXT or @FILE, read and checked while parsing.
 type scheduleFlag struct {
 	given
-	s kinetics.Schedule
+	s    kinetics.Schedule
+	file string // @FILE, an input of the command
 }
+
+// maxScheduleBytes caps a schedule file, as presets caps a card.
+const maxScheduleBytes = 1 << 20
 
 func (f *scheduleFlag) Set(s string) error {
 	text, file := s, ""
 	if name, ok := strings.CutPrefix(s, "@"); ok {
-		data, err := os.ReadFile(name)
-		if err != nil {
-			return bad("cannot read the schedule file %s: %v", name, unwrapPath(err))
+		data, err := presets.ReadFile(name, maxScheduleBytes, "a schedule file")
+		var le *presets.LimitError
+		switch {
+		case errors.As(err, &le):
+			return &valueError{err}
+		case err != nil:
+			return bad("cannot read the schedule file %s: %v", name, outfile.Reason(err))
 		}
 		text, file = string(data), name
 	}
@@ -59,9 +66,11 @@ func (f *scheduleFlag) Set(s string) error {
 		}
 		return &valueError{err}
 	}
-	f.s, f.given = sch, given{true, s}
+	f.s, f.file, f.given = sch, file, given{true, s}
 	return nil
 }
+
+func (f *scheduleFlag) register(_ string, fl *files) error { return fl.input(f.file) }
 
 // scheduleLine is the line (from 1) of a schedule's step n, counted as
 // kinetics.ParseSchedule counts them.
@@ -167,7 +176,7 @@ func (f *tolFlag) Set(s string) error {
 type evolveFlags struct {
 	mf       *materialFlags
 	schedule *scheduleFlag
-	curve    *textFlag
+	curve    *pathFlag
 	times    *durationsFlag
 	rows     *countFlag
 	classes  *countFlag
@@ -181,7 +190,7 @@ type evolveFlags struct {
 func setupEvolve(fs *pflag.FlagSet, e *env) func([]string) error {
 	ef := &evolveFlags{mf: addMaterialFlags(fs), schedule: &scheduleFlag{}}
 	fs.Var(ef.schedule, "schedule", scheduleHelp)
-	ef.curve = addText(fs, "curve", "measured temperature history FILE.csv (columns time_UNIT and temperature_UNIT, e.g. time_s,temperature_c, time strictly increasing) in place of --schedule")
+	ef.curve = addInput(fs, "curve", "measured temperature history FILE.csv (columns time_UNIT and temperature_UNIT, e.g. time_s,temperature_c, time strictly increasing) in place of --schedule")
 	ef.times = &durationsFlag{}
 	fs.Var(ef.times, "times", "output times from the start of the schedule, comma-separated, s, min, h or d (bare = s), ascending, e.g. 10min,1h,24h; the end of the schedule is always the last row")
 	ef.rows = addCount(fs, "rows", answer.DefaultEvolveRows, 2, 1000, "without --times: rows, half spread evenly in time and half evenly in log time over six decades after the alloy or solution first becomes supersaturated, besides the start, that onset, the break points and the end")
@@ -204,14 +213,12 @@ func setupEvolve(fs *pflag.FlagSet, e *env) func([]string) error {
 			return usagef("evolve: give the thermal history: --schedule 'start at 640C; hold 1h; cool to 20C at 50K/s; jump to 300C; hold 24h' (or @FILE), or --curve FILE.csv")
 		case ef.times.set && ef.rows.set:
 			return usagef("--times and --rows: give one or the other")
-		case ef.plot.set && ef.dist.set && ef.plot.path == ef.dist.path:
-			return usagef("--plot and --dist-plot: give two different files")
 		}
 		in, err := ef.input(e)
 		if err != nil {
 			return err
 		}
-		ctx, stop := signal.NotifyContext(baseContext(), os.Interrupt, syscall.SIGTERM)
+		ctx, stop := outfile.NotifyContext(baseContext())
 		defer stop()
 		bar := newProgress(e.stderr)
 		bar.label = "evolve"
@@ -311,7 +318,7 @@ func (ef *evolveFlags) write(e *env, a *answer.Evolve, name string) error {
 		files = append(files, file{f.pf.path, b})
 	}
 	for _, f := range files {
-		if err := writeFileAtomic(f.path, func(w io.Writer) error { _, err := w.Write(f.data); return err }); err != nil {
+		if err := e.files.write(f.path, func(w io.Writer) error { _, err := w.Write(f.data); return err }); err != nil {
 			return err
 		}
 	}

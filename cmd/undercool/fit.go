@@ -34,7 +34,7 @@ type fitFlags struct {
 	weights bool
 	keepA   bool
 	keepXi  bool
-	cardOut *textFlag
+	cardOut *pathFlag
 	kind    *choiceFlag
 	plot    *plotFlag
 	mf      *materialFlags
@@ -47,7 +47,7 @@ func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.BoolVar(&f.weights, "weights", false, "weigh the points by the file's weight column (relative weights on the logarithm, each > 0)")
 	fs.BoolVar(&f.keepA, "keep-prefactor", false, "fit interface: hold the material's prefactor (A = 1) and fit only the interfacial energy (and its slope)")
 	fs.BoolVar(&f.keepXi, "keep-xi", false, "fit growth: hold the decoupling exponent xi at the material's (--growth-xi, default 1) and fit only u_g")
-	f.cardOut = addText(fs, "card-out", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface, growth)")
+	f.cardOut = addOutput(fs, "card-out", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface, growth)")
 	f.kind = addChoice(fs, "kind", "metal", presets.KindChoices, "kind of material written by arrhenius --card-out without --material: "+strings.Join(presets.KindChoices, ", "))
 	f.plot = addPlot(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot)")
 	f.mf = addMaterialFlags(fs)
@@ -73,6 +73,9 @@ func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
 		}
 		if f.cardOut.set && !strings.HasSuffix(strings.ToLower(f.cardOut.text), ".toml") {
 			return usagef("--card-out: %q must end in .toml", f.cardOut.text)
+		}
+		if err := e.files.input(args[1]); err != nil {
+			return err
 		}
 		a, card, err := f.fit(e, kind, args[1])
 		if err != nil {
@@ -240,7 +243,7 @@ func (f *fitFlags) finish(e *env, a answer.Answer, card carded) error {
 		notes = append(notes, "plot written: "+f.plot.path)
 	}
 	if c != nil {
-		if err := writeCard(f.cardOut.text, c, header); err != nil {
+		if err := writeCard(&e.files, f.cardOut.text, c, header); err != nil {
 			return err
 		}
 		notes = append(notes, "card written: "+f.cardOut.text)
@@ -248,14 +251,14 @@ func (f *fitFlags) finish(e *env, a answer.Answer, card carded) error {
 	return render(e.stdout, f.format, annotated{a, notes})
 }
 
-// writeCard writes a card to path, whole or not at all, after checking that
-// it reads back as a card.
-func writeCard(path string, c *presets.Card, header []string) error {
+// writeCard stages a card in path, after checking that it reads back as
+// a card.
+func writeCard(fl *files, path string, c *presets.Card, header []string) error {
 	data := c.TOML(header)
 	if _, err := presets.Parse(data, path); err != nil {
 		return placef("--card-out: the card does not read back: %v", err)
 	}
-	return writeFileAtomic(path, func(w io.Writer) error {
+	return fl.write(path, func(w io.Writer) error {
 		_, err := w.Write(data)
 		return err
 	})

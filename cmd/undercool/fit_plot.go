@@ -109,7 +109,7 @@ func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, res 
 	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", res.Q/1e3)); err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // avramiPlot is the linearized plot, ln(−ln(1−X)) against ln t, of the points used.
@@ -131,7 +131,7 @@ func avramiPlot(pf *plotFlag, file string, t, X []float64, res *fit.AvramiFit) e
 	if err := dataAndLine(p, pts, line, "data used", fmt.Sprintf("fit, n = %.4g", res.N)); err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // interfacePlot is two panels: log10 J measured and fitted against T, and
@@ -183,7 +183,7 @@ func interfacePlot(pf *plotFlag, file string, T, lnJ []float64, res *fit.Interfa
 		}
 		plots = append(plots, q)
 	}
-	return savePlots(pf.path, pf.format, plots...)
+	return savePlots(pf, plots...)
 }
 
 // inductionPlot is the induction time on a log axis against 1/(T³·ln²S),
@@ -208,7 +208,7 @@ func inductionPlot(pf *plotFlag, file string, t []float64, res *fit.InductionFit
 	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, gamma = %.4g mJ/m2", res.Gamma*1e3)); err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // growthPlot is two panels: log10 u measured and fitted against T, and
@@ -258,5 +258,5 @@ func growthPlot(pf *plotFlag, file string, T, u []float64, res *fit.GrowthFit) e
 		}
 		plots = append(plots, q)
 	}
-	return savePlots(pf.path, pf.format, plots...)
+	return savePlots(pf, plots...)
 }

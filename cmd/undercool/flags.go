@@ -644,6 +644,7 @@ type plotFlag struct {
 	svgOnly string // not "": only SVG, and this is the error for anything else
 	path    string
 	format  string // "svg" or "png"
+	files   *files // the command's files, once run has registered them
 }
 
 func (f *plotFlag) Set(s string) error {
@@ -656,6 +657,14 @@ func (f *plotFlag) Set(s string) error {
 	}
 	f.path, f.format, f.given = s, format, given{true, s}
 	return nil
+}
+
+func (f *plotFlag) register(name string, fl *files) error {
+	f.files = fl
+	if !f.set {
+		return nil
+	}
+	return fl.output(name, f.path)
 }
 
 func addPlot(fs *pflag.FlagSet, what string) *plotFlag {

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
@@ -10,18 +11,21 @@ import (
 
 	"github.com/spf13/pflag"
 
+	"undercool/cmd/undercool/internal/outfile"
 	"undercool/presets"
 	"undercool/presets/answer"
 )
 
 func main() {
+	outfile.RemoveOnSignal() // an interrupt leaves no staged file behind
 	os.Exit(run(os.Args[1:], os.Stdin, os.Stdout, os.Stderr))
 }
 
-// env is what a command may touch: its streams and its arguments.
+// env is what a command may touch: its streams, its files and its arguments.
 type env struct {
 	stdin          io.Reader
-	stdout, stderr io.Writer
+	stdout, stderr io.Writer // stdout is held until the command's files are written
+	files          files
 	notes          []string // printed on stderr once the command succeeds
 	finish         []func() // run when the command returns (a progress bar clears its line)
 }
@@ -80,11 +84,17 @@ func explain(cmd string, err error) (string, int) {
 		draws   *answer.SamplingError
 		u       *usageError
 		p       *placed
+		f       *fileError
 		stopped *interrupted
 	)
 	switch {
 	case errors.As(err, &stopped):
 		return err.Error(), 130
+	case errors.As(err, &f):
+		if f.err.Usage {
+			return f.Error(), 2
+		}
+		return f.Error(), 1
 	case errors.As(err, &input):
 		return fmt.Sprintf("%s: %v", flagNames(input.Input), input.Err), 2
 	case errors.As(err, &many):
@@ -140,7 +150,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs := pflag.NewFlagSet(name, pflag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	fs.SortFlags = false
-	e := &env{stdin: stdin, stdout: stdout, stderr: stderr}
+	var out bytes.Buffer
+	e := &env{stdin: stdin, stdout: &out, stderr: stderr}
 	do := cmd.setup(fs, e)
 	if err := fs.Parse(args[1:]); err != nil {
 		var bad *pflag.InvalidValueError
@@ -160,12 +171,25 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 			e.note("%s", bareNote(f.Name, b.bareKelvin()))
 		}
 	})
-	err := do(fs.Args())
+	// Every file the flags name is checked before any work; the files are
+	// written only once the command has succeeded, and its output printed
+	// only once they are.
+	err := e.files.register(fs)
+	if err == nil {
+		err = do(fs.Args())
+	}
 	for _, f := range e.finish {
 		f()
 	}
+	if err == nil {
+		err = e.files.commit()
+	}
 	if err != nil {
+		e.files.discard()
 		return fail(explain(name, err))
+	}
+	if _, err := stdout.Write(out.Bytes()); err != nil {
+		return fail("cannot write the standard output: "+outfile.Reason(err), 1)
 	}
 	for _, n := range e.notes {
 		fmt.Fprint(stderr, n)

@@ -13,7 +13,7 @@ import (
 // materialFlags choose a material and override its values: --material,
 // the model choices, and one flag per value of presets.Params.
 type materialFlags struct {
-	material   *textFlag
+	material   *pathFlag // a preset's name or a card file; its files are the command's
 	driving    *choiceFlag
 	mobility   *choiceFlag
 	prefactor  *choiceFlag
@@ -70,7 +70,8 @@ func choicesHelp(choices []string) string {
 // addMaterialFlags declares --material, the model choices and one flag per card value.
 func addMaterialFlags(fs *pflag.FlagSet) *materialFlags {
 	mf := &materialFlags{}
-	mf.material = addText(fs, "material", "shipped card name or path to a .toml card (see undercool materials)")
+	mf.material = addInput(fs, "material", "shipped card name or path to a .toml card (see undercool materials)")
+	mf.material.isPath = presets.IsPath
 	isCSV := func(s string) bool { return strings.HasSuffix(strings.ToLower(s), ".csv") }
 	driving := choicesHelp(presets.DrivingChoices)
 	mf.driving = addChoice(fs, "driving", "", presets.DrivingChoices, "driving force: "+driving+", or FILE.csv with temperature_k and dg_j_per_mol columns")
@@ -193,6 +194,14 @@ func (mf *materialFlags) card() (*presets.Card, error) {
 		}
 	}
 	c.Changed(changed)
+	// The tables the card or the flags name are inputs too.
+	if fl := mf.material.files; fl != nil {
+		for _, path := range []string{c.DrivingFile, c.SolubilityFile, c.GrowthFile} {
+			if err := fl.input(path); err != nil {
+				return nil, err
+			}
+		}
+	}
 	return c, nil
 }
 

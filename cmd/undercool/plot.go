@@ -5,7 +5,6 @@ import (
 	"image/color"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -29,10 +28,10 @@ const (
 	plotPanelHeight = 10 * vg.Centimeter
 )
 
-// checkPlotPath checks a plot's path before any work is done: the
-// extension must be .svg or .png and the directory must exist. It returns
-// the format name ("svg" or "png"). The file itself is written later,
-// whole or not at all, by savePlots.
+// checkPlotPath checks a plot's name: the extension must be .svg or .png.
+// It returns the format name ("svg" or "png"). Whether the file can be
+// written is checked before any work by run (plotFlag.register); the file
+// is written whole or not at all by savePlots.
 func checkPlotPath(path string) (string, error) {
 	ext := strings.ToLower(extension(path))
 	if !contains(plotFormats, ext) {
@@ -41,39 +40,19 @@ func checkPlotPath(path string) (string, error) {
 	if filepath.Base(path) == ext {
 		return "", bad("%q has no file name", path)
 	}
-	if err := checkDir(path); err != nil {
-		return "", err
-	}
 	return ext[1:], nil
-}
-
-// checkDir checks that a file can be made at path: its directory exists
-// and it is not itself a directory.
-func checkDir(path string) error {
-	dir := filepath.Dir(path)
-	st, err := os.Stat(dir)
-	if err != nil {
-		return bad("cannot write %s: directory %s: %v", path, dir, unwrapPath(err))
-	}
-	if !st.IsDir() {
-		return bad("cannot write %s: %s is not a directory", path, dir)
-	}
-	if st, err := os.Stat(path); err == nil && st.IsDir() {
-		return bad("cannot write %s: it is a directory", path)
-	}
-	return nil
 }
 
 // extension is the extension of a file name, with its dot.
 func extension(path string) string { return filepath.Ext(path) }
 
 // savePlots draws the plots as panels stacked top to bottom on one figure
-// and writes it to path in the given format, whole or not at all. Each
-// panel's legend is drawn beside it, to the right of its axes, so that it
-// covers no data and no reference line.
-func savePlots(path, format string, plots ...*plot.Plot) error {
+// and stages it in the file and format of pf, to be written with the
+// command's other files. Each panel's legend is drawn beside it, to the
+// right of its axes, so that it covers no data and no reference line.
+func savePlots(pf *plotFlag, plots ...*plot.Plot) error {
 	r := figureLayout(plots)
-	c, err := draw.NewFormattedCanvas(r.width, r.height, format)
+	c, err := draw.NewFormattedCanvas(r.width, r.height, pf.format)
 	if err != nil {
 		return placef("--plot: %v", err)
 	}
@@ -89,7 +68,7 @@ func savePlots(path, format string, plots ...*plot.Plot) error {
 		legC.Max.Y = p.DataCanvas(plotC).Max.Y
 		leg.Draw(legC)
 	}
-	return writeFileAtomic(path, func(w io.Writer) error {
+	return pf.files.write(pf.path, func(w io.Writer) error {
 		_, err := c.WriteTo(w)
 		return err
 	})
@@ -483,7 +462,7 @@ func writeRatePlot(pf *plotFlag, name string, md *kinetics.Model, temps []float6
 	if err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, ps...)
+	return savePlots(pf, ps...)
 }
 
 // addRefLines draws T_e and T_g, each where it is positive, as grey dashed
@@ -597,7 +576,7 @@ func zonePlot(pf *plotFlag, name string, pts plotter.XYs) error {
 	}
 	p.X.Min, p.X.Max = lo/1.5, hi*1.5 // room for the decade labels at the ends
 	p.Add(plotter.NewGrid(), l, s)
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // cctPlotRates is the number of rates the CCT curve of a plot is drawn with.
@@ -631,7 +610,7 @@ func saveFigure(pf *plotFlag, fig *tttFigure) error {
 	if err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // curvePlot draws a measured cooling curve over the material's TTT curve

@@ -65,9 +65,6 @@ func TestTTTPlotGolden(t *testing.T) {
 
 func TestCheckPlotPath(t *testing.T) {
 	dir := t.TempDir()
-	if err := os.Mkdir(filepath.Join(dir, "d.svg"), 0o755); err != nil {
-		t.Fatal(err)
-	}
 	for _, tc := range []struct {
 		path, format, err string
 	}{
@@ -75,8 +72,6 @@ func TestCheckPlotPath(t *testing.T) {
 		{filepath.Join(dir, "a.PNG"), "png", ""},
 		{filepath.Join(dir, "a.pdf"), "", "unsupported plot file type"},
 		{filepath.Join(dir, "a"), "", "unsupported plot file type"},
-		{filepath.Join(dir, "no", "a.svg"), "", "directory"},
-		{filepath.Join(dir, "d.svg"), "", "it is a directory"},
 		{filepath.Join(dir, ".svg"), "", "has no file name"},
 	} {
 		f, err := checkPlotPath(tc.path)

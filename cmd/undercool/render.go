@@ -20,10 +20,15 @@ import (
 	"undercool/presets/answer"
 )
 
-// render writes an answer in the format asked for: a terminal table fitted
-// to the screen, or CSV, JSON or Markdown whole; --columns chooses the
-// columns of the table of any but JSON. Nothing is written when it fails.
+// render writes an answer in the format asked for, once its results are
+// checked (a result that came out NaN is an error, not a printed NaN): a
+// terminal table fitted to the screen, or CSV, JSON or Markdown whole;
+// --columns chooses the columns of the table of any but JSON. Nothing is
+// written when it fails.
 func render(w io.Writer, f *formatFlag, a answer.Answer) error {
+	if err := answer.Check(a); err != nil {
+		return err
+	}
 	var b bytes.Buffer
 	if err := f.draw(&b, a); err != nil {
 		return err

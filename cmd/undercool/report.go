@@ -3,15 +3,13 @@ package main
 import (
 	"bytes"
 	"io"
-	"os"
-	"os/signal"
 	"path/filepath"
 	"strings"
-	"syscall"
 	"time"
 
 	"github.com/spf13/pflag"
 
+	"undercool/cmd/undercool/internal/outfile"
 	"undercool/kinetics/population"
 	"undercool/presets/answer"
 )
@@ -25,8 +23,7 @@ func init() {
 	}
 }
 
-// outFlag is --out FILE or -, checked before any work: a file in a
-// directory that exists, where a file can be made.
+// outFlag is --out FILE or -, checked before any work (register).
 type outFlag struct {
 	given
 	path string
@@ -36,19 +33,15 @@ func (f *outFlag) Set(s string) error {
 	if s == "" {
 		return bad("required: the memo file, e.g. --out memo.md, or --out - to print it")
 	}
-	if s != "-" {
-		if err := checkDir(s); err != nil {
-			return err
-		}
-		probe, err := os.CreateTemp(filepath.Dir(s), ".undercool-probe-*")
-		if err != nil {
-			return bad("cannot write %s: %v", s, unwrapPath(err))
-		}
-		probe.Close()
-		os.Remove(probe.Name())
-	}
 	f.path, f.given = s, given{true, s}
 	return nil
+}
+
+func (f *outFlag) register(name string, fl *files) error {
+	if !f.set || f.path == "-" {
+		return nil
+	}
+	return fl.output(name, f.path)
 }
 
 func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
@@ -57,7 +50,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(out, "out", "the memo, FILE.md, or - for standard output; required")
 	jf := addJMAKFlags(fs, false)
 	at := addTemp(fs, e, "at", "also answer for a hold (storage, anneal) at this temperature, K, C or F (bare = K)")
-	curve := addText(fs, "curve", "also answer for a measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c)")
+	curve := addInput(fs, "curve", "also answer for a measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c)")
 	volume := addVolume(fs, "a sample volume", "sample volume for the onset of nucleation at the critical rate and on --curve, m3, mm3, uL, mL or L (> 0)")
 	pf := &plotFlag{svgOnly: "the memo's plot is an SVG file (FILE.svg)"}
 	fs.Var(pf, "plot", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
@@ -91,6 +84,12 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			in.Date = time.Now().UTC().Format("2006-01-02")
 		}
 		plot := memoPlot(out.path, pf)
+		if plot != "" && !pf.set {
+			// The plot beside the memo: checked with it, before any work.
+			if err := e.files.output("out", plot); err != nil {
+				return err
+			}
+		}
 		if plot != "" {
 			in.Plot = plot
 			if out.path != "-" {
@@ -127,12 +126,15 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			}
 			in.Evolve = &answer.EvolveInput{Card: in.Card, System: sys, Schedule: sched.s, Names: flagNames,
 				Options: population.Options{RelTol: defaultEvolveTol, ConcTol: defaultEvolveTol}}
-			ctx, stop := signal.NotifyContext(baseContext(), os.Interrupt, syscall.SIGTERM)
+			ctx, stop := outfile.NotifyContext(baseContext())
 			defer stop()
 			in.Context = ctx
 			if out.path != "-" {
 				evolvePlot = strings.TrimSuffix(out.path, filepath.Ext(out.path)) + "-evolve.svg"
 				in.EvolvePlot = filepath.ToSlash(filepath.Base(evolvePlot))
+				if err := e.files.output("out", evolvePlot); err != nil {
+					return err
+				}
 			}
 		}
 		in.Command = regenerate(fs, sf, in.Date)
@@ -140,24 +142,25 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if err != nil {
 			return evolveError(err)
 		}
+		if err := answer.Check(m); err != nil {
+			return err
+		}
 		var b bytes.Buffer
 		if err := writeBlocks(&b, m.Blocks()); err != nil {
 			return err
 		}
+		// The memo and its plot are one set: written together or not at all.
 		if plot != "" {
-			if err := writeMemoPlot(plot, m, in); err != nil {
+			if err := writeMemoPlot(&e.files, plot, m, in); err != nil {
 				return err
 			}
 		}
 		if evolvePlot != "" {
 			fig, err := evolveFigure(m.Evolve, in.Card.Name, "svg", true, len(m.Evolve.Histogram) > 0)
 			if err == nil {
-				err = writeFileAtomic(evolvePlot, func(w io.Writer) error { _, err := w.Write(fig); return err })
+				err = e.files.write(evolvePlot, func(w io.Writer) error { _, err := w.Write(fig); return err })
 			}
 			if err != nil {
-				if plot != "" {
-					os.Remove(plot)
-				}
 				return err
 			}
 		}
@@ -165,15 +168,7 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 			_, err := e.stdout.Write(b.Bytes())
 			return err
 		}
-		if err := writeFileAtomic(out.path, func(w io.Writer) error { _, err := w.Write(b.Bytes()); return err }); err != nil {
-			for _, f := range []string{plot, evolvePlot} {
-				if f != "" {
-					os.Remove(f)
-				}
-			}
-			return err
-		}
-		return nil
+		return e.files.write(out.path, func(w io.Writer) error { _, err := w.Write(b.Bytes()); return err })
 	}
 }
 
@@ -193,8 +188,8 @@ func memoPlot(out string, pf *plotFlag) string {
 // the cooling line at the critical rate over it where there is one (the
 // figure of undercool cool --critical --plot), and the measured cooling
 // curve where there is one (as cool --curve --plot draws it).
-func writeMemoPlot(path string, m *answer.Memo, in answer.MemoInput) error {
-	pf := &plotFlag{path: path, format: "svg"}
+func writeMemoPlot(fl *files, path string, m *answer.Memo, in answer.MemoInput) error {
+	pf := &plotFlag{path: path, format: "svg", files: fl}
 	var fig *tttFigure
 	var err error
 	if m.WithCCT() {

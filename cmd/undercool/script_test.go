@@ -12,7 +12,7 @@ var update = flag.Bool("update", false, "rewrite the golden files of the CLI scr
 
 func TestMain(m *testing.M) {
 	testscript.Main(m, map[string]func(){
-		"undercool": func() { os.Exit(run(os.Args[1:], os.Stdin, os.Stdout, os.Stderr)) },
+		"undercool": main,
 	})
 }
 

@@ -133,7 +133,7 @@ func writeTTTPlot(pf *plotFlag, md *kinetics.Model, c *presets.Card, table *kine
 	if err != nil {
 		return err
 	}
-	return savePlots(pf.path, pf.format, p)
+	return savePlots(pf, p)
 }
 
 // tttFigureOf is the figure of the TTT curves of a table.

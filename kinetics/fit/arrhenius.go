@@ -75,32 +75,45 @@ func Arrhenius(T, y, w []float64) (*ArrheniusFit, error) {
 // so that straightness means something (common practice). A shift that
 // takes a temperature to or below absolute zero gives false. It is the
 // test for a temperature column in the wrong scale (dT = ±273.15 K).
+//
+// Only the sum of squares of the shifted line matters here, so it is
+// streamed, storing nothing: a pass for the sums of the line (the running
+// means and co-moments of Welford's update in its weighted form, West
+// D.H.D., Commun. ACM 22 (1979) 532), a pass for its residuals.
 func (f *ArrheniusFit) Straighter(dT float64) bool {
 	if f.Line.DoF < 2 {
 		return false
 	}
-	x := make([]float64, len(f.temps))
+	var sumW, mx, my, sxx, sxy float64
 	for i, T := range f.temps {
 		if !(T+dT > 0) {
 			return false
 		}
-		x[i] = 1 / (T + dT)
+		x, y, w := 1/(T+dT), f.lnY[i], weight(f.w, i)
+		sumW += w
+		dx, dy := x-mx, y-my
+		mx += w / sumW * dx
+		my += w / sumW * dy
+		sxx += w * dx * (x - mx)
+		sxy += w * dx * (y - my)
 	}
-	ls, err := Line(x, f.lnY, f.w)
-	if err != nil {
+	if !(sxx > 0) {
 		return false
 	}
-	return sumSquares(ls.Residuals, f.w) <= sumSquares(f.Line.Residuals, f.w)/4
+	slope := sxy / sxx
+	var shifted, asGiven float64
+	for i, T := range f.temps {
+		r, w := f.lnY[i]-(my+slope*(1/(T+dT)-mx)), weight(f.w, i)
+		shifted += w * r * r
+		asGiven += w * f.Line.Residuals[i] * f.Line.Residuals[i]
+	}
+	return shifted <= asGiven/4
 }
 
-func sumSquares(r, w []float64) float64 {
-	var s float64
-	for i, ri := range r {
-		wi := 1.0
-		if w != nil {
-			wi = w[i]
-		}
-		s += wi * ri * ri
+// weight is the weight of point i, 1 without weights.
+func weight(w []float64, i int) float64 {
+	if w == nil {
+		return 1
 	}
-	return s
+	return w[i]
 }

@@ -149,6 +149,23 @@ func BenchmarkFitArrhenius1000(b *testing.B) {
 	}
 }
 
+// A million points, with the two checks for a temperature column in the
+// wrong scale that fit arrhenius makes.
+func BenchmarkFitArrhenius1e6(b *testing.B) {
+	T, y := arrheniusData(2.0e-7, 62e3, 600, 1100, 1000000, 0.01)
+	b.ReportAllocs()
+	b.ResetTimer()
+	for b.Loop() {
+		f, err := Arrhenius(T, y, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if f.Straighter(273.15) || f.Straighter(-273.15) {
+			b.Fatal("straighter")
+		}
+	}
+}
+
 func ExampleArrhenius() {
 	// Invented diffusivities of a fictitious solute, m²/s.
 	T := []float64{800, 900, 1000, 1100}

@@ -38,7 +38,7 @@ type LinearInputs struct {
 // CoolRow is where cooling at one rate reaches the fraction (the CCT table).
 type CoolRow struct {
 	Rate     Num  `json:"cooling_rate_k_per_s" col:"rate (K/s),g4"`
-	Fraction Num  `json:"fraction" col:"fraction at end,g4"`
+	Fraction Num  `json:"fraction" col:"fraction at end,g4" result:"fraction at the end of the path"`
 	T        Num  `json:"temperature_k" col:"X reached at T (K),f2"`
 	Time     Num  `json:"time_s" col:"after,time"`
 	OnsetT   *Num `json:"onset_temperature_k,omitempty" col:"onset T (K),f2"`
@@ -50,7 +50,7 @@ type CoolRow struct {
 // nose estimate beside it and a CCT table about it.
 type Critical struct {
 	Inputs       LinearInputs `json:"inputs"`
-	Rate         Num          `json:"critical_cooling_rate_k_per_s"` // 0: none needed
+	Rate         Num          `json:"critical_cooling_rate_k_per_s" result:"critical cooling rate"` // 0: none needed
 	NoseEstimate Num          `json:"nose_estimate_k_per_s"`
 	Nose         TimeAt       `json:"nose"`
 	*Onset
@@ -67,7 +67,7 @@ type Critical struct {
 type CCT struct {
 	Inputs LinearInputs `json:"inputs"`
 	*AtRate
-	Critical    Num          `json:"critical_cooling_rate_k_per_s"`
+	Critical    Num          `json:"critical_cooling_rate_k_per_s" result:"critical cooling rate"`
 	Flags       Strings      `json:"flags"`
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
 	Rows        []CoolRow    `json:"rows"`
@@ -78,7 +78,7 @@ type CCT struct {
 // AtRate is what cooling at one rate does.
 type AtRate struct {
 	Rate     Num     `json:"cooling_rate_k_per_s"`
-	Fraction Num     `json:"fraction"`
+	Fraction Num     `json:"fraction" result:"fraction at the end of the path"`
 	Reached  *TimeAt `json:"fraction_reached"` // null: not reached
 	*Onset
 }

@@ -59,8 +59,8 @@ func (c CCurveUsed) MarshalJSON() ([]byte, error) {
 type Curve struct {
 	Inputs CurveInputs `json:"inputs"`
 	*AlongCurve
-	Q           Num          `json:"quench_factor"`
-	Retained    Num          `json:"retained_property_fraction"`
+	Q           Num          `json:"quench_factor" result:"quench factor"`
+	Retained    Num          `json:"retained_property_fraction" result:"retained property fraction"`
 	Band        Num          `json:"band_k"`
 	Flags       *Strings     `json:"flags,omitempty"` // with a material
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
@@ -75,10 +75,10 @@ type Curve struct {
 
 // AlongCurve is what the material did along the curve.
 type AlongCurve struct {
-	Fraction Num     `json:"fraction"`
+	Fraction Num     `json:"fraction" result:"fraction at the end of the curve"`
 	Reached  *TimeAt `json:"fraction_reached"` // null: not reached
 	*Onset
-	Additivity        Num     `json:"additivity_sum"`
+	Additivity        Num     `json:"additivity_sum" result:"additivity sum"`
 	AdditivityReached *TimeAt `json:"additivity_reached"` // null: the sum stays below 1
 }
 

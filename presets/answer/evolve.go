@@ -104,10 +104,10 @@ type EvolveRow struct {
 	Time            Num  `json:"time_s" col:"t (s),g6"`
 	Since           Num  `json:"time_supersaturated_s" col:"since S > 1,elapsed"` // null before the parent first became supersaturated
 	T               Num  `json:"temperature_k" col:"T (K),f2"`
-	NumberDensity   Num  `json:"number_density_per_m3" col:"N (m^-3),g4"`
+	NumberDensity   Num  `json:"number_density_per_m3" col:"N (m^-3),g4" result:"number density"`
 	MeanRadius      *Num `json:"mean_radius_m,omitempty" col:"mean r (nm),nm"`
 	MeanSize        *Num `json:"mean_size_m,omitempty" col:"mean L (um),um"`
-	VolumeFraction  Num  `json:"volume_fraction" col:"f_v,g4"`
+	VolumeFraction  Num  `json:"volume_fraction" col:"f_v,g4" result:"volume fraction"`
 	Matrix          *Num `json:"matrix_concentration,omitempty" col:"matrix c,g4"`
 	Concentration   *Num `json:"concentration_mol_per_m3,omitempty" col:"C (mol/m3),g5"`
 	Supersaturation Num  `json:"supersaturation" col:"S,g4"`
@@ -138,8 +138,8 @@ type Evolve struct {
 	D10              *Num               `json:"d10_m,omitempty"`
 	D50              *Num               `json:"d50_m,omitempty"`
 	D90              *Num               `json:"d90_m,omitempty"`
-	Yield            Num                `json:"yield"`             // of the solute dissolved at the start, now in particles
-	EquilibriumYield Num                `json:"equilibrium_yield"` // at the final temperature
+	Yield            Num                `json:"yield" result:"yield"` // of the solute dissolved at the start, now in particles
+	EquilibriumYield Num                `json:"equilibrium_yield"`    // at the final temperature
 	Balance          Num                `json:"solute_balance_error"`
 	Steps            int                `json:"steps"`
 	PeakClasses      int                `json:"peak_classes"`

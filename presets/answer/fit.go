@@ -66,12 +66,34 @@ func badData(d *presets.Data, err error) error {
 	return &BadData{fmt.Sprintf("%s: %v", d.File, err)}
 }
 
-// notes are the remarks on the data: a weight column left unused.
-func (d FitData) notes(names Names) []string {
-	if d.WeightsIgnored {
-		return []string{fmt.Sprintf("the weight column is ignored; give %s to use it", names.of("weights"))}
+// MaxListed is the most points a fit lists one by one, in its table and
+// its JSON rows: a table of more is read by no one, and a million rows
+// would take a minute and gigabytes to draw. The fit uses every point,
+// however many.
+const MaxListed = 10000
+
+// listed reports whether a fit of the data lists its points.
+func (d FitData) listed() bool { return len(d.Lines) <= MaxListed }
+
+// listed is how many of the n points of a fit of data it lists: all or none.
+func listed(data FitData, n int) int {
+	if data.listed() {
+		return n
 	}
-	return nil
+	return 0
+}
+
+// notes are the remarks on the data: a weight column left unused, points
+// too many to list.
+func (d FitData) notes(names Names) []string {
+	var out []string
+	if d.WeightsIgnored {
+		out = append(out, fmt.Sprintf("the weight column is ignored; give %s to use it", names.of("weights")))
+	}
+	if !d.listed() {
+		out = append(out, fmt.Sprintf("the %d rows are not listed one by one (more than %d); the fit uses them all", len(d.Lines), MaxListed))
+	}
+	return out
 }
 
 // weighted is the header's remark on weights.
@@ -149,7 +171,7 @@ func scatterOf(r2, sd float64, dof int, t float64) Scatter {
 
 // Gamma is a fitted interfacial energy with its spread.
 type Gamma struct {
-	Gamma Num      `json:"gamma_j_per_m2"`
+	Gamma Num      `json:"gamma_j_per_m2" result:"interfacial energy"`
 	SE    Num      `json:"gamma_se_j_per_m2"`
 	CI    Interval `json:"gamma_ci95_j_per_m2"`
 }
@@ -208,8 +230,11 @@ func intervalNote(exact bool, what string, t float64, dof int, how string) strin
 }
 
 // fitDoc finishes the doc of a fit: the remarks on the data, the caution
-// that fits what it computed.
+// that fits what it computed; no table where the points are not listed.
 func fitDoc(d Doc, data FitData, names Names, caution string) Doc {
+	if !data.listed() {
+		d.Table = nil
+	}
 	d.Notes = append(d.Notes, data.notes(names)...)
 	d.Notes = append(d.Notes, caution)
 	return d

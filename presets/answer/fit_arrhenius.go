@@ -69,7 +69,7 @@ type ArrheniusInputs struct {
 // FitArrhenius is y = A·exp(−Q/RT) fitted to a data file.
 type FitArrhenius struct {
 	Inputs   ArrheniusInputs `json:"inputs"`
-	Q        Num             `json:"activation_energy_j_per_mol"`
+	Q        Num             `json:"activation_energy_j_per_mol" result:"activation energy Q"`
 	QSE      Num             `json:"activation_energy_se_j_per_mol"`
 	QCI      Interval        `json:"activation_energy_ci95_j_per_mol"`
 	QkJ      Num             `json:"activation_energy_kj_per_mol"`
@@ -77,7 +77,7 @@ type FitArrhenius struct {
 	A        Num             `json:"pre_exponential"`
 	AUnit    string          `json:"pre_exponential_unit"`
 	ACI      Interval        `json:"pre_exponential_ci95"`
-	LnA      Num             `json:"ln_pre_exponential"`
+	LnA      Num             `json:"ln_pre_exponential" result:"ln of the pre-exponential"`
 	LnASE    Num             `json:"ln_pre_exponential_se"`
 	Scatter                  // r2, residual_sd_ln, degrees_of_freedom, student_t
 	Warnings []Warning       `json:"warnings"`
@@ -148,7 +148,8 @@ func Arrhenius(data FitData, names Names) (*FitArrhenius, error) {
 		Warnings: celsiusWarnings(T, res),
 		Fit:      res, T: T, Y: y, q: *q, Data: data, names: names,
 	}
-	for i, t := range T {
+	a.Rows = []ArrheniusRow{}
+	for i, t := range T[:listed(data, len(T))] {
 		a.Rows = append(a.Rows, ArrheniusRow{fmt.Sprint(d.Lines[i]), Num(t), Num(units.Celsius(t)), Num(1 / t), Num(y[i]), Num(math.Exp(l.At(1 / t))), Num(l.Residuals[i])})
 	}
 	return a, nil

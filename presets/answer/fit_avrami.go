@@ -31,13 +31,13 @@ type AvramiInputs struct {
 // FitAvrami is X = 1 − exp(−k·tⁿ) fitted to transformed fractions.
 type FitAvrami struct {
 	Inputs   AvramiInputs `json:"inputs"`
-	N        Num          `json:"avrami_exponent"`
+	N        Num          `json:"avrami_exponent" result:"Avrami exponent n"`
 	NSE      Num          `json:"avrami_exponent_se"`
 	NCI      Interval     `json:"avrami_exponent_ci95"`
 	K        Num          `json:"rate_constant"`
 	KUnit    string       `json:"rate_constant_unit"`
 	KCI      Interval     `json:"rate_constant_ci95"`
-	LnK      Num          `json:"ln_rate_constant"`
+	LnK      Num          `json:"ln_rate_constant" result:"ln of the rate constant k"`
 	LnKSE    Num          `json:"ln_rate_constant_se"`
 	Half     Num          `json:"half_time_s"`
 	HalfCI   Interval     `json:"half_time_ci95_s"`
@@ -101,7 +101,8 @@ func Avrami(data FitData, names Names) (*FitAvrami, error) {
 		used[i] = j
 	}
 	nan := Num(math.NaN())
-	for i := range t {
+	a.Rows = []AvramiRow{}
+	for i := range t[:listed(data, len(t))] {
 		r := AvramiRow{Line: fmt.Sprint(d.Lines[i]), T: Num(t[i]), X: Num(X[i]), LnT: nan, LnLn: nan, Residual: nan, Used: "left out",
 			Fitted: Num(-math.Expm1(-res.K * math.Pow(t[i], res.N)))}
 		if t[i] > 0 {
@@ -157,7 +158,11 @@ func (a *FitAvrami) Doc() Doc {
 	)
 	if len(a.LeftOut) > 0 {
 		var s []string
-		for _, n := range a.LeftOut {
+		for i, n := range a.LeftOut {
+			if i == 20 {
+				s = append(s, "…") // the JSON lists them all
+				break
+			}
 			s = append(s, fmt.Sprint(n))
 		}
 		doc.Summary = append(doc.Summary, fmt.Sprintf("left out: %d rows with X = 0 or 1 (lines %s)", len(a.LeftOut), strings.Join(s, ", ")))

@@ -121,7 +121,8 @@ func Growth(c *presets.Card, md *kinetics.Model, data FitData, law string, keepX
 		a.Ug, a.UgCI, a.Log10Ug, a.Log10UgSE = Num(res.Ug), res.UgCI, Num(res.Log10Ug), Num(res.Log10UgSE)
 		a.Xi, a.XiSE, a.XiCI, a.XiHeld = Num(res.Xi), Num(res.XiSE), res.XiCI, res.KeepXi
 	}
-	for i, t := range T {
+	a.Rows = []GrowthRow{}
+	for i, t := range T[:listed(data, len(T))] {
 		a.Rows = append(a.Rows, GrowthRow{
 			fmt.Sprint(d.Lines[i]), Num(t), Num(units.Celsius(t)), Num(math.Log10(u[i])),
 			Num(math.Log10(u[i]) - res.Residuals[i]), Num(res.Residuals[i]), Num(res.X[i]), Num(res.Y[i]),

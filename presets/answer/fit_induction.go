@@ -121,7 +121,8 @@ func InductionTimes(in InductionFitInput) (*FitInduction, error) {
 		MinSize: Num(res.MinSize), MaxSize: Num(res.MaxSize), Flags: res.Flags.Keys(),
 		Fit: res, Times: ti, card: card, Data: d, volumeText: in.VolumeText, names: in.Names,
 	}
-	for i := range T {
+	a.Rows = []InductionRow{}
+	for i := range T[:listed(d, len(T))] {
 		n := cnt.Critical(cnt.Boltzmann*T[i]*math.Log(S[i]), res.Gamma, v, shape, T[i])
 		a.Rows = append(a.Rows, InductionRow{
 			fmt.Sprint(d.Lines[i]), Num(T[i]), Num(S[i]), Num(ti[i]), Num(res.X[i]), Num(math.Log(ti[i])),

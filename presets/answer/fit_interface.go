@@ -45,7 +45,7 @@ type FitInterface struct {
 	Held      bool     `json:"prefactor_held"`
 	Scale     Num      `json:"prefactor_scale"`
 	ScaleCI   Interval `json:"prefactor_scale_ci95"`
-	LnScale   Num      `json:"ln_prefactor_scale"`
+	LnScale   Num      `json:"ln_prefactor_scale" result:"ln of the prefactor scale"`
 	LnScaleSE Num      `json:"ln_prefactor_scale_se"`
 	Scatter
 	ClassicalSlope Num            `json:"classical_slope_k_j2_per_m6"`
@@ -196,7 +196,8 @@ func Interface(c *presets.Card, md *kinetics.Model, data FitData, keep bool, nam
 	} else {
 		a.Sites = Num(f.Sites)
 	}
-	for i, t := range T {
+	a.Rows = []InterfaceRow{}
+	for i, t := range T[:listed(data, len(T))] {
 		s := res.Model.At(t)
 		a.Rows = append(a.Rows, InterfaceRow{
 			fmt.Sprint(d.Lines[i]), Num(t), Num(units.Celsius(t)), Num(lnJ[i] / math.Ln10),

@@ -304,6 +304,9 @@ func (m *Memo) Blocks() []Block {
 	}
 	if u := m.u; u != nil {
 		choices = append(choices, fmt.Sprintf("uncertainty: Monte Carlo, %d samples, seed %d, inputs drawn independently; P5, P50 and P95 are the %s", u.run.Samples, u.run.Seed, sample.QuantileDefinition))
+		if w := u.Warning(); w != "" {
+			choices = append(choices, "**warning**: "+w)
+		}
 	} else {
 		choices = append(choices, "uncertainty: none given (no spreads on the card or the command line)")
 	}

@@ -85,6 +85,25 @@ type Uncertainty struct {
 	rowTemps []float64
 }
 
+// minBandSamples is the fewest samples whose P5 and P95 are not simply
+// their smallest and largest: the empirical P5 of n samples is the
+// ⌈0.05·n⌉-th smallest, the smallest itself up to n = 20 (and with one
+// sample P5 = P50 = P95 is that sample).
+const minBandSamples = 21
+
+// Warning says that the bands are meaningless, for too few samples; ""
+// when they are not.
+func (u *Uncertainty) Warning() string {
+	n := u.run.Samples
+	switch {
+	case n >= minBandSamples:
+		return ""
+	case n == 1:
+		return "with 1 sample the bands are meaningless: P5 = P50 = P95 is that one draw (a band needs a few hundred samples or more; the default is 2000)"
+	}
+	return fmt.Sprintf("with %d samples the bands are meaningless: P5 and P95 are the smallest and largest of the %d draws (at least %d tell them apart; a band needs a few hundred or more, the default is 2000)", n, n, minBandSamples)
+}
+
 // run samples the headline results of an answer; rowTemps are the
 // temperatures of the table rows, for per-row headlines.
 func (s *Sampling) run(heads []headline, eval sample.Eval, rowTemps []float64) (*Uncertainty, error) {
@@ -169,6 +188,9 @@ func (u *Uncertainty) ranking(k int) []effectJSON {
 func (u *Uncertainty) MarshalJSON() ([]byte, error) {
 	r := u.run
 	block := Object{{"samples", r.Samples}, {"seed", r.Seed}, {"quantiles", sample.QuantileDefinition}}
+	if w := u.Warning(); w != "" {
+		block = append(block, Field{"warning", w})
+	}
 	var spreads []spreadJSON
 	for i, s := range u.specs {
 		su := r.Spreads[i]
@@ -237,6 +259,9 @@ func (u *Uncertainty) addTo(d *Doc) {
 	}
 	r := u.run
 	d.Summary = append(d.Summary, fmt.Sprintf("uncertainty (%d samples, seed %d): P5 / P50 / P95", r.Samples, r.Seed))
+	if w := u.Warning(); w != "" {
+		d.Summary = append(d.Summary, "  warning: "+w)
+	}
 	perRow := false
 	for k, h := range u.heads {
 		if h.row >= 0 {

@@ -210,32 +210,73 @@ func splitNumber(s string) (string, string) {
 func Parse(s string, k Kind) (float64, error) {
 	s = strings.TrimSpace(s)
 	num, rest := splitNumber(s)
-	if num == "" {
-		return 0, fmt.Errorf("%q is not a number", s)
-	}
-	x, err := strconv.ParseFloat(num, 64)
+	x, err := number(num, s)
 	if err != nil {
-		return 0, fmt.Errorf("%q is not a number", s)
-	}
-	if math.IsInf(x, 0) || math.IsNaN(x) {
-		return 0, fmt.Errorf("%q is not a finite number", s)
+		return 0, err
 	}
 	u := normalise(rest)
 	if u == "" {
 		if !k.Bare {
-			return 0, fmt.Errorf("%q needs a unit of %s (%s)", s, k.Name, k.allowed())
+			return 0, fmt.Errorf("%s needs a unit of %s (%s)", Quote(s), k.Name, k.allowed())
 		}
 		return x, nil
 	}
 	conv, ok := k.lookup(u)
 	if !ok {
-		return 0, fmt.Errorf("unit %q in %q is not a unit of %s (use %s)", strings.TrimSpace(rest), s, k.Name, k.allowed())
+		return 0, fmt.Errorf("unit %s in %s is not a unit of %s (use %s)", Quote(strings.TrimSpace(rest)), Quote(s), k.Name, k.allowed())
 	}
+	return conv.si(x, s)
+}
+
+// number is the value of num, the number at the start of s.
+func number(num, s string) (float64, error) {
+	if num == "" {
+		return 0, fmt.Errorf("%s is not a number", Quote(s))
+	}
+	x, err := strconv.ParseFloat(num, 64)
+	if err != nil {
+		return 0, fmt.Errorf("%s is not a number", Quote(s))
+	}
+	if math.IsInf(x, 0) || math.IsNaN(x) {
+		return 0, fmt.Errorf("%s is not a finite number", Quote(s))
+	}
+	return x, nil
+}
+
+// si is x, written as s in this unit, in SI.
+func (conv unit) si(x float64, s string) (float64, error) {
 	v := (x + conv.offset) * conv.factor
 	if math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q is out of range", s)
+		return 0, fmt.Errorf("%s is out of range", Quote(s))
 	}
 	return v, nil
+}
+
+// In returns the parser of numbers written without their unit u, such as
+// the values of a data file's column whose header names the unit: it
+// reads s as Parse reads s followed by u, with u looked up once (an empty
+// u: as Parse reads s). An unknown unit is an error.
+func (k Kind) In(u string) (func(s string) (float64, error), error) {
+	n := normalise(u)
+	if n == "" {
+		return func(s string) (float64, error) { return Parse(s, k) }, nil
+	}
+	conv, ok := k.lookup(n)
+	if !ok {
+		return nil, fmt.Errorf("unit %s is not a unit of %s (use %s)", Quote(strings.TrimSpace(u)), k.Name, k.allowed())
+	}
+	return func(s string) (float64, error) {
+		s = strings.TrimSpace(s)
+		num, rest := splitNumber(s)
+		if rest != "" {
+			return 0, fmt.Errorf("%s is not a number", Quote(s))
+		}
+		x, err := number(num, s)
+		if err != nil {
+			return 0, err
+		}
+		return conv.si(x, s)
+	}, nil
 }
 
 // ParseAny reads a quantity that may be of one of several kinds (an
@@ -264,7 +305,7 @@ func ParseAny(s string, kinds ...Kind) (float64, int, error) {
 		return 0, 0, first // not a number at all
 	}
 	if strings.TrimSpace(rest) == "" {
-		return 0, 0, fmt.Errorf("%q needs a unit of %s", s, strings.Join(names, " or "))
+		return 0, 0, fmt.Errorf("%s needs a unit of %s", Quote(s), strings.Join(names, " or "))
 	}
-	return 0, 0, fmt.Errorf("%q is not a %s", s, strings.Join(names, " or "))
+	return 0, 0, fmt.Errorf("%s is not a %s", Quote(s), strings.Join(names, " or "))
 }

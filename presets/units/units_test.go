@@ -251,3 +251,34 @@ func FuzzParse(f *testing.F) {
 		}
 	})
 }
+
+// A column's parser reads what Parse reads of the number followed by the
+// column's unit, to the bit.
+func TestInIsParse(t *testing.T) {
+	fields := []string{"1.5", " 300 ", "-40", "1e-3", "2.5E+2", ".5", "5.", "0", "-0", "1e308", "abc", "1.5kg", "", "nan", "inf", "1e999", "5 K"}
+	cases := []struct {
+		k Kind
+		u string
+	}{{Temperature, "c"}, {Temperature, "k"}, {Temperature, "f"}, {Temperature, ""}, {Time, "min"}, {Diffusivity, "m2/s"}, {Diffusivity, "cm2/s"}, {MolarEnergy, "kj/mol"}, {Dimensionless, ""}}
+	for _, c := range cases {
+		in, err := c.k.In(c.u)
+		if err != nil {
+			t.Fatalf("%s in %q: %v", c.k.Name, c.u, err)
+		}
+		for _, f := range fields {
+			want, werr := Parse(f+c.u, c.k)
+			if strings.TrimSpace(f) != f || strings.Contains(f, " ") {
+				want, werr = Parse(strings.TrimSpace(f)+c.u, c.k)
+			}
+			got, gerr := in(f)
+			if (werr == nil) != (gerr == nil) || math.Float64bits(got) != math.Float64bits(want) {
+				t.Errorf("%s in %q, %q: %v, %v; Parse gives %v, %v", c.k.Name, c.u, f, got, gerr, want, werr)
+			}
+		}
+	}
+	for _, u := range []string{"kg", "1k", "e3s"} {
+		if _, err := Time.In(u); err == nil {
+			t.Errorf("unit %q of a time: no error", u)
+		}
+	}
+}

@@ -45,12 +45,12 @@ func usageErr(path, format string, a ...any) error {
 }
 
 func failed(path string, err error) error {
-	return &Error{Path: path, Msg: reason(err)}
+	return &Error{Path: path, Msg: Reason(err)}
 }
 
-// reason is an error without the operation and path an *os.PathError adds
+// Reason is an error without the operation and path an *os.PathError adds
 // (they would name the temporary file, not the user's path).
-func reason(err error) string {
+func Reason(err error) string {
 	var pe *fs.PathError
 	if errors.As(err, &pe) {
 		err = pe.Err
@@ -62,17 +62,23 @@ func reason(err error) string {
 	return err.Error()
 }
 
-// Batch is a set of output files written together. Check every target
-// first (before the work that fills them), then Add each file's content,
-// then Commit. Discard (safe to defer) removes whatever is still staged.
+// Batch is a set of output files written together. Register the inputs
+// and Check every target first (before the work that fills them), in
+// either order, then Add each file's content, then Commit. Discard (safe
+// to defer) removes whatever is still staged.
 type Batch struct {
-	inputs  []input
-	targets map[string]string // cleaned path -> the path as given
+	// Wrap, when not nil, stands between the content and each staged
+	// file: where a test puts a writer that fails as a full disk does.
+	Wrap func(io.Writer) io.Writer
+
+	inputs  []file
+	targets map[string]file // by cleaned path; info nil for a new file
 	staged  []*staged
 	through []through
 }
 
-type input struct {
+// file is a path as the user gave it, and what it was when registered.
+type file struct {
 	path string
 	info os.FileInfo
 }
@@ -90,16 +96,29 @@ type through struct {
 	data []byte
 }
 
-// Input records a file the command reads; Check refuses to write over it.
-// A path that does not exist (or "-") is ignored: it is the reader's
-// business to say so.
-func (b *Batch) Input(path string) {
+// Input records a file the command reads, so that no output replaces it:
+// a target already checked that is the same file is refused here, one
+// checked later by Check. A path that does not exist (or "-") is ignored:
+// it is the reader's business to say so.
+func (b *Batch) Input(path string) error {
 	if path == "" || path == "-" {
-		return
+		return nil
 	}
-	if info, err := os.Stat(path); err == nil {
-		b.inputs = append(b.inputs, input{path, info})
+	info, err := os.Stat(path)
+	if err != nil {
+		return nil
 	}
+	for _, t := range b.targets {
+		if t.info != nil && os.SameFile(info, t.info) {
+			return alsoInput(t.path, path)
+		}
+	}
+	b.inputs = append(b.inputs, file{path, info})
+	return nil
+}
+
+func alsoInput(target, input string) error {
+	return usageErr(target, "it is also an input (%s); write the output to another file", input)
 }
 
 // Check refuses a target that cannot be written, before any work is done.
@@ -113,24 +132,24 @@ func (b *Batch) Check(path string) error {
 	}
 	key := filepath.Clean(path)
 	if b.targets == nil {
-		b.targets = map[string]string{}
+		b.targets = map[string]file{}
 	}
 	if first, ok := b.targets[key]; ok {
-		return usageErr(path, "the same file is already an output (%s)", first)
+		return usageErr(path, "the same file is already an output (%s)", first.path)
 	}
 	info, err := os.Stat(path)
 	switch {
 	case err == nil:
 		for _, in := range b.inputs {
 			if os.SameFile(info, in.info) {
-				return usageErr(path, "it is also an input (%s); write the output to another file", in.path)
+				return alsoInput(path, in.path)
 			}
 		}
 		if info.IsDir() {
 			return usageErr(path, "it is a directory")
 		}
 		if !info.Mode().IsRegular() {
-			b.targets[key] = path
+			b.targets[key] = file{path, info}
 			return nil // written through
 		}
 		if info.Mode().Perm()&0o222 == 0 {
@@ -139,25 +158,25 @@ func (b *Batch) Check(path string) error {
 	case errors.Is(err, fs.ErrNotExist):
 		// A new file: its directory must exist and take files.
 	default:
-		return usageErr(path, "%s", reason(err))
+		return usageErr(path, "%s", Reason(err))
 	}
 	target := resolve(path)
 	dir := filepath.Dir(target)
 	st, err := os.Stat(dir)
 	if err != nil {
-		return usageErr(path, "directory %s: %s", filepath.Dir(path), reason(err))
+		return usageErr(path, "directory %s: %s", filepath.Dir(path), Reason(err))
 	}
 	if !st.IsDir() {
 		return usageErr(path, "%s is not a directory", filepath.Dir(path))
 	}
 	probe, _, err := createTemp(dir, 0o600)
 	if err != nil {
-		return usageErr(path, "%s", reason(err))
+		return usageErr(path, "%s", Reason(err))
 	}
 	name := probe.Name()
 	probe.Close()
 	os.Remove(name)
-	b.targets[key] = path
+	b.targets[key] = file{path, info}
 	return nil
 }
 
@@ -208,7 +227,11 @@ func (b *Batch) Add(path string, write func(io.Writer) error) error {
 			unregister(name, true)
 		}
 	}()
-	if err := write(wrapWriter(f)); err != nil {
+	var w io.Writer = f
+	if b.Wrap != nil {
+		w = b.Wrap(f)
+	}
+	if err := write(w); err != nil {
 		var pe *fs.PathError
 		if errors.As(err, &pe) || errors.Is(err, syscall.ENOSPC) || errors.Is(err, syscall.EIO) {
 			return failed(path, err)
@@ -329,9 +352,6 @@ func createTemp(dir string, perm os.FileMode) (*os.File, string, error) {
 	}
 	return nil, "", errors.New("no free temporary name")
 }
-
-// wrapWriter is where tests put a failing writer in front of a staged file.
-var wrapWriter = func(f *os.File) io.Writer { return f }
 
 // live holds the staged files of this process, for RemoveStaged.
 var live = struct {

@@ -1,59 +1,34 @@
 package outfile
 
 import (
-	"bufio"
+	"context"
 	"errors"
 	"io"
 	"os"
-	"os/exec"
 	"path/filepath"
+	"slices"
 	"strings"
 	"syscall"
 	"testing"
 	"time"
+
+	"undercool/cmd/undercool/internal/faulty"
 )
 
 func text(s string) func(io.Writer) error {
 	return func(w io.Writer) error { _, err := io.WriteString(w, s); return err }
 }
 
-func read(t *testing.T, path string) string {
-	t.Helper()
-	b, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return string(b)
-}
-
 // debris lists files of dir that are not in want.
 func debris(t *testing.T, dir string, want ...string) []string {
 	t.Helper()
-	ents, err := os.ReadDir(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
 	var extra []string
-next:
-	for _, e := range ents {
-		for _, w := range want {
-			if e.Name() == w {
-				continue next
-			}
+	for _, name := range faulty.Names(t, dir) {
+		if !slices.Contains(want, name) {
+			extra = append(extra, name)
 		}
-		extra = append(extra, e.Name())
 	}
 	return extra
-}
-
-func write(t *testing.T, path, content string, perm os.FileMode) {
-	t.Helper()
-	if err := os.WriteFile(path, []byte(content), perm); err != nil {
-		t.Fatal(err)
-	}
-	if err := os.Chmod(path, perm); err != nil {
-		t.Fatal(err)
-	}
 }
 
 func TestNewFileHonoursUmask(t *testing.T) {
@@ -81,7 +56,7 @@ func TestExistingFileKeepsMode(t *testing.T) {
 	dir := t.TempDir()
 	for _, perm := range []os.FileMode{0o600, 0o755, 0o664} {
 		path := filepath.Join(dir, "memo.md")
-		write(t, path, "old", perm)
+		faulty.Put(t, path, "old", perm)
 		var b Batch
 		if err := b.Add(path, text("new")); err != nil {
 			t.Fatal(err)
@@ -90,8 +65,8 @@ func TestExistingFileKeepsMode(t *testing.T) {
 			t.Fatal(err)
 		}
 		info, _ := os.Stat(path)
-		if info.Mode().Perm() != perm || read(t, path) != "new" {
-			t.Errorf("perm %o: got mode %o content %q", perm, info.Mode().Perm(), read(t, path))
+		if info.Mode().Perm() != perm || faulty.Content(t, path) != "new" {
+			t.Errorf("perm %o: got mode %o content %q", perm, info.Mode().Perm(), faulty.Content(t, path))
 		}
 	}
 }
@@ -99,9 +74,9 @@ func TestExistingFileKeepsMode(t *testing.T) {
 func TestRefusedTargets(t *testing.T) {
 	dir := t.TempDir()
 	ro := filepath.Join(dir, "ro.md")
-	write(t, ro, "keep", 0o444)
+	faulty.Put(t, ro, "keep", 0o444)
 	in := filepath.Join(dir, "q.csv")
-	write(t, in, "time_s,temperature_k\n", 0o644)
+	faulty.Put(t, in, "time_s,temperature_k\n", 0o644)
 	link := filepath.Join(dir, "link.csv")
 	if err := os.Symlink(in, link); err != nil {
 		t.Fatal(err)
@@ -119,14 +94,16 @@ func TestRefusedTargets(t *testing.T) {
 	}
 	for _, c := range cases {
 		var b Batch
-		b.Input(in)
+		if err := b.Input(in); err != nil {
+			t.Fatal(err)
+		}
 		err := b.Check(c.path)
 		var oe *Error
 		if !errors.As(err, &oe) || !oe.Usage || !strings.Contains(err.Error(), c.want) {
 			t.Errorf("Check(%q) = %v, want a usage error saying %q", c.path, err, c.want)
 		}
 	}
-	if read(t, ro) != "keep" || read(t, in) != "time_s,temperature_k\n" {
+	if faulty.Content(t, ro) != "keep" || faulty.Content(t, in) != "time_s,temperature_k\n" {
 		t.Error("a refused target changed")
 	}
 	var b Batch
@@ -139,40 +116,22 @@ func TestRefusedTargets(t *testing.T) {
 	}
 }
 
-// full fails with ENOSPC after n bytes, as a full disk does.
-type full struct {
-	w io.Writer
-	n int
-}
-
-func (f *full) Write(p []byte) (int, error) {
-	if len(p) > f.n {
-		k, _ := f.w.Write(p[:f.n])
-		f.n = 0
-		return k, &os.PathError{Op: "write", Path: "/some/.uc-0badf00d", Err: syscall.ENOSPC}
-	}
-	f.n -= len(p)
-	return f.w.Write(p)
-}
-
 // A full disk while the second of two files is written: both old files
 // stay as they were, nothing is left behind, and the error names the
 // user's path, never the temporary one.
 func TestFullDiskKeepsTheOldSet(t *testing.T) {
 	dir := t.TempDir()
 	memo, plot := filepath.Join(dir, "memo.md"), filepath.Join(dir, "memo-ttt.svg")
-	write(t, memo, "old memo", 0o644)
-	write(t, plot, "old plot", 0o644)
-	defer func(w func(*os.File) io.Writer) { wrapWriter = w }(wrapWriter)
+	faulty.Put(t, memo, "old memo", 0o644)
+	faulty.Put(t, plot, "old plot", 0o644)
 	calls := 0
-	wrapWriter = func(f *os.File) io.Writer {
+	b := Batch{Wrap: func(f io.Writer) io.Writer {
 		calls++
 		if calls == 2 {
-			return &full{w: f, n: 3}
+			return &faulty.Full{W: f, N: 3}
 		}
 		return f
-	}
-	var b Batch
+	}}
 	defer b.Discard()
 	if err := b.Add(plot, text("new plot")); err != nil {
 		t.Fatal(err)
@@ -186,7 +145,7 @@ func TestFullDiskKeepsTheOldSet(t *testing.T) {
 		t.Errorf("message %q: want the user's path and the reason, not the temporary name", msg)
 	}
 	b.Discard()
-	if read(t, memo) != "old memo" || read(t, plot) != "old plot" {
+	if faulty.Content(t, memo) != "old memo" || faulty.Content(t, plot) != "old plot" {
 		t.Error("the old files changed")
 	}
 	if extra := debris(t, dir, "memo.md", "memo-ttt.svg"); extra != nil {
@@ -194,10 +153,33 @@ func TestFullDiskKeepsTheOldSet(t *testing.T) {
 	}
 }
 
+// An input named after its output was checked is refused too: the order
+// in which a command learns of its files does not matter.
+func TestInputAfterCheck(t *testing.T) {
+	dir := t.TempDir()
+	card := filepath.Join(dir, "my.toml")
+	faulty.Put(t, card, "name = \"x\"", 0o644)
+	var b Batch
+	if err := b.Check(card); err != nil {
+		t.Fatal(err)
+	}
+	if err := b.Input(filepath.Join(dir, "no-such.csv")); err != nil {
+		t.Errorf("a missing input: %v", err)
+	}
+	err := b.Input(filepath.Join(dir, ".", "my.toml"))
+	var oe *Error
+	if !errors.As(err, &oe) || !oe.Usage || oe.Path != card || !strings.Contains(err.Error(), "also an input") {
+		t.Errorf("Input after Check = %v, want a usage error naming %s", err, card)
+	}
+	if faulty.Content(t, card) != "name = \"x\"" {
+		t.Error("the input changed")
+	}
+}
+
 func TestLinkStaysALink(t *testing.T) {
 	dir := t.TempDir()
 	real := filepath.Join(dir, "real.md")
-	write(t, real, "old", 0o640)
+	faulty.Put(t, real, "old", 0o640)
 	link := filepath.Join(dir, "link.md")
 	if err := os.Symlink("real.md", link); err != nil {
 		t.Fatal(err)
@@ -212,7 +194,7 @@ func TestLinkStaysALink(t *testing.T) {
 	if info, _ := os.Lstat(link); info.Mode()&os.ModeSymlink == 0 {
 		t.Error("the link was replaced by a file")
 	}
-	if read(t, real) != "new" {
+	if faulty.Content(t, real) != "new" {
 		t.Error("the linked file was not written")
 	}
 }
@@ -228,7 +210,7 @@ func TestLongName(t *testing.T) {
 	if err := b.Commit(); err != nil {
 		t.Fatal(err)
 	}
-	if read(t, path) != "<svg/>" {
+	if faulty.Content(t, path) != "<svg/>" {
 		t.Error("not written")
 	}
 }
@@ -322,39 +304,56 @@ func TestInterruptRemovesStaged(t *testing.T) {
 		if err := b.Add(filepath.Join(dir, "memo.md"), text("new")); err != nil {
 			os.Exit(3)
 		}
-		os.Stdout.WriteString("staged\n")
+		os.Stdout.WriteString(faulty.Staged)
 		time.Sleep(time.Minute)
 		os.Exit(4)
 	}
 	dir := t.TempDir()
-	write(t, filepath.Join(dir, "memo.md"), "old", 0o644)
-	cmd := exec.Command(os.Args[0], "-test.run=^TestInterruptRemovesStaged$")
-	cmd.Env = append(os.Environ(), "OUTFILE_CHILD_DIR="+dir)
-	out, err := cmd.StdoutPipe()
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := cmd.Start(); err != nil {
-		t.Fatal(err)
-	}
-	line, _ := bufio.NewReader(out).ReadString('\n')
-	if line != "staged\n" {
-		cmd.Process.Kill()
-		t.Fatalf("child said %q", line)
-	}
-	if extra := debris(t, dir, "memo.md"); len(extra) != 1 {
-		t.Fatalf("expected one staged file, found %v", extra)
-	}
-	cmd.Process.Signal(syscall.SIGINT)
-	err = cmd.Wait()
-	var ee *exec.ExitError
-	if !errors.As(err, &ee) || ee.ExitCode() != 130 {
-		t.Errorf("child ended with %v, want status 130", err)
+	faulty.Put(t, filepath.Join(dir, "memo.md"), "old", 0o644)
+	code := faulty.Interrupt(t, "TestInterruptRemovesStaged", "OUTFILE_CHILD_DIR="+dir, func() {
+		if extra := debris(t, dir, "memo.md"); len(extra) != 1 {
+			t.Errorf("expected one staged file, found %v", extra)
+		}
+	})
+	if code != 130 {
+		t.Errorf("child ended with status %d, want 130", code)
 	}
 	if extra := debris(t, dir, "memo.md"); extra != nil {
 		t.Errorf("left behind %v", extra)
 	}
-	if read(t, filepath.Join(dir, "memo.md")) != "old" {
+	if faulty.Content(t, filepath.Join(dir, "memo.md")) != "old" {
 		t.Error("the old memo changed")
+	}
+}
+
+// A run that stops on an interrupt by itself (NotifyContext) gets the
+// first interrupt through its context, and ends by its own path: here it
+// discards its staged file and exits with status 7.
+func TestInterruptGoesToTheRun(t *testing.T) {
+	if dir := os.Getenv("OUTFILE_RUN_DIR"); dir != "" {
+		RemoveOnSignal()
+		ctx, stop := NotifyContext(context.Background())
+		defer stop()
+		var b Batch
+		if err := b.Add(filepath.Join(dir, "memo.md"), text("new")); err != nil {
+			os.Exit(3)
+		}
+		os.Stdout.WriteString(faulty.Staged)
+		select {
+		case <-ctx.Done():
+			b.Discard()
+			os.Exit(7)
+		case <-time.After(time.Minute):
+			os.Exit(4)
+		}
+	}
+	dir := t.TempDir()
+	faulty.Put(t, filepath.Join(dir, "memo.md"), "old", 0o644)
+	code := faulty.Interrupt(t, "TestInterruptGoesToTheRun", "OUTFILE_RUN_DIR="+dir, func() {})
+	if code != 7 {
+		t.Errorf("child ended with status %d, want 7 (its own path)", code)
+	}
+	if extra := debris(t, dir, "memo.md"); extra != nil {
+		t.Errorf("left behind %v", extra)
 	}
 }
