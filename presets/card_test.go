@@ -339,3 +339,49 @@ func ExampleParse() {
 	// vm = 9.8 cm3/mol = 9.8e-06 m3/mol (line 12)
 	// true
 }
+
+// TestStandingForms: the standing a card states reads as one clause; a
+// rough check stays an estimate, an invented card names no rows, and the
+// card printer writes back what was read. The rows are invented for the
+// test.
+func TestStandingForms(t *testing.T) {
+	tests := []struct {
+		table, want, err string
+		estimate         bool
+	}{
+		{"", EstimateText, "", true},
+		{"calibrated = [\"r.csv:2\"]\n", EstimateText + "; calibrated on 1 measured point", "", true},
+		{"calibrated = [\"r.csv:2\"]\nchecked = [\"r.csv:3\", \"r.csv:4\"]\nerror = \"0.3 decades\"\n", "calibrated on 1 measured point, checked against 2, rms error 0.3 decades", "", false},
+		{"checked = [\"r.csv:3\", \"r.csv:4\"]\nerror = \"0.3 decades\"\n", "calibrated on nothing, checked against 2 measured points, rms error 0.3 decades", "", false},
+		{"checked = [\"r.csv:3\"]\nerror = \"5 decades\"\nestimate = true\n", "estimate: calibrated on nothing, checked against 1 measured point, rms error 5 decades", "", true},
+		{"invented = true\n", InventedText, "", true},
+		{"invented = true\ncalibrated = [\"r.csv:2\"]\n", "", "an invented card is calibrated on and checked against nothing", false},
+		{"estimate = true\n", "", "estimate = true without checked rows", false},
+	}
+	for _, tc := range tests {
+		text := goodCard
+		if tc.table != "" {
+			text += "\n[standing]\n" + tc.table
+		}
+		c, err := Parse([]byte(text), "s.toml")
+		if tc.err != "" {
+			if err == nil || !strings.Contains(err.Error(), tc.err) {
+				t.Errorf("%q: error %v, want %q", tc.table, err, tc.err)
+			}
+			continue
+		}
+		if err != nil {
+			t.Fatalf("%q: %v", tc.table, err)
+		}
+		if got := c.Standing.String(); got != tc.want || c.Standing.Estimate() != tc.estimate {
+			t.Errorf("%q: standing %q (estimate %v), want %q (%v)", tc.table, got, c.Standing.Estimate(), tc.want, tc.estimate)
+		}
+		back, err := Parse(c.TOML(nil), "back.toml")
+		if err != nil {
+			t.Fatalf("%q printed: %v", tc.table, err)
+		}
+		if back.Standing.String() != c.Standing.String() {
+			t.Errorf("%q printed and read back: %q, want %q", tc.table, back.Standing, c.Standing)
+		}
+	}
+}

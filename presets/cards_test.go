@@ -170,8 +170,7 @@ func TestGoldCallister(t *testing.T) {
 // temperature, below their Tg, every answer carries the flag of the glass
 // and names its branch: the glassy Arrhenius line for indomethacin (its
 // card gives glass_q), the extrapolated liquid law for sucrose (its card
-// gives none). The measured checks of indomethacin are in measured_test.go;
-// sucrose has no measured rates and stays an estimate.
+// gives none). The measured checks of both are in measured_test.go.
 func TestAmorphousOrganics(t *testing.T) {
 	for _, c := range []struct {
 		name string
@@ -185,10 +184,6 @@ func TestAmorphousOrganics(t *testing.T) {
 		if f := m.At(298.15).Flags; f&c.flag == 0 {
 			t.Errorf("%s at 25 C: flags %v, want %v", c.name, f.Keys(), c.flag.Keys())
 		}
-	}
-	c, _ := Preset("sucrose")
-	if !c.Standing.Estimate() || c.Standing.String() != EstimateText {
-		t.Errorf("sucrose standing %q, want %q", c.Standing, EstimateText)
 	}
 }
 

@@ -1,6 +1,7 @@
 package presets
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"path/filepath"
@@ -12,6 +13,7 @@ import (
 
 	"undercool/kinetics"
 	"undercool/kinetics/fit"
+	"undercool/kinetics/population"
 	"undercool/presets/units"
 )
 
@@ -30,20 +32,21 @@ const measuredDir = "../testdata/measured"
 type measured struct {
 	cols []Column
 	unit string // "decades" or "K"
-	// diff is model − measured at one row (decades or kelvin).
-	diff func(t *testing.T, md *kinetics.Model, row map[string]float64) float64
+	// diff is model − measured at one row (decades or kelvin), from the
+	// card and its model.
+	diff func(t *testing.T, c *Card, md *kinetics.Model, row map[string]float64) float64
 }
 
 var (
 	colT = Column{Quantity: "temperature", Kind: units.Temperature, Required: true}
 	// rate: log10 J of the model against a measured steady-state rate.
 	rateFile = measured{[]Column{colT, {Quantity: "rate", Kind: units.RateDensity, Required: true}}, "decades",
-		func(t *testing.T, md *kinetics.Model, r map[string]float64) float64 {
+		func(t *testing.T, _ *Card, md *kinetics.Model, r map[string]float64) float64 {
 			return md.At(r["temperature"]).Log10J() - math.Log10(r["rate"])
 		}}
 	// growth: log10 u against a measured growth rate.
 	growthFile = measured{[]Column{colT, {Quantity: "growth_rate", Kind: units.Velocity, Required: true}}, "decades",
-		func(t *testing.T, md *kinetics.Model, r map[string]float64) float64 {
+		func(t *testing.T, _ *Card, md *kinetics.Model, r map[string]float64) float64 {
 			return math.Log10(md.At(r["temperature"]).Growth) - math.Log10(r["growth_rate"])
 		}}
 )
@@ -54,7 +57,7 @@ var (
 // X = 1e-6 for the onset of crystallization in a melt (Uhlmann 1972).
 func timeFile(X float64) measured {
 	return measured{[]Column{colT, {Quantity: "time", Kind: units.Time, Required: true}}, "decades",
-		func(t *testing.T, md *kinetics.Model, r map[string]float64) float64 {
+		func(t *testing.T, _ *Card, md *kinetics.Model, r map[string]float64) float64 {
 			_, a := md.Isothermal(r["temperature"], kinetics.JMAK{})
 			return a.LnTime(X)/math.Ln10 - math.Log10(r["time"])
 		}}
@@ -71,7 +74,7 @@ var measuredFiles = map[string]measured{
 	// The critical cooling rate to stay below X = 1e-6 on linear cooling
 	// from Te to the card's end (Tg), the exact path integral.
 	"vit1-critical-cooling.csv": {[]Column{{Quantity: "critical_cooling_rate", Kind: units.CoolingRate, Required: true}}, "decades",
-		func(t *testing.T, md *kinetics.Model, r map[string]float64) float64 {
+		func(t *testing.T, _ *Card, md *kinetics.Model, r map[string]float64) float64 {
 			c, err := md.LinearCooling(0)
 			if err != nil {
 				t.Fatal(err)
@@ -83,7 +86,7 @@ var measuredFiles = map[string]measured{
 	// V·∫J dt reaches ln 2, which is where it reaches 1 in the volume V/ln 2.
 	"ice-droplet-freezing.csv": {[]Column{{Quantity: "diameter", Kind: units.Length, Required: true},
 		{Quantity: "cooling_rate", Kind: units.CoolingRate, Required: true}, colT}, "K",
-		func(t *testing.T, md *kinetics.Model, r map[string]float64) float64 {
+		func(t *testing.T, _ *Card, md *kinetics.Model, r map[string]float64) float64 {
 			c, err := md.LinearCooling(0)
 			if err != nil {
 				t.Fatal(err)
@@ -95,6 +98,86 @@ var measuredFiles = map[string]measured{
 			}
 			return o.Temp - r["temperature"]
 		}},
+	"sucrose-dsc-scan.csv": scanFile,
+	"sucrose-onset.csv":    timeFile(0.01),
+	"al-sc-ageing-radius.csv": {[]Column{colT, colHeld, {Quantity: "mean_radius", Kind: units.Length, Required: true}}, "decades",
+		func(t *testing.T, c *Card, _ *kinetics.Model, r map[string]float64) float64 {
+			return math.Log10(aged(t, c, r).MeanRadius) - math.Log10(r["mean_radius"])
+		}},
+	"al-sc-ageing-density.csv": {[]Column{colT, colHeld, {Quantity: "number_density", Kind: units.NumberDensity, Required: true}}, "decades",
+		func(t *testing.T, c *Card, _ *kinetics.Model, r map[string]float64) float64 {
+			return math.Log10(aged(t, c, r).NumberDensity) - math.Log10(r["number_density"])
+		}},
+}
+
+// colHeld is the duration of an isothermal hold.
+var colHeld = Column{Quantity: "time", Kind: units.Time, Required: true}
+
+// aged is the last row of the card's ageing alloy (evolve) held at the row's
+// temperature for its time, from the as-quenched solid solution, at the
+// command line's tolerance.
+func aged(t *testing.T, c *Card, r map[string]float64) population.AlloyRow {
+	t.Helper()
+	p, err := c.Population()
+	if err != nil || p.Alloy == nil {
+		t.Fatalf("%s is not an ageing alloy: %v", c.Name, err)
+	}
+	T := r["temperature"]
+	s, err := kinetics.ScheduleFromCurve([]float64{0, r["time"]}, []float64{T, T}, "isothermal hold")
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := p.Alloy.Run(context.Background(), s, population.Options{RelTol: 1e-4, ConcTol: 1e-4})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res.Rows[len(res.Rows)-1]
+}
+
+// scanFile is a heating scan of a glass in a calorimeter: the temperature at
+// which half of it has crystallized (the middle of the exotherm, common
+// practice for a JMAK transformation) on heating at the row's rate from 20 K
+// below Tg, against the measured temperature, in kelvin. The scan is the
+// path integral of kinetics.Model.Along on a path of 4,000 steps (0.03 K for
+// sucrose; the crossing is interpolated in ln Xext, far finer than the
+// kelvins of the data).
+var scanFile = measured{[]Column{{Quantity: "heating_rate", Kind: units.CoolingRate, Required: true}, colT}, "K",
+	func(t *testing.T, _ *Card, md *kinetics.Model, r map[string]float64) float64 {
+		return scanCrystallized(t, md, r["heating_rate"], 0.5) - r["temperature"]
+	}}
+
+// scanCrystallized is the temperature at which the fraction X has
+// crystallized on heating at rate b (K/s) from Tg − 20 K towards Te.
+func scanCrystallized(t *testing.T, md *kinetics.Model, b, X float64) float64 {
+	t.Helper()
+	const n = 4000
+	lo, hi := md.Tg()-20, md.Te()-0.5
+	tm, tp := make([]float64, n+1), make([]float64, n+1)
+	for i := range tp {
+		tp[i] = lo + (hi-lo)*float64(i)/n
+		tm[i] = (tp[i] - lo) / b
+	}
+	p, err := kinetics.NewPath(tm, tp)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, err := md.Along(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	target := math.Log(-math.Log(1 - X))
+	for i := 1; i <= n; i++ {
+		if s.LnXext[i] >= target {
+			a, c := s.LnXext[i-1], s.LnXext[i]
+			f := 0.0
+			if !math.IsInf(a, -1) {
+				f = (target - a) / (c - a)
+			}
+			return tp[i-1] + f*(tp[i]-tp[i-1])
+		}
+	}
+	t.Fatalf("X = %g not reached on heating at %g K/s below %g K", X, b, hi)
+	return math.NaN()
 }
 
 // readMeasuredRow reads row "FILE.csv:LINE" of testdata/measured.
@@ -123,11 +206,25 @@ func readMeasuredRow(t *testing.T, ref string) (measured, map[string]float64) {
 	return m, nil
 }
 
-// diffOf is model − measured at a row, and its unit.
-func diffOf(t *testing.T, md *kinetics.Model, ref string) (float64, string) {
+// diffOf is model − measured at a row, and its unit, for card c and its model md.
+func diffOf(t *testing.T, c *Card, md *kinetics.Model, ref string) (float64, string) {
 	t.Helper()
 	m, row := readMeasuredRow(t, ref)
-	return m.diff(t, md, row), m.unit
+	return m.diff(t, c, md, row), m.unit
+}
+
+// mustCard is a shipped card and its model.
+func mustCard(t *testing.T, name string) (*Card, *kinetics.Model) {
+	t.Helper()
+	c, err := Preset(name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	md, err := c.Model()
+	if err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+	return c, md
 }
 
 // statedError reads the numbers of a standing's error, by unit:
@@ -153,7 +250,9 @@ func statedError(t *testing.T, s string) map[string][2]float64 {
 // a data row of testdata/measured, no row is both calibrated on and
 // checked against, and the rms of the checked rows, per unit, is the
 // number the card states to the last digit it writes (within half a unit
-// of it). A card that names no checked row is an estimate and says so.
+// of it). A card that names no checked row is an estimate and says so, as
+// does one that states estimate = true beside its checked rows; a demo
+// card, and only a demo card, says it is invented.
 func TestStandingRecomputed(t *testing.T) {
 	for _, name := range Names() {
 		t.Run(name, func(t *testing.T) {
@@ -162,9 +261,16 @@ func TestStandingRecomputed(t *testing.T) {
 				t.Fatal(err)
 			}
 			st := c.Standing
-			if st.Estimate() {
-				if !strings.HasPrefix(st.String(), EstimateText) {
-					t.Errorf("standing %q does not begin %q", st, EstimateText)
+			if st.Invented != (c.Kind == "demo") {
+				t.Errorf("kind %q, standing %q: a demo card, and only a demo card, is invented", c.Kind, st)
+			}
+			if len(st.Checked) == 0 {
+				want := EstimateText
+				if st.Invented {
+					want = InventedText
+				}
+				if !strings.HasPrefix(st.String(), want) {
+					t.Errorf("standing %q does not begin %q", st, want)
 				}
 				return
 			}
@@ -177,7 +283,7 @@ func TestStandingRecomputed(t *testing.T) {
 			}
 			sum, n := map[string]float64{}, map[string]int{}
 			for _, ref := range st.Checked {
-				d, unit := diffOf(t, md, ref)
+				d, unit := diffOf(t, c, md, ref)
 				t.Logf("checked %s: model − measured = %+.3f %s", ref, d, unit)
 				sum[unit] += d * d
 				n[unit]++
@@ -203,6 +309,12 @@ func TestStandingRecomputed(t *testing.T) {
 				}
 			}
 			want := fmt.Sprintf("calibrated on %d measured point", len(st.Calibrated))
+			if len(st.Calibrated) == 0 {
+				want = fmt.Sprintf("calibrated on nothing, checked against %d measured point", len(st.Checked))
+			}
+			if st.Rough {
+				want = RoughPrefix + want
+			}
 			if !strings.HasPrefix(st.String(), want) {
 				t.Errorf("standing %q does not begin %q", st, want)
 			}
@@ -219,22 +331,22 @@ type heldOut struct {
 	why string
 }
 
-func checkHeldOut(t *testing.T, md *kinetics.Model, rows []heldOut) {
+func checkHeldOut(t *testing.T, c *Card, md *kinetics.Model, rows []heldOut) {
 	t.Helper()
 	for _, h := range rows {
-		d, unit := diffOf(t, md, h.ref)
-		t.Logf("%s: model − measured = %+.3f %s (tolerance ±%g: %s)", h.ref, d, unit, h.tol, h.why)
+		d, unit := diffOf(t, c, md, h.ref)
+		t.Logf("%s: model − measured = %+.3f %s (tolerance ±%.3g: %s)", h.ref, d, unit, h.tol, h.why)
 		if !(math.Abs(d) <= h.tol) {
-			t.Errorf("%s: model − measured = %+.3f %s, outside ±%g %s (%s)", h.ref, d, unit, h.tol, unit, h.why)
+			t.Errorf("%s: model − measured = %+.3f %s, outside ±%.3g %s (%s)", h.ref, d, unit, h.tol, unit, h.why)
 		}
 	}
 }
 
 // calibrated is a calibration row reproduced from the shipped card, to the
 // rounding of its values.
-func calibrated(t *testing.T, md *kinetics.Model, ref string, tol float64) {
+func calibrated(t *testing.T, c *Card, md *kinetics.Model, ref string, tol float64) {
 	t.Helper()
-	d, unit := diffOf(t, md, ref)
+	d, unit := diffOf(t, c, md, ref)
 	if !(math.Abs(d) <= tol) {
 		t.Errorf("calibration row %s not reproduced: model − measured = %+.4f %s (the card drifted from its calibration)", ref, d, unit)
 	}
@@ -263,9 +375,9 @@ func measuredColumns(t *testing.T, file, q string, lines ...int) (T, y []float64
 // measured 10^9 m^-3 s^-1 at 726 K, and the held-out growth rates within
 // half a decade rms (the targets of the card's calibration).
 func TestLithiumDisilicateMeasured(t *testing.T) {
-	md := mustModel(t, "lithium-disilicate", nil)
+	c, md := mustCard(t, "lithium-disilicate")
 	const rows = "lithium-disilicate-nucleation.csv"
-	checkHeldOut(t, md, []heldOut{
+	checkHeldOut(t, c, md, []heldOut{
 		{rows + ":11", 1, "recalled rate, 0.5 decade each side"},
 		{rows + ":13", 1, "height recalled, 0.5 decade each side"},
 		{rows + ":15", 1, "recalled rate, 0.5 decade each side"},
@@ -285,7 +397,7 @@ func TestLithiumDisilicateMeasured(t *testing.T) {
 	var ss float64
 	growth := []int{10, 12, 13, 15}
 	for _, l := range growth {
-		d, _ := diffOf(t, md, fmt.Sprintf("lithium-disilicate-growth.csv:%d", l))
+		d, _ := diffOf(t, c, md, fmt.Sprintf("lithium-disilicate-growth.csv:%d", l))
 		ss += d * d
 	}
 	rms := math.Sqrt(ss / float64(len(growth)))
@@ -297,7 +409,6 @@ func TestLithiumDisilicateMeasured(t *testing.T) {
 	// Calibration reproduced: gamma(T) refitted on lines 10 and 16 with the
 	// prefactor held, and growth on lines 9, 11 and 14, give the card's
 	// values (to their seven written digits).
-	c, _ := Preset("lithium-disilicate")
 	T, J := measuredColumns(t, rows, "rate", 10, 16)
 	lnJ := []float64{math.Log(J[0]), math.Log(J[1])}
 	g, err := fit.InterfaceWith(md, T, lnJ, nil, fit.InterfaceOptions{Slope: true, KeepScale: true})
@@ -325,8 +436,8 @@ func TestLithiumDisilicateMeasured(t *testing.T) {
 // gamma(T) was calibrated on: reproduced within 30 K and half a decade,
 // which only says the card still carries its calibration.
 func TestVit1Measured(t *testing.T) {
-	md := mustModel(t, "vit1", nil)
-	checkHeldOut(t, md, []heldOut{{"vit1-critical-cooling.csv:8", math.Log10(2), "a factor of 2"}})
+	c, md := mustCard(t, "vit1")
+	checkHeldOut(t, c, md, []heldOut{{"vit1-critical-cooling.csv:8", math.Log10(2), "a factor of 2"}})
 	n, err := md.Nose(630, md.Te()-1, 1e-6, kinetics.JMAK{})
 	if err != nil || !n.Inside() {
 		t.Fatalf("no nose: %v %+v", err, n)
@@ -336,7 +447,7 @@ func TestVit1Measured(t *testing.T) {
 	if math.Abs(n.T-895) > 30 || math.Abs(lt-math.Log10(60)) > 0.5 {
 		t.Errorf("nose %.2f K, %.3g s; calibrated on 895 K, 60 s (within 30 K and 0.5 decade)", n.T, math.Exp(n.LnTime))
 	}
-	calibrated(t, md, "vit1-ttt.csv:9", 0.01)
+	calibrated(t, c, md, "vit1-ttt.csv:9", 0.01)
 	// Outside 800–993 K the calibrated gamma(T) is not to be trusted: flagged.
 	if md.At(700).Flags&kinetics.FlagOutsideCalibrated == 0 || md.At(895).Flags&kinetics.FlagOutsideCalibrated != 0 {
 		t.Error("the calibrated range of vit1 is not flagged as it should be")
@@ -353,10 +464,10 @@ func TestVit1Measured(t *testing.T) {
 // decade. Below Tg, so every one of these answers carries the glassy flag.
 // No room-temperature figure could be verified: none is checked.
 func TestIndomethacinMeasured(t *testing.T) {
-	md := mustModel(t, "indomethacin", nil)
-	checkHeldOut(t, md, []heldOut{{"indomethacin-onset.csv:7", 1, "one decade: sampled ageing times, assumed detected fraction"}})
-	calibrated(t, md, "indomethacin-onset.csv:9", 0.01)
-	calibrated(t, md, "indomethacin-growth.csv:8", 0.01)
+	c, md := mustCard(t, "indomethacin")
+	checkHeldOut(t, c, md, []heldOut{{"indomethacin-onset.csv:7", 1, "one decade: sampled ageing times, assumed detected fraction"}})
+	calibrated(t, c, md, "indomethacin-onset.csv:9", 0.01)
+	calibrated(t, c, md, "indomethacin-growth.csv:8", 0.01)
 	for _, T := range []float64{263.15, 273.15, 298.15} {
 		if md.At(T).Flags&kinetics.FlagBelowTgGlassy == 0 {
 			t.Errorf("at %.2f K, below Tg: no below_tg_glassy flag", T)
@@ -373,13 +484,12 @@ func TestIndomethacinMeasured(t *testing.T) {
 // ±1 K (0.2 K accuracy, plus that decade over a slope of about 1.5 decades
 // per kelvin). Calibration on 234, 236 and 238 K reproduced by a refit.
 func TestIceMeasured(t *testing.T) {
-	md := mustModel(t, "ice", nil)
-	checkHeldOut(t, md, []heldOut{
+	c, md := mustCard(t, "ice")
+	checkHeldOut(t, c, md, []heldOut{
 		{"ice-nucleation.csv:10", 1, "inter-laboratory scatter, about 1 decade"},
 		{"ice-nucleation.csv:12", 1, "inter-laboratory scatter, about 1 decade"},
 		{"ice-droplet-freezing.csv:9", 1, "0.2 K accuracy and 1 decade over 1.5 decades per K"},
 	})
-	c, _ := Preset("ice")
 	T, J := measuredColumns(t, "ice-nucleation.csv", "rate", 9, 11, 13)
 	lnJ := make([]float64, len(J))
 	for i := range J {
@@ -395,3 +505,78 @@ func TestIceMeasured(t *testing.T) {
 }
 
 func relClose(a, b, tol float64) bool { return math.Abs(a-b) <= tol*math.Max(math.Abs(a), math.Abs(b)) }
+
+// TestSucroseMeasured: the sucrose card against the two measurements of dry
+// amorphous sucrose found (testdata/measured/README.md). It is calibrated
+// on a bound: freeze-dried sucrose heated in a micro-calorimeter
+// crystallizes below 100 °C (J. Therm. Anal., abstract, checked; the rate,
+// 1.2 K/min, from memory), reproduced here to 0.05 K. It is checked against
+// the onset of crystallization of spray-dried sucrose 7 K below Tg, 17 days
+// (Bhugra et al. 2007, abstract, checked). The tolerance chosen from the
+// scatter is one decade, as for indomethacin (sampled onsets, an assumed
+// detected fraction, the sample's Tg placed on the card's): the card misses
+// it by about 5 decades, too slow, and says so. This test holds the card to
+// saying so: the miss lies outside the tolerance, the row outside the
+// calibrated range (flagged), and the standing calls times below Tg not
+// credible. A card that reached the row would fail here, to have its
+// standing rewritten.
+func TestSucroseMeasured(t *testing.T) {
+	c, md := mustCard(t, "sucrose")
+	calibrated(t, c, md, "sucrose-dsc-scan.csv:10", 0.05)
+	const row, tol = "sucrose-onset.csv:10", 1.0
+	d, _ := diffOf(t, c, md, row)
+	t.Logf("%s: model − measured = %+.2f decades (tolerance ±%g: missed, and stated)", row, d, tol)
+	if math.Abs(d) <= tol {
+		t.Errorf("%s: model − measured = %+.2f decades, now within ±%g: rewrite the card's standing", row, d, tol)
+	}
+	_, r := readMeasuredRow(t, row)
+	if md.At(r["temperature"]).Flags&kinetics.FlagOutsideCalibrated == 0 {
+		t.Errorf("%s lies inside the calibrated range of the card", row)
+	}
+	if !strings.Contains(c.Standing.Note, "not credible") {
+		t.Errorf("standing note %q does not say that times below Tg are not credible", c.Standing.Note)
+	}
+	// The TTT nose the calibration gives: seconds to minutes above Tg (the
+	// card's note: a few decades at best), no longer 1e28 s.
+	n, err := md.Nose(md.Tg(), md.Te()-1, 1e-6, kinetics.JMAK{})
+	if err != nil || !n.Inside() {
+		t.Fatalf("no nose: %v %+v", err, n)
+	}
+	t.Logf("nose: %.1f K, %.3g s", n.T, math.Exp(n.LnTime))
+	if lt := n.LnTime / math.Ln10; !(lt > 0 && lt < 3) {
+		t.Errorf("nose at %.1f K, %.3g s; want 1 s to 1000 s", n.T, math.Exp(n.LnTime))
+	}
+}
+
+// TestAlScMeasured: the Al–Sc card against the ageing of Al–0.18 at.% Sc
+// (Al–0.3 wt.% Sc), solution treated, quenched and aged 24 h at 300 °C,
+// which holds spherical coherent Al3Sc precipitates of mean radius about 1
+// to 2.5 nm at 1e23 to 1e25 per m³ (Marquis E.A., Seidman D.N., Acta Mater.
+// 49 (2001) 1909; Seidman D.N., Marquis E.A., Dunand D.C., Acta Mater. 50
+// (2002) 4021). The values are FROM MEMORY, not verified against the papers
+// (the searches made found their titles, not their figures); the rows are
+// the geometric middles of those windows, and the windows, set before the
+// run, are the tolerances: ±0.2 decade in radius, ±1 decade in number
+// density. Nothing on the card is fitted to them: γ comes from nucleation
+// rates (Hyland 1992), the solvus and the diffusivity from their own
+// measurements. Run in evolve's size classes at the command line's
+// tolerance. The other commands see the alloy with interface-controlled
+// growth, far too fast, as the card says: its critical cooling rate lies
+// above 1e4 K/s, where a water quench (of order 1e2 to 1e3 K/s, common
+// practice) keeps the Sc in solution.
+func TestAlScMeasured(t *testing.T) {
+	c, md := mustCard(t, "al-sc")
+	checkHeldOut(t, c, md, []heldOut{
+		{"al-sc-ageing-radius.csv:9", math.Log10(2.5 / 1.581), "the recalled window 1.0 to 2.5 nm"},
+		{"al-sc-ageing-density.csv:6", 1, "the recalled window 1e23 to 1e25 per m3"},
+	})
+	cool, err := md.LinearCooling(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	q := cool.CriticalRate(1e-6)
+	t.Logf("critical cooling rate (interface-controlled growth): %.3g K/s", q)
+	if !(q > 1e4) {
+		t.Errorf("critical cooling rate %.3g K/s; the card's standing says it is far too fast (above 1e4 K/s)", q)
+	}
+}

@@ -62,7 +62,7 @@ func (c *Card) TOML(header []string) []byte {
 
 // writeStanding writes the [standing] table of a card that states one.
 func writeStanding(b *bytes.Buffer, s Standing) {
-	if len(s.Calibrated) == 0 && len(s.Checked) == 0 && s.Note == "" {
+	if len(s.Calibrated) == 0 && len(s.Checked) == 0 && s.Note == "" && !s.Invented {
 		return
 	}
 	list := func(rows []string) string {
@@ -73,12 +73,18 @@ func writeStanding(b *bytes.Buffer, s Standing) {
 		return "[" + strings.Join(q, ", ") + "]"
 	}
 	b.WriteString("\n[standing]\n")
+	if s.Invented {
+		b.WriteString("invented = true\n")
+	}
 	if len(s.Calibrated) > 0 {
 		fmt.Fprintf(b, "calibrated = %s\n", list(s.Calibrated))
 	}
 	if len(s.Checked) > 0 {
 		fmt.Fprintf(b, "checked = %s\n", list(s.Checked))
 		fmt.Fprintf(b, "error = %s\n", tomlString(s.Error))
+	}
+	if s.Rough {
+		b.WriteString("estimate = true\n")
 	}
 	if s.Note != "" {
 		fmt.Fprintf(b, "note = %s\n", tomlString(s.Note))

@@ -305,7 +305,7 @@ var outputCases = []struct {
 
 	// --columns chooses columns by their JSON keys, in the order given, in
 	// the table, CSV and Markdown (a hold's CSV is its one record).
-	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,log10_rate_per_m3_s"}, []check{{"stdout", false, `^│ +T \(K\) +│ log10 J \(m\^-3 s\^-1\) \(estimate\) │$`}, {"stdout", false, `^│ +900\.00 │ +11\.294 │$`}, {"stdout", true, `not shown`}}},
+	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,log10_rate_per_m3_s"}, []check{{"stdout", false, `^│ +T \(K\) +│ log10 J \(m\^-3 s\^-1\) \(invented\) │$`}, {"stdout", false, `^│ +900\.00 │ +11\.294 │$`}, {"stdout", true, `not shown`}}},
 	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "log10_rate_per_m3_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^log10_rate_per_m3_s,temperature_k$`}, {"stdout", false, `^11\.29[0-9]*,900$`}}},
 	{"hold", []string{"rate", "--material", "demo-alloy", "--temps", "900K", "--columns", "temperature_k,critical_size", "--format", "markdown"}, []check{{"stdout", false, `^\| +T \(K\) +\| +n\* +\|$`}}},
 	{"hold", []string{"hold", "--material", "demo-alloy", "--at", "900K", "--columns", "time_s,temperature_k", "--format", "csv"}, []check{{"stdout", false, `^time_s,temperature_k$`}}},

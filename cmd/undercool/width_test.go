@@ -84,7 +84,7 @@ func TestScreenWidthDefault(t *testing.T) {
 // screen: every column of the rate table is there.
 func TestCompleteFormats(t *testing.T) {
 	t.Setenv("COLUMNS", "40")
-	heads := []string{"T (K)", "T (°C)", "ΔT (K)", "Δg (J/m3)", "r* (nm)", "n*", "ΔG* (J)", "ΔG*/kT", "Z", "D (m2/s)", "log10 J (m^-3 s^-1) (estimate)", "u (m/s) (estimate)", "flags"}
+	heads := []string{"T (K)", "T (°C)", "ΔT (K)", "Δg (J/m3)", "r* (nm)", "n*", "ΔG* (J)", "ΔG*/kT", "Z", "D (m2/s)", "log10 J (m^-3 s^-1) (invented)", "u (m/s) (invented)", "flags"}
 	keys := "temperature_k,temperature_c,undercooling_k,driving_force_j_per_m3,critical_radius_m,critical_size,barrier_j,barrier_kt,zeldovich,diffusivity_m2_per_s,log10_rate_per_m3_s,growth_rate_m_per_s,flags"
 	for _, format := range []string{"csv", "markdown"} {
 		var stdout, stderr bytes.Buffer

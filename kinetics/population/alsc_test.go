@@ -14,7 +14,7 @@ type alsc struct {
 
 // alscValues are the sourced values, for the bookkeeping checks here; the
 // card al-sc of the command line holds the same values, and its check
-// against a published ageing experiment is presets.TestAlScAgeing300C. "Checked" means the abstract or page was
+// against a published ageing experiment is presets.TestAlScMeasured. "Checked" means the abstract or page was
 // read; "from memory" means recalled and not verified against the page.
 //
 //	value    value used                      source

@@ -51,10 +51,23 @@ type Standing struct {
 	Checked    Strings `json:"checked_against"`
 	Error      string  `json:"rms_error,omitempty"`
 	Note       string  `json:"note,omitempty"`
+	Invented   bool    `json:"invented,omitempty"`
 }
 
 func standingOf(s presets.Standing) Standing {
-	return Standing{Text: s.String(), Estimate: s.Estimate(), Calibrated: s.Calibrated, Checked: s.Checked, Error: s.Error, Note: s.Note}
+	return Standing{Text: s.String(), Estimate: s.Estimate(), Calibrated: s.Calibrated, Checked: s.Checked, Error: s.Error, Note: s.Note, Invented: s.Invented}
+}
+
+// Mark is what stands beside every headline number of the card: InventedWord
+// for an invented material, EstimateWord for an estimate, else nothing.
+func (s Standing) Mark() string {
+	switch {
+	case s.Invented:
+		return InventedWord
+	case s.Estimate:
+		return EstimateWord
+	}
+	return ""
 }
 
 // StandingLine is the header line of a card's standing.
@@ -260,15 +273,20 @@ func (t Transformation) line() string { return "transformation: " + t.Law }
 // whose standing is an estimate.
 const EstimateWord = "(estimate)"
 
-// mark puts EstimateWord beside every headline number of a doc on a
-// material whose standing is an estimate: after each summary line, and in
-// the heads of the columns whose keys begin with one of cols.
+// InventedWord stands beside every headline number of an invented material.
+const InventedWord = "(invented)"
+
+// mark puts the card's mark (Standing.Mark) beside every headline number of
+// a doc on a material whose standing is an estimate or invented: after each
+// summary line, and in the heads of the columns whose keys begin with one of
+// cols.
 func (m Material) mark(d *Doc, cols ...string) {
-	if !m.Standing.Estimate {
+	word := m.Standing.Mark()
+	if word == "" {
 		return
 	}
 	for i := range d.Summary {
-		d.Summary[i] += " " + EstimateWord
+		d.Summary[i] += " " + word
 	}
 	if d.Table == nil {
 		return
@@ -276,7 +294,7 @@ func (m Material) mark(d *Doc, cols ...string) {
 	for i, c := range d.Table.Cols {
 		for _, k := range cols {
 			if strings.HasPrefix(c.Key, k) {
-				d.Table.Cols[i].Head += " " + EstimateWord
+				d.Table.Cols[i].Head += " " + word
 				break
 			}
 		}

@@ -360,8 +360,8 @@ func (m *Memo) resultBlocks() []Block {
 	}
 	results := Table{Cols: cols}
 	mark := ""
-	if m.TTT.Inputs.Standing.Estimate {
-		mark = " " + EstimateWord
+	if w := m.TTT.Inputs.Standing.Mark(); w != "" {
+		mark = " " + w
 	}
 	for _, l := range m.results() {
 		row := []any{mdEscape(l.label), mdEscape(l.value + mark)}
