@@ -235,7 +235,7 @@ func runCurve(e *env, fs *pflag.FlagSet, mf *materialFlags, cf *coolFlags, forma
 	}
 	r.about = append(r.about, "C-curve: "+cc)
 	r.inputs = inputs
-	retained := quench.Retained(k1)
+	retained := math.Exp(k1 * quench.Q)
 	r.summary = append(r.summary, fmt.Sprintf("quench factor Q = integral of dt/C(T): %.4g; retained property fraction exp(k1 Q) = %.4g", quench.Q, retained))
 	extra = append(extra, kv{"quench_factor", quench.Q}, kv{"retained_property_fraction", retained}, kv{"band_k", band})
 	r.extra = extra
