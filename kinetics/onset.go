@@ -38,7 +38,9 @@ func (c *Cooling) Onset(V, q float64) Onset {
 }
 
 // OnsetAlong is the first nucleation event in a volume V (m³, > 0) along a
-// path whose running integrals s came from Along, AlongPath or AnalyzeCurve.
+// path p whose running integrals s came from Along, AlongPath or
+// AnalyzeCurve (s carries the integration; the crossing is solved within
+// the path's steps).
 func OnsetAlong(p Path, s Sums, V float64) Onset {
 	if !(V > 0) {
 		panic("kinetics: OnsetAlong: volume must be positive")
@@ -88,7 +90,7 @@ func (c *Cooling) Sample(V, q, X float64) Sample {
 
 // Sample is the onset and the fraction of the analysis for a volume V (m³, > 0).
 func (a CurveAnalysis) Sample(V float64) Sample {
-	s := Sample{Onset: OnsetAlong(Path{}, a.Sums, V), X: a.X, LnNuclei: math.Inf(-1)}
+	s := Sample{Onset: OnsetAlong(Path{Time: a.Sums.run.time, Temp: a.Sums.run.temp}, a.Sums, V), X: a.X, LnNuclei: math.Inf(-1)}
 	if a.Path.Reached {
 		s.Reached, s.Temp, s.Time = true, a.Path.TempReached, a.Path.TimeReached
 		s.LnNuclei = a.Sums.run.value(sumN, a.Sums.run.at(s.Time)) + math.Log(V)

@@ -255,3 +255,23 @@ func TestQuenchSampledReference(t *testing.T) {
 		t.Errorf("running Q at the end %.15g, total %.15g", r.Running[n], r.Q)
 	}
 }
+
+// TestQuenchProperty: the retained property fraction comes only with a
+// published C-curve, and is exp(k1·Q) of its quench factor.
+func TestQuenchProperty(t *testing.T) {
+	p := LinearPath(750, 300, 20, 45)
+	q, err := Quench(p, esTest, 25)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := QuenchProperty(p, esTest, 25)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Q != q.Q || !scalar.EqualWithinRel(r.Retained, math.Exp(esTest.K1*q.Q), 1e-15) || !(r.Retained > 0 && r.Retained <= 1) {
+		t.Errorf("Q = %g (quench %g), retained %g", r.Q, q.Q, r.Retained)
+	}
+	if _, err := QuenchProperty(p, esTest, 0); err == nil {
+		t.Error("band width 0: no error")
+	}
+}
