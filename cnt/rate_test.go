@@ -155,3 +155,103 @@ func TestTimeLag(t *testing.T) {
 		}
 	}
 }
+
+// capRate is ln J of a spherical-cap nucleus at contact angle θ for the
+// gold nucleus of TestCriticalGold at ΔT = 230 K (Callister Example 10.1)
+// or at a chosen undercooling, with a fixed site density and diffusivity:
+// the parts of CNT this package provides, put together.
+func capRate(theta, dmu, T float64) (lnJ, barrierKT float64) {
+	const gamma, a = 0.132, 0.413e-9
+	v := a * a * a / 4
+	f := cnt.ShapeFactor(theta)
+	n := cnt.Critical(dmu, gamma, v, f, T)
+	lnBeta := cnt.LnAttachmentCap(math.Log(1e-9), n.Size, f, theta, math.Cbrt(v))
+	return cnt.LnRate(math.Log(1e20), n.Zeldovich, lnBeta, n.Barrier, T), n.Barrier / (cnt.Boltzmann * T)
+}
+
+// TestAttachmentCapLimits: the cap attachment against the closed forms of
+// its limits, derived by hand from β*_cap = β*(n*/f)·(1 − cos θ)/2 and
+// Z = Z_hom/√f: θ = 180° is the homogeneous law exactly; at any θ the
+// prefactor is Z·β* = Z_hom·β*_hom/√(2 + cos θ) (1/√2 at 90°, 1/√3 as
+// θ → 0); the rate then differs from the homogeneous one by that factor and
+// by exp((1 − f)·ΔG*_hom/k_BT).
+func TestAttachmentCapLimits(t *testing.T) {
+	lnD, jump := math.Log(1e-9), 0.3e-9
+	if got, want := cnt.LnAttachmentCap(lnD, 500, 1, 180, jump), cnt.LnAttachment(lnD, 500, jump); got != want {
+		t.Errorf("θ = 180°: %.17g, homogeneous %.17g", got, want)
+	}
+	const T, dmu = 1107.0, 1.16e9 * 0.413e-9 * 0.413e-9 * 0.413e-9 / 4 * 230 / 1337
+	hom, bHom := capRate(180, dmu, T)
+	for _, theta := range []float64{150, 90, 60, 15, 1, 1e-3, 1e-6} {
+		got, b := capRate(theta, dmu, T)
+		c := math.Cos(theta * math.Pi / 180)
+		want := hom - 0.5*math.Log(2+c) + bHom - b
+		if !close(got, want, 1e-12) {
+			t.Errorf("θ = %g°: ln J = %.15g, closed form %.15g", theta, got, want)
+		}
+	}
+}
+
+// TestHeterogeneousRateRisesAsThetaFalls: at a fixed site density, J rises
+// as the contact angle falls, from 180° to 1e-6°, on 3,000 angles spaced
+// evenly in ln θ, for a barrier of B = 63 k_BT (gold at ΔT = 230 K) and of
+// 404 k_BT (ΔT = 91 K). From the closed form of LnAttachmentCap, it rises
+// step by step wherever B·sin²θ·(2 + cos θ) ≥ 2/3; at the two ends, where
+// it does not, it never lies more than 1/(12·B) (near 180°) or 1/(108·B)
+// (near 0°) below the largest value at larger angles: the maxima of the
+// closed form to leading order in 1/B, whose next terms are of relative
+// order 1/(3B) (the dips happen at 1 − cos θ ≈ 1/(9B) and 2/(3B)), so the
+// bound is taken as (1 + 1/B) times the leading one. And the barrierless
+// rate is the largest: J(1e-6°) above J(15°), J(90°), J(180°).
+func TestHeterogeneousRateRisesAsThetaFalls(t *testing.T) {
+	const T = 1107.0
+	v := 0.413e-9 * 0.413e-9 * 0.413e-9 / 4
+	for _, dT := range []float64{230, 91} {
+		dmu := 1.16e9 * v * dT / 1337
+		prev, B := capRate(180, dmu, T)
+		top, rising := prev, true
+		const n = 3000
+		for i := 1; i <= n; i++ {
+			theta := 180 * math.Exp(-float64(i)/n*math.Log(180/1e-6))
+			lnJ, _ := capRate(theta, dmu, T)
+			s, c := math.Sin(theta*math.Pi/180), math.Cos(theta*math.Pi/180)
+			rises := B*s*s*(2+c) >= 2.0/3
+			if rises && rising && lnJ < prev-1e-12*math.Abs(prev) {
+				t.Errorf("B = %.0f: ln J falls from %.15g to %.15g at θ = %.4g°, where it must rise", B, prev, lnJ, theta)
+				break
+			}
+			bound := (1 + 1/B) / (108 * B)
+			if theta > 90 {
+				bound = (1 + 1/B) / (12 * B)
+			}
+			if lnJ < top-bound {
+				t.Errorf("B = %.0f: ln J = %.15g at θ = %.4g°, more than %.3g below %.15g", B, lnJ, theta, bound, top)
+				break
+			}
+			prev, top, rising = lnJ, math.Max(top, lnJ), rises
+		}
+		j0, _ := capRate(1e-6, dmu, T)
+		for _, theta := range []float64{15, 90, 180} {
+			if j, _ := capRate(theta, dmu, T); !(j0 > j) {
+				t.Errorf("B = %.0f: ln J(1e-6°) = %.6g not above ln J(%g°) = %.6g", B, j0, theta, j)
+			}
+		}
+		lg := func(theta float64) float64 { j, _ := capRate(theta, dmu, T); return j / math.Ln10 }
+		t.Logf("B = %.0f: log10 J = %.4f at 180°, %.4f at 174°, %.3f at 90°, %.3f at 15°, %.4f at 1°, %.4f at 1e-6°",
+			B, lg(180), lg(174), lg(90), lg(15), lg(1), lg(1e-6))
+	}
+}
+
+// TestSitesOnParticles: 1e18 particles per m³ of 1 µm² each, with
+// molecules of 2.7e-29 m³ (v^(2/3) = 9e-20 m²) give 1e18·1e-12/9e-20 =
+// 1.111e25 sites per m³ (by hand); bad input gives NaN.
+func TestSitesOnParticles(t *testing.T) {
+	if got := cnt.SitesOnParticles(1e18, 1e-12, 2.7e-29); !close(got, 1e18*1e-12/9e-20, 1e-12) {
+		t.Errorf("sites = %g, want %g", got, 1e18*1e-12/9e-20)
+	}
+	for _, c := range [][3]float64{{0, 1, 1}, {1, -1, 1}, {1, 1, math.NaN()}, {math.Inf(1), 1, 1}} {
+		if got := cnt.SitesOnParticles(c[0], c[1], c[2]); !math.IsNaN(got) {
+			t.Errorf("SitesOnParticles(%v) = %g, want NaN", c, got)
+		}
+	}
+}

@@ -25,6 +25,9 @@ const (
 	FlagWLFFarAboveTg
 	// FlagOutsideTable: the temperature lies outside a tabulated driving force.
 	FlagOutsideTable
+	// FlagDefaultSites: nucleation on a substrate (θ < 180°) with no site
+	// density given, so every molecule counts as a site (see DefaultSites).
+	FlagDefaultSites
 )
 
 // Limits behind the validity flags (common practice).
@@ -44,6 +47,7 @@ var flagNames = []struct {
 	{FlagNoMobility, "no_mobility", "below the temperature where the viscosity law diverges: no mobility"},
 	{FlagWLFFarAboveTg, "wlf_far_above_tg", "WLF used more than 100 K above Tg"},
 	{FlagOutsideTable, "outside_table", "outside the tabulated driving force"},
+	{FlagDefaultSites, "default_sites", "heterogeneous nucleation with no site density given: every molecule counted as a site, an upper bound"},
 }
 
 // Keys returns the snake_case names of the set flags, in a fixed order.
@@ -124,7 +128,7 @@ func (md *Model) state(T float64) State {
 		s.LnD = md.m.Mobility.LnDiffusivity(T)
 		s.Growth = GrowthRate(s.LnD, md.jump, s.Dmu/kT)
 		if s.Dmu > 0 {
-			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
+			s.LnBeta = cnt.LnAttachmentCap(s.LnD, s.Nucleus.Size, md.f, md.m.Theta, md.jump)
 			if md.m.Prefactor == PrefactorDiffusion {
 				s.LnBeta = cnt.LnAttachmentDiffusion(s.LnD, s.Nucleus.Radius, md.m.Conc)
 			}
@@ -137,11 +141,22 @@ func (md *Model) state(T float64) State {
 	return s
 }
 
+// DefaultSites reports whether the model nucleates on a substrate
+// (θ < 180°) with no site density given (Material.Sites = 0), so that every
+// molecule of the parent counts as a site: an upper bound on the sites by
+// many orders of magnitude for particles or walls, which a result must
+// state or a command refuse. cnt.SitesOnParticles gives a density from a
+// number of particles per volume and their area.
+func (md *Model) DefaultSites() bool { return md.f < 1 && md.m.Sites == 0 }
+
 // flags are the validity flags of an evaluated state.
 func (md *Model) flags(s State) Flag {
 	var f Flag
+	if md.DefaultSites() {
+		f |= FlagDefaultSites
+	}
 	if math.IsNaN(s.DrivingMole) {
-		return FlagOutsideTable
+		return f | FlagOutsideTable
 	}
 	if !(s.Dmu > 0) {
 		f |= FlagNoDrivingForce
