@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"undercool/cnt"
+	"undercool/internal/beckerdoring"
 )
 
 // β* = 24·D·n*^(2/3)/λ² by hand: D = 1e-9 m²/s, n* = 1000, λ = 0.3 nm gives
@@ -134,14 +135,16 @@ func TestLnRateSpecialCases(t *testing.T) {
 	}
 }
 
-// τ = 1/(2π·Z²·β*), Kelton and Greer (2010) §3.3. By hand: Z = 0.05,
-// β* = 1e6 1/s gives 1/(2π·0.0025·1e6) = 6.3662e-5 s.
+// θ = (π²/6)·τ with τ = 4/(π³·Z²·β*), Kashchiev (1969): by hand, Z = 0.05,
+// β* = 1e6 1/s give τ = 4/(31.006·2500) = 5.1603e-5 s and θ = 2/(3π·2500)
+// = 8.4883e-5 s.
 func TestTimeLag(t *testing.T) {
-	if got := cnt.TimeLag(0.05, math.Log(1e6)); !close(got, 6.3662e-5, 1e-5) {
-		t.Errorf("τ = %g s, want 6.3662e-5 s", got)
+	if got := cnt.TimeLag(0.05, math.Log(1e6)); !close(got, 8.4883e-5, 1e-5) {
+		t.Errorf("θ = %g s, want 8.4883e-5 s", got)
 	}
-	if got, want := cnt.TimeLag(0.02, math.Log(3e4)), 1/(2*math.Pi*0.02*0.02*3e4); !close(got, want, 1e-14) {
-		t.Errorf("τ = %g s, want %g s", got, want)
+	tau := 4 / (math.Pi * math.Pi * math.Pi * 0.02 * 0.02 * 3e4)
+	if got, want := cnt.TimeLag(0.02, math.Log(3e4)), math.Pi*math.Pi/6*tau; !close(got, want, 1e-14) {
+		t.Errorf("θ = %g s, want π²/6·τ = %g s", got, want)
 	}
 	for _, c := range []struct {
 		name   string
@@ -151,8 +154,70 @@ func TestTimeLag(t *testing.T) {
 		{"β* = 0", 0.05, math.Inf(-1)},
 	} {
 		if got := cnt.TimeLag(c.z, c.lnB); !math.IsInf(got, 1) {
-			t.Errorf("%s: τ = %g, want +Inf", c.name, got)
+			t.Errorf("%s: θ = %g, want +Inf", c.name, got)
 		}
+	}
+}
+
+// droplet is a CNT droplet of our own with critical size n* and barrier
+// ΔG* (in k_BT): its critical nucleus from Critical, and the same droplet
+// as a Becker–Döring chain, ΔG(n)/k_BT = −n·Δμ/k_BT + a·n^(2/3) with
+// a = (36π)^(1/3)·v^(2/3)·γ/k_BT and attachment k⁺(n) = n^(2/3) (time in
+// units of a monomer's attachment time), sizes to 3n*.
+func droplet(t *testing.T, nStar, barrier float64) (cnt.Nucleus, *beckerdoring.System) {
+	t.Helper()
+	const T, v = 1000.0, 1e-29
+	kT := cnt.Boltzmann * T
+	dmu := 2 * barrier / nStar * kT // ΔG*/n* = Δμ/2
+	gamma := math.Cbrt(barrier * kT * 3 * dmu * dmu / (16 * math.Pi * v * v))
+	n := cnt.Critical(dmu, gamma, v, 1, T)
+	a := math.Cbrt(36*math.Pi) * math.Pow(v, 2.0/3) * gamma / kT
+	s, err := beckerdoring.CNT(dmu/kT, a, int(3*nStar))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return n, s
+}
+
+// TestTimeLagMasterEquation: the time lag against the Becker–Döring master
+// equation, solved in time (internal/beckerdoring; the lag of the clusters
+// past n* after 60 time lags, exact to 1e-9 there).
+//
+// The check chosen before the run was 5 % for the droplet of n* = 100 and
+// ΔG* = 40 k_BT (CNT-vs-discrete differences of order 1/n* and the
+// near-critical expansion). It failed: the master equation's lag is 1.147
+// times Kashchiev's, and over barriers of 10 to 160 k_BT the ratio runs
+// from 0.72 to 1.61, growing with the barrier: his solution keeps the
+// clusters below the critical region at equilibrium, and their relaxation
+// takes longer the higher the barrier. So this test holds the library's
+// statement of that accuracy (cnt.LnTimeLag) to the master equation, to
+// 0.01 in the ratio: a measurement, not a validation. It still checks that
+// the intercept lag is the better of Kashchiev's two times above 10 k_BT
+// (the characteristic time τ, π²/6 smaller, is 0.53 of the master
+// equation's lag at 40 k_BT), and that Critical's nucleus is the chain's
+// (n* to 1e-9).
+func TestTimeLagMasterEquation(t *testing.T) {
+	for _, c := range []struct{ nStar, barrier, ratio float64 }{
+		{25, 10, 0.72}, {100, 40, 1.15}, {400, 160, 1.61},
+	} {
+		n, s := droplet(t, c.nStar, c.barrier)
+		if !close(n.Size, c.nStar, 1e-9) {
+			t.Fatalf("n* = %.12g, want %g", n.Size, c.nStar)
+		}
+		st, err := s.Integrate(60*cnt.TimeLag(n.Zeldovich, 2.0/3*math.Log(c.nStar)), 0.05)
+		if err != nil {
+			t.Fatal(err)
+		}
+		lag := st.TimeLag(int(c.nStar))
+		theta := cnt.TimeLag(n.Zeldovich, 2.0/3*math.Log(c.nStar)) // β* = k⁺(n*) = n*^(2/3)
+		if r := lag / theta; math.Abs(r-c.ratio) > 0.01 {
+			t.Errorf("n* = %g, ΔG* = %g kT: master equation %.6g, θ %.6g: ratio %.4f, stated %.2f", c.nStar, c.barrier, lag, theta, r, c.ratio)
+		}
+		if tau := theta * 6 / (math.Pi * math.Pi); c.barrier > 10 && !(math.Abs(math.Log(lag/theta)) < math.Abs(math.Log(lag/tau))) {
+			t.Errorf("n* = %g, ΔG* = %g kT: τ = %.6g is closer to the master equation %.6g than θ = %.6g", c.nStar, c.barrier, tau, lag, theta)
+		}
+		t.Logf("n* = %g, ΔG* = %g kT: master equation lag %.6g, θ = 2/(3π Z²β*) = %.6g (ratio %.4f), τ = %.6g",
+			c.nStar, c.barrier, lag, theta, lag/theta, theta*6/(math.Pi*math.Pi))
 	}
 }
 

@@ -92,9 +92,9 @@ func (s State) DrivingVolume(vm float64) float64 { return s.DrivingMole / vm }
 // Log10J is log10 of the rate.
 func (s State) Log10J() float64 { return s.LnJ / math.Ln10 }
 
-// TimeLag is the transient time τ = 1/(2π·Z²·β*), s: NaN without a
-// mobility law or outside a tabulated driving force, +Inf where there is no
-// driving force (nothing nucleates).
+// TimeLag is the time lag of nucleation θ = 2/(3π·Z²·β*), s (see
+// cnt.LnTimeLag): NaN without a mobility law or outside a tabulated driving
+// force, +Inf where there is no driving force (nothing nucleates).
 func (s State) TimeLag() float64 {
 	if math.IsNaN(s.Growth) {
 		return math.NaN()
