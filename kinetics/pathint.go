@@ -65,7 +65,7 @@ const (
 	lambdaMax    = 640.0  // deepest floor (normalized values stay above the subnormals)
 	scanPoints   = 64     // steps of the scan for the scales
 	maxDepth     = 48     // bisections of a segment at most
-	initSpanK    = 100.0  // a long segment is first cut into pieces of at most this many kelvin
+	initSpanK    = 200.0  // a long segment is first cut into pieces of at most this many kelvin
 	smallStep    = 0.5    // endpoint change in ln J, ln u or ln r below which a segment takes the short rule
 	shortTol     = 1e-7   // interpolation error allowed in ln J, ln u, ln r by the short rule
 	shortPoints  = 4      // Gauss nodes of the short rule's interpolant
@@ -852,6 +852,15 @@ func (r *pathRun) pieceAt(t float64) int {
 	return lo
 }
 
+// crossTol is the tolerance of a crossing in a piece, as a fraction of
+// it: 1e-6 K in temperature, or 1e-9 of the piece at constant temperature.
+func crossTol(p piece) float64 {
+	if dT := math.Abs(p.T1 - p.T0); dT > 0 {
+		return math.Max(1e-6/dT, 1e-12)
+	}
+	return 1e-9
+}
+
 // A running sum of a path.
 type sum int
 
@@ -883,7 +892,7 @@ func (r *pathRun) length(a accum) float64 { return a.L * r.uS * r.tS }
 
 // cross returns the first time (s) and temperature (K) where sum k reaches
 // level (ln, SI), at or before time tEnd, and false if it does not. The
-// crossing is solved within its piece to 1e-12 of the piece, integrating
+// crossing is solved within its piece to 1e-6 K (crossTol), integrating
 // the piece's first part with its own rule; a level too close to the
 // floors of the run is sought on a run with deeper floors.
 func (r *pathRun) cross(k sum, level, tEnd float64) (t, T float64, ok bool) {
@@ -932,7 +941,7 @@ func (r *pathRun) cross(k sum, level, tEnd float64) (t, T float64, ok bool) {
 	f := 1.0
 	if p.kind != kindNone {
 		g := func(f float64) float64 { return r.value(k, start.add(r.part(p, f))) - level }
-		if s, err := Root(g, 0, 1, 1e-12); err == nil {
+		if s, err := Root(g, 0, 1, crossTol(p)); err == nil {
 			f = s
 		}
 	}
