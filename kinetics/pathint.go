@@ -69,6 +69,7 @@ const (
 	smallStep    = 0.5    // endpoint change in ln J, ln u or ln r below which a segment takes the short rule
 	shortTol     = 1e-7   // interpolation error allowed in ln J, ln u, ln r by the short rule
 	shortPoints  = 4      // Gauss nodes of the short rule's interpolant
+	flatStep     = 0.03   // change in ln J, ln u and ln r across a segment below which 3 nodes do
 	underflowLn  = -700.0 // ln of a normalized rate below which it is zero in every sum
 )
 
@@ -158,6 +159,10 @@ var (
 	// piece, its 4 nodes integrate e^(x·s) to 2e-12 and e^(x·s)·(1 − s)³,
 	// the shape of W₃, to 2.4e-8 (TestShortRuleError).
 	shortRule = legendre(shortPoints)
+	// flatRule is the same with 3 nodes, for the steps of a dense curve
+	// that change every logarithm by at most flatStep: e^(x·s)·(1 − s)³ to
+	// 7e-9 there (TestShortRuleError).
+	flatRule = legendre(shortPoints - 1)
 
 	// quartic[i][j] is the weight of sample j (at 0, 1/4, 1/2, 3/4, 1)
 	// in the quartic through them at node i of shortRule.
@@ -350,7 +355,7 @@ func newRun(src source, time, temp []float64, band, lambda float64) *pathRun {
 	r.rScale = math.Exp(src.lnC + (r.sJ+3*math.Log(r.uS))/4 - r.sR)
 	r.buf = make([]sample, 3*gaussPoints)
 	r.points = make([]int, n)
-	r.pieces = make([]piece, 0, n+n/4+64)
+	r.pieces = make([]piece, 0, n+n/16+64)
 	w := window{src: src, temp: temp}
 	for k := range w.index {
 		w.index[k] = -1
@@ -658,6 +663,14 @@ func (r *pathRun) neighbours(i int, vs *window) bool {
 	for j := range x {
 		withJ = withJ || y[0][j]-r.sJ > underflowLn
 	}
+	// 3 nodes where the segment is nearly flat in every logarithm (NaN, from
+	// a quantity not collected, compares false: the 4 nodes)
+	ru := shortRule
+	a, b := vs.at(i), vs.at(i+1)
+	if math.Abs(b.lnJ-a.lnJ) <= flatStep && (!r.src.hasU || math.Abs(b.lnU-a.lnU) <= flatStep) &&
+		(!r.src.hasR || math.Abs(b.lnR-a.lnR) <= flatStep) {
+		ru = flatRule
+	}
 	// one piece per stretch between band edges
 	Ta, ta := T[i], r.time[i]
 	for {
@@ -665,7 +678,7 @@ func (r *pathRun) neighbours(i int, vs *window) bool {
 		if e := r.edge(Ta, Tb); !math.IsNaN(e) {
 			Tb, tb = e, r.time[i]+(r.time[i+1]-r.time[i])*(e-T[i])/h
 		}
-		r.pieces = append(r.pieces, r.quarticPiece(&c, x, withJ, ta, tb, Ta, Tb))
+		r.pieces = append(r.pieces, r.quarticPiece(ru, &c, x, withJ, ta, tb, Ta, Tb))
 		if Tb == T[i+1] {
 			return true
 		}
@@ -673,12 +686,12 @@ func (r *pathRun) neighbours(i int, vs *window) bool {
 	}
 }
 
-// quarticPiece integrates [ta, tb] (temperatures Ta, Tb) with shortRule
+// quarticPiece integrates [ta, tb] (temperatures Ta, Tb) with the rule ru
 // from the Newton coefficients c of the quartic in ln J and ln u through
 // the points x (see neighbours).
-func (r *pathRun) quarticPiece(c *[2][5]float64, x *[5]float64, withJ bool, ta, tb, Ta, Tb float64) piece {
-	nodes := r.buf[:shortPoints]
-	for m, z := range shortRule.x {
+func (r *pathRun) quarticPiece(ru *rule, c *[2][5]float64, x *[5]float64, withJ bool, ta, tb, Ta, Tb float64) piece {
+	nodes := r.buf[:len(ru.x)]
+	for m, z := range ru.x {
 		t := Ta + (Tb-Ta)*z
 		pJ, pU := c[0][4], c[1][4]
 		for k := 3; k >= 0; k-- {
@@ -697,7 +710,7 @@ func (r *pathRun) quarticPiece(c *[2][5]float64, x *[5]float64, withJ bool, ta, 
 		}
 		nodes[m] = v
 	}
-	return r.apply(shortRule, nodes, ta, tb, Ta, Tb, kindShort)
+	return r.apply(ru, nodes, ta, tb, Ta, Tb, kindShort)
 }
 
 // lagrangeAt is the Lagrange weights at t of the points x with

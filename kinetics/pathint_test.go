@@ -28,27 +28,33 @@ func TestIntegrationMatrix(t *testing.T) {
 	}
 }
 
-// TestShortRuleError: the short rule's four nodes on the two shapes it
-// meets, e^(x·s) (δ, W₀, R) and e^(x·s)·(1 − s)³ (W₃), for a change x of
-// smallStep = 0.5 in the logarithm across a piece, against the 20-point
-// rule. Stated in pathint.go: 2e-12 and 2.4e-8 (measured 2.2e-12 and
-// 2.4e-8; the tolerance here is the statement).
+// TestShortRuleError: the short rules on the two shapes they meet, e^(x·s)
+// (δ, W₀, R) and e^(x·s)·(1 − s)³ (W₃), against the 20-point rule: the
+// 4-node rule for a change x of smallStep = 0.5 in the logarithm across a
+// piece, the 3-node one for flatStep = 0.03. Stated in pathint.go (the
+// tolerances here): 2e-12 and 2.4e-8 for 4 nodes (measured 2.2e-12,
+// 2.4e-8), 1e-15 and 7e-9 for 3 (measured 6.5e-9 for W₃).
 func TestShortRuleError(t *testing.T) {
 	for _, c := range []struct {
-		k   float64
-		tol float64
-	}{{0, 2.5e-12}, {3, 2.5e-8}} {
-		f := func(s float64) float64 { return math.Exp(smallStep*s) * math.Pow(1-s, c.k) }
+		ru   *rule
+		x, k float64
+		tol  float64
+		name string
+	}{{shortRule, smallStep, 0, 2.5e-12, "4 nodes"}, {shortRule, smallStep, 3, 2.5e-8, "4 nodes"},
+		{flatRule, flatStep, 0, 1e-15, "3 nodes"}, {flatRule, flatStep, 3, 7e-9, "3 nodes"}} {
+		f := func(s float64) float64 { return math.Exp(c.x*s) * math.Pow(1-s, c.k) }
 		var exact, short float64
 		for i, x := range gaussRule.x {
 			exact += gaussRule.g[i] * f(x)
 		}
-		for i, x := range shortRule.x {
-			short += shortRule.g[i] * f(x)
+		for i, x := range c.ru.x {
+			short += c.ru.g[i] * f(x)
 		}
-		if d := math.Abs(short/exact - 1); !(d <= c.tol) {
-			t.Errorf("(1 − s)^%g·e^(%g s): short rule off by %.3g, stated %.3g", c.k, smallStep, d, c.tol)
+		d := math.Abs(short/exact - 1)
+		if !(d <= c.tol) {
+			t.Errorf("%s, (1 − s)^%g·e^(%g s): off by %.3g, stated %.3g", c.name, c.k, c.x, d, c.tol)
 		}
+		t.Logf("%s, (1 − s)^%g·e^(%g s): %.2g", c.name, c.k, c.x, d)
 	}
 }
 
