@@ -32,8 +32,9 @@ import (
 //   - short segments (a densely sampled curve, whose steps change ln J,
 //     ln u and ln r by at most smallStep): ln J, ln u and ln r are
 //     interpolated by the quartic through five samples and the interpolant
-//     integrated by 4-point Gauss–Legendre (TestShortRuleError: 2e-12 on
-//     e^(x·s), 2.4e-8 on W₃'s e^(x·s)·(1 − s)³); the interpolation is
+//     integrated by 4-point Gauss–Legendre, 3-point where every logarithm
+//     changes by at most flatStep (TestShortRuleError: 2e-12 on e^(x·s),
+//     2.4e-8 and 7e-9 on W₃'s e^(x·s)·(1 − s)³); the interpolation is
 //     checked by the cubic through four of the samples predicting the
 //     fifth to shortTol (1e-7 in the logarithm, i.e. relative), else the
 //     segment is bisected. The samples are the path's own points where the
@@ -267,7 +268,6 @@ type pathRun struct {
 	// normalization: times over tS (s), speeds over uS (m/s), J over e^sJ,
 	// r over e^sR
 	tS, uS, sJ, sR float64
-	t0             float64 // time of the first point, s
 	lambda         float64 // floor depth used
 	floor          float64 // e^(−λ)
 	buf            []sample
@@ -333,7 +333,7 @@ func newRun(src source, time, temp []float64, band, lambda float64) *pathRun {
 		lo, hi = math.Min(lo, T), math.Max(hi, T)
 	}
 	lnJ, u, lnR := src.scales(lo, hi)
-	r := &pathRun{src: src, time: time, temp: temp, band: band, span: hi - lo, t0: time[0], tS: time[n-1] - time[0],
+	r := &pathRun{src: src, time: time, temp: temp, band: band, span: hi - lo, tS: time[n-1] - time[0],
 		uS: u, sJ: lnJ, sR: lnR, lambda: lambda, floor: math.Exp(-lambda)}
 	if !(r.tS > 0) {
 		r.tS = 1
