@@ -40,6 +40,9 @@ const (
 	// FlagGammaNotPositive: the interfacial-energy law gives γ(T) ≤ 0; no
 	// nucleus and no rate.
 	FlagGammaNotPositive
+	// FlagDefaultSites: nucleation on a substrate (θ < 180°) with no site
+	// density given, so every molecule counts as a site (see DefaultSites).
+	FlagDefaultSites
 )
 
 // Limits behind the validity flags (common practice).
@@ -64,6 +67,7 @@ var flagNames = []struct {
 	{FlagOutsideCalibrated, "outside_calibrated_range", "outside the range the card was calibrated on"},
 	{FlagOutsideGrowthTable, "outside_growth_table", "outside the measured growth-rate table: growth taken as zero there"},
 	{FlagGammaNotPositive, "gamma_not_positive", "the interfacial-energy law gives gamma <= 0: no nucleus, no rate"},
+	{FlagDefaultSites, "default_sites", "heterogeneous nucleation with no site density given: every molecule counted as a site, an upper bound"},
 }
 
 // Keys returns the snake_case names of the set flags, in a fixed order.
@@ -110,9 +114,9 @@ func (s State) DrivingVolume(vm float64) float64 { return s.DrivingMole / vm }
 // Log10J is log10 of the rate.
 func (s State) Log10J() float64 { return s.LnJ / math.Ln10 }
 
-// TimeLag is the transient time τ = 1/(2π·Z²·β*), s: NaN without a
-// mobility law or outside a tabulated driving force, +Inf where there is no
-// driving force (nothing nucleates).
+// TimeLag is the time lag of nucleation θ = 2/(3π·Z²·β*), s (see
+// cnt.LnTimeLag): NaN without a mobility law or outside a tabulated driving
+// force, +Inf where there is no driving force (nothing nucleates).
 func (s State) TimeLag() float64 {
 	if math.IsNaN(s.Growth) {
 		return math.NaN()
@@ -154,7 +158,7 @@ func (md *Model) state(T float64) State {
 		s.lnU = math.Inf(-1)
 		if x > 0 {
 			s.lnU = s.LnD - md.lnJump + lnThermo(x)
-			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
+			s.LnBeta = cnt.LnAttachmentCap(s.LnD, s.Nucleus.Size, md.f, md.m.Theta, md.jump)
 			if md.m.Prefactor == PrefactorDiffusion {
 				s.LnBeta = cnt.LnAttachmentDiffusion(s.LnD, s.Nucleus.Radius, md.m.Conc)
 			}
@@ -180,11 +184,22 @@ func (md *Model) state(T float64) State {
 	return s
 }
 
+// DefaultSites reports whether the model nucleates on a substrate
+// (θ < 180°) with no site density given (Material.Sites = 0), so that every
+// molecule of the parent counts as a site: an upper bound on the sites by
+// many orders of magnitude for particles or walls, which a result must
+// state or a command refuse. cnt.SitesOnParticles gives a density from a
+// number of particles per volume and their area.
+func (md *Model) DefaultSites() bool { return md.f < 1 && md.m.Sites == 0 }
+
 // flags are the validity flags of an evaluated state.
 func (md *Model) flags(s State) Flag {
 	var f Flag
+	if md.DefaultSites() {
+		f |= FlagDefaultSites
+	}
 	if math.IsNaN(s.DrivingMole) {
-		return FlagOutsideTable
+		return f | FlagOutsideTable
 	}
 	if !(s.Dmu > 0) {
 		f |= FlagNoDrivingForce

@@ -133,7 +133,7 @@ func Curves(in CurveInput) (*Curve, error) {
 		cc = fmt.Sprintf("Evancho-Staley, k1 = %g, k2 = %g s, k3 = %g J/mol, k4 = %g K, k5 = %g J/mol", es.K1, es.K2, es.K3, es.K4, es.K5)
 	}
 	a.about = append(a.about, "C-curve: "+cc)
-	retained := quench.Retained(k1)
+	retained := math.Exp(k1 * quench.Q)
 	a.summary = append(a.summary, fmt.Sprintf("quench factor Q = integral of dt/C(T): %.4g; retained property fraction exp(k1 Q) = %.4g", quench.Q, retained))
 	a.Q, a.Retained, a.Quench = Num(quench.Q), Num(retained), quench
 	a.Rows = []BandRow{} // [] in JSON without bands
