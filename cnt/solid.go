@@ -10,9 +10,8 @@ import "math"
 //	Δμ/k_BT = c_p·ln(c/c_eq) + (1 − c_p)·ln((1 − c)/(1 − c_eq))
 //
 // the ideal-dilute-solution expression for a precipitate of fixed
-// composition (Aaronson H.I., Lee J.K., in Lectures on the Theory of Phase
-// Transformations, TMS (1975); Perez M., Dumont M., Acevedo-Reyes D., Acta
-// Mater. 56 (2008) 2119, eq. 7; both from memory). Multiplied by k_BT it is
+// composition (Perez M., Dumont M., Acevedo-Reyes D., Acta Mater. 56 (2008)
+// 2119, eq. 7, from memory). Multiplied by k_BT it is
 // Δμ for Critical with the volume per atom of the precipitate.
 //
 // Special cases: c ≤ c_eq gives a value ≤ 0 up to the small (1 − c_p) term

@@ -432,6 +432,7 @@ func (a *Evolve) Doc() Doc {
 	steps.Title = "schedule as understood"
 	d.Tables = append(d.Tables, steps)
 	d.Notes = a.notes()
+	a.Inputs.mark(&d, "number_density", "mean_radius", "mean_size", "volume_fraction")
 	return d
 }
 
