@@ -74,7 +74,6 @@ func LinearPath(T0, T1, q float64, n int) Path {
 type Sums struct {
 	L, LnN, LnXext []float64
 	run            *pathRun
-	index          []int // the pieces of run up to each point
 }
 
 // ErrNoRate is returned when a model can give no nucleation rate.
@@ -91,7 +90,7 @@ func (md *Model) source(X float64) source {
 	if math.IsNaN(above) {
 		above = math.Inf(1) // a fixed supersaturation: no T_e, the rate holds at every temperature
 	}
-	s := source{above: above, hasU: md.HasGrowth(), eval: md.rateAndGrowth}
+	s := source{above: above, hasU: md.HasGrowth(), eval: md.lnRateAndGrowth}
 	if X > 0 {
 		lnExtX := lnExtent(X)
 		s.hasR, s.lnC = true, (lnPi3-lnExtX)/4
@@ -101,14 +100,11 @@ func (md *Model) source(X float64) source {
 
 var lnPi3 = math.Log(math.Pi / 3)
 
-// rateAndGrowth is ln J and u ≥ 0 at T.
-func (md *Model) rateAndGrowth(T float64) (lnJ, u float64) {
+// lnRateAndGrowth is ln J and ln u at T (−Inf: none; NaN: the model
+// cannot say).
+func (md *Model) lnRateAndGrowth(T float64) (lnJ, lnU float64) {
 	s := md.state(T)
-	u = s.Growth
-	if !(u > 0) {
-		u = 0
-	}
-	return s.LnJ, u
+	return s.LnJ, s.lnU
 }
 
 // Along integrates the model along the path (straight in T(t) between its
@@ -120,21 +116,17 @@ func (md *Model) Along(p Path) (Sums, error) {
 		return Sums{}, ErrNoRate
 	}
 	r := integratePath(md.source(0), p.Time, p.Temp, 0, math.Inf(1))
-	return r.sums(r.points), nil
+	return r.sums(), nil
 }
 
-// sums are the running integrals at the path points whose piece counts are index.
-func (r *pathRun) sums(index []int) Sums {
-	n := len(index)
+// sums are the running integrals at the points of the path.
+func (r *pathRun) sums() Sums {
+	n := len(r.points)
 	buf := make([]float64, 3*n) // one allocation for the three columns
-	s := Sums{L: buf[:n:n], LnN: buf[n : 2*n : 2*n], LnXext: buf[2*n:], run: r, index: index}
-	j := 0
-	r.walk(func(i int, a accum) bool {
-		for ; j < n && index[j] == i; j++ {
-			s.L[j], s.LnN[j], s.LnXext[j] = r.length(a), r.value(sumN, a), r.value(sumXext, a)
-		}
-		return j < n
-	})
+	s := Sums{L: buf[:n:n], LnN: buf[n : 2*n : 2*n], LnXext: buf[2*n:], run: r}
+	for j, a := range r.atPoint {
+		s.L[j], s.LnN[j], s.LnXext[j] = r.length(a), r.value(sumN, a), r.value(sumXext, a)
+	}
 	return s
 }
 
@@ -181,7 +173,7 @@ func (md *Model) AlongPath(p Path, target float64) (PathResult, Sums, error) {
 		return PathResult{}, Sums{}, ErrNoGrowth
 	}
 	r := integratePath(md.source(0), p.Time, p.Temp, 0, math.Inf(1))
-	s := r.sums(r.points)
+	s := r.sums()
 	return s.result(target), s, nil
 }
 
@@ -222,6 +214,6 @@ func (md *Model) AnalyzeCurve(p Path, X, bandK float64) (CurveAnalysis, error) {
 	if err != nil {
 		return CurveAnalysis{}, err
 	}
-	s := r.sums(r.points)
+	s := r.sums()
 	return CurveAnalysis{X: X, Path: s.result(X), Sums: s, Additivity: q}, nil
 }

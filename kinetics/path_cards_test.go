@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"undercool/kinetics"
+	"undercool/presets"
 )
 
 // TestSparseCurveSamePath: the same 1 K/s cooling of the Vit1 card from
@@ -68,4 +69,63 @@ func TestFractionNeverFalls(t *testing.T) {
 			}
 		}
 	}
+}
+
+// wlfSucrose is the sucrose card with its WLF constant C1 replaced: a
+// mobility law taken far outside its range, so that the growth speed spans
+// hundreds of decades along the path (u reaches 1e123 m/s with C1 = 200,
+// passes the float64 range with 1000).
+func wlfSucrose(t *testing.T, c1 string) *kinetics.Model {
+	t.Helper()
+	c, err := presets.Preset("sucrose")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := c.Set("wlf_c1", c1, "a value far outside the law's range, for the test"); err != nil {
+		t.Fatal(err)
+	}
+	md, err := c.Model()
+	if err != nil {
+		t.Fatal(err)
+	}
+	return md
+}
+
+// TestGrowthBeyondRange: the integrator carries the growth speed by its
+// logarithm. With C1 = 200 the extended volume of linear cooling (1e290
+// and more at 1 K/s) matches the Gauss–Kronrod reference, which works in
+// SI, to 1e-6 (the stated tolerance); with C1 = 1000 the speed passes
+// 1e308 m/s, the reference overflows, and the extended volume is still a
+// finite logarithm (larger than at 200); with C1 = 3000 the speed where
+// nucleation counts lies more than e^745 below the speed near T_e, the
+// normalized sums cannot hold it, and the answer is NaN (a failed
+// computation for the command), never the "nothing transforms" of an
+// underflow.
+func TestGrowthBeyondRange(t *testing.T) {
+	md := wlfSucrose(t, "200")
+	c, err := md.LinearCooling(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ref := kinetics.RefCoolingLnXext(md, c.End, 1e-10)
+	if d := math.Expm1(c.LnXextUnit() - ref); !(math.Abs(d) <= 1e-6) {
+		t.Errorf("C1 = 200: ln Xext %.10g, reference %.10g (%+.2g)", c.LnXextUnit(), ref, d)
+	}
+	big := wlfSucrose(t, "1000")
+	cb, err := big.LinearCooling(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if x := cb.LnXextUnit(); math.IsNaN(x) || math.IsInf(x, 0) || !(x > c.LnXextUnit()) {
+		t.Errorf("C1 = 1000: ln Xext %g, want finite and above %g (C1 = 200)", x, c.LnXextUnit())
+	}
+	lost := wlfSucrose(t, "3000")
+	cl, err := lost.LinearCooling(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if x := cl.LnXextUnit(); !math.IsNaN(x) {
+		t.Errorf("C1 = 3000: ln Xext %g, want NaN (the growth underflows where nucleation counts)", x)
+	}
+	t.Logf("ln Xext at 1 K/s: C1 = 200 %.6g (reference %.6g), 1000 %.6g", c.LnXextUnit(), ref, cb.LnXextUnit())
 }

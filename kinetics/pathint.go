@@ -2,6 +2,7 @@ package kinetics
 
 import (
 	"math"
+	"sort"
 
 	"gonum.org/v1/gonum/integrate/quad"
 
@@ -77,21 +78,25 @@ const (
 )
 
 // sample is what the integrand gives at one temperature: ln of the rate
-// counted (nucleation J, m⁻³·s⁻¹, or 1/C of a C-curve, 1/s), the growth
-// speed u ≥ 0 (m/s) and its logarithm, and ln of the second rate r (1/s).
-// −Inf and 0 mean none.
+// counted (nucleation J, m⁻³·s⁻¹, or 1/C of a C-curve, 1/s), ln of the
+// growth speed u (m/s) and u itself in units of the run's scale (u/e^lnUS,
+// set by pathRun.sample; 0 from source.at), and ln of the second rate r
+// (1/s). −Inf and 0 mean none. The growth speed is carried by its
+// logarithm, like the rates: a speed past the float64 range (a mobility
+// law far outside its range) stays finite in the normalized sums.
 type sample struct{ lnJ, u, lnU, lnR float64 }
 
-// source is an integrand: eval gives ln J and u at a temperature; above
-// is a temperature at or above which nothing happens (T_e; +Inf when
-// none), where segments are cut so that no rule straddles the kink of u
-// there. The second rate, when hasR, is the reciprocal of an Avrami-4 time,
+// source is an integrand: eval gives ln J and ln u at a temperature (−Inf:
+// none); above is a temperature at or above which nothing happens (T_e;
+// +Inf when none), where segments are cut so that no rule straddles the
+// kink of u there. The second rate, when hasR, is the reciprocal of an
+// Avrami-4 time,
 //
 //	r = e^lnC·J^(1/4)·u^(3/4)
 //
 // (the additivity sum's 1/t_X; see Model.source).
 type source struct {
-	eval  func(T float64) (lnJ, u float64)
+	eval  func(T float64) (lnJ, lnU float64)
 	above float64
 	hasU  bool // u may be positive somewhere
 	hasR  bool
@@ -103,14 +108,12 @@ func (s source) at(T float64) sample {
 	if !(T < s.above) {
 		return v
 	}
-	v.lnJ, v.u = s.eval(T)
+	v.lnJ, v.lnU = s.eval(T)
 	if math.IsNaN(v.lnJ) {
 		v.lnJ = math.Inf(-1)
 	}
-	if !(v.u > 0) || math.IsInf(v.u, 1) {
-		v.u = 0
-	} else {
-		v.lnU = math.Log(v.u)
+	if math.IsNaN(v.lnU) {
+		v.lnU = math.Inf(-1)
 	}
 	if s.hasR {
 		if v.lnR = s.lnC + (v.lnJ+3*v.lnU)/4; math.IsNaN(v.lnR) {
@@ -257,38 +260,53 @@ func (a accum) add(p piece) accum {
 }
 
 // pathRun is a path integrated: its pieces in order and the scales that
-// turn the normalized sums into SI. The running state at any piece is
-// found by adding up the pieces before it (see walk).
+// turn the normalized sums into SI, with the running state at every point
+// of the path; the state at any piece is the state at the point before it
+// plus the pieces between (see before).
 type pathRun struct {
 	src        source
 	time, temp []float64 // the points of the path
 	span       float64   // K, the temperature span of the scan
 	band       float64   // K, width of the bands the pieces keep within (0: none)
 	pieces     []piece
-	points     []int // for each point of the path, the number of pieces up to it
-	total      accum // the state at the end
-	// normalization: times over tS (s), speeds over uS (m/s), J over e^sJ,
-	// r over e^sR
-	tS, uS, sJ, sR float64
-	lambda         float64 // floor depth used
-	floor          float64 // e^(−λ)
-	buf            []sample
-	offsets        [3]float64 // see offset
-	rScale         float64    // r/e^sR = rScale·(J/e^sJ·(u/uS)³)^(1/4)
+	points     []int   // for each point of the path, the number of pieces up to it
+	atPoint    []accum // the running state at each point of the path
+	total      accum   // the state at the end
+	// normalization: times over tS (s), speeds over e^lnUS (m/s), J over
+	// e^sJ, r over e^sR
+	tS, lnUS, sJ, sR float64
+	lambda           float64 // floor depth used
+	floor            float64 // e^(−λ)
+	// lost: somewhere nucleation counts while the growth speed there lies
+	// so far below the path's largest (more than e^745) that it underflows
+	// in the normalized sums; the extended volume cannot be represented
+	// and is reported as NaN (see value).
+	lost    bool
+	buf     []sample
+	offsets [3]float64 // see offset
+	rScale  float64    // r/e^sR = rScale·(J/e^sJ·(u/e^lnUS)³)^(1/4)
+	lScale  float64    // m per normalized length, e^lnUS·tS (0 or +Inf past the float64 range)
 }
 
-// scales is the largest ln J, u and ln r of a source on [lo, hi].
-func (s source) scales(lo, hi float64) (lnJ, u, lnR float64) {
-	lnJ, lnR = math.Inf(-1), math.Inf(-1)
+// scales is the largest ln J, ln u and ln r of a source on [lo, hi].
+func (s source) scales(lo, hi float64) (lnJ, lnU, lnR float64) {
+	lnJ, lnU, lnR = math.Inf(-1), math.Inf(-1), math.Inf(-1)
 	hi = math.Min(hi, s.above)
 	if !(hi >= lo) {
-		return lnJ, 0, lnR
+		return lnJ, lnU, lnR
 	}
 	for i := 0; i <= scanPoints; i++ {
 		v := s.at(lo + (hi-lo)*float64(i)/scanPoints)
-		lnJ, u, lnR = math.Max(lnJ, v.lnJ), math.Max(u, v.u), math.Max(lnR, v.lnR)
+		lnJ, lnU, lnR = math.Max(lnJ, v.lnJ), math.Max(lnU, v.lnU), math.Max(lnR, v.lnR)
 	}
-	return lnJ, u, lnR
+	return lnJ, lnU, lnR
+}
+
+// sample is the source at T with u in the run's units.
+func (r *pathRun) sample(T float64) sample {
+	v := r.src.at(T)
+	v.u = math.Exp(v.lnU - r.lnUS)
+	return v
 }
 
 // integratePath integrates a source along the straight segments between
@@ -334,14 +352,14 @@ func newRun(src source, time, temp []float64, band, lambda float64) *pathRun {
 	for _, T := range temp {
 		lo, hi = math.Min(lo, T), math.Max(hi, T)
 	}
-	lnJ, u, lnR := src.scales(lo, hi)
+	lnJ, lnU, lnR := src.scales(lo, hi)
 	r := &pathRun{src: src, time: time, temp: temp, band: band, span: hi - lo, tS: time[n-1] - time[0],
-		uS: u, sJ: lnJ, sR: lnR, lambda: lambda, floor: math.Exp(-lambda)}
+		lnUS: lnU, sJ: lnJ, sR: lnR, lambda: lambda, floor: math.Exp(-lambda)}
 	if !(r.tS > 0) {
 		r.tS = 1
 	}
-	if !(r.uS > 0) {
-		r.uS = 1
+	if math.IsInf(r.lnUS, -1) {
+		r.lnUS = 0
 	}
 	if math.IsInf(r.sJ, -1) {
 		r.sJ = 0
@@ -351,14 +369,15 @@ func newRun(src source, time, temp []float64, band, lambda float64) *pathRun {
 	}
 	r.offsets = [3]float64{
 		sumN:    r.sJ + math.Log(r.tS),
-		sumXext: ln4pi3 + r.sJ + math.Log(r.tS) + 3*math.Log(r.uS*r.tS),
+		sumXext: ln4pi3 + r.sJ + math.Log(r.tS) + 3*(r.lnUS+math.Log(r.tS)),
 		sumR:    r.sR + math.Log(r.tS),
 	}
-	r.rScale = math.Exp(src.lnC + (r.sJ+3*math.Log(r.uS))/4 - r.sR)
+	r.rScale = math.Exp(src.lnC + (r.sJ+3*r.lnUS)/4 - r.sR)
+	r.lScale = math.Exp(r.lnUS) * r.tS
 	r.buf = make([]sample, 3*gaussPoints)
 	r.points = make([]int, n)
 	r.pieces = make([]piece, 0, n+n/16+64)
-	w := window{src: src, temp: temp}
+	w := window{run: r, temp: temp}
 	for k := range w.index {
 		w.index[k] = -1
 	}
@@ -368,16 +387,26 @@ func newRun(src source, time, temp []float64, band, lambda float64) *pathRun {
 		}
 		r.points[i+1] = len(r.pieces)
 	}
-	for _, p := range r.pieces {
-		r.total = r.total.add(p)
+	r.atPoint = make([]accum, n)
+	var a accum
+	j := 0
+	for i, p := range r.pieces {
+		for ; j < n && r.points[j] == i; j++ {
+			r.atPoint[j] = a
+		}
+		a = a.add(p)
 	}
+	for ; j < n; j++ {
+		r.atPoint[j] = a
+	}
+	r.total = a
 	return r
 }
 
 // window holds the samples at the last few points of a path, each
 // evaluated once as the integration moves along.
 type window struct {
-	src   source
+	run   *pathRun
 	temp  []float64
 	v     [8]sample
 	index [8]int
@@ -388,7 +417,7 @@ type window struct {
 func (w *window) at(j int) sample {
 	k := j & 7
 	if w.index[k] != j {
-		w.v[k], w.index[k] = w.src.at(w.temp[j]), j
+		w.v[k], w.index[k] = w.run.sample(w.temp[j]), j
 	}
 	return w.v[k]
 }
@@ -406,7 +435,7 @@ func (r *pathRun) segment(ta, tb, Ta, Tb float64, va, vb sample) {
 	if !math.IsNaN(cut) {
 		tm := ta + (tb-ta)*(cut-Ta)/(Tb-Ta)
 		if tm > ta && tm < tb {
-			vm := r.src.at(cut)
+			vm := r.sample(cut)
 			r.segment(ta, tm, Ta, cut, va, vm)
 			r.segment(tm, tb, cut, Tb, vm, vb)
 			return
@@ -418,7 +447,7 @@ func (r *pathRun) segment(ta, tb, Ta, Tb float64, va, vb sample) {
 	case Ta == Tb:
 		r.pieces = append(r.pieces, r.hold(ta, tb, Ta, va))
 	case math.Abs(Tb-Ta) <= r.span/scanPoints && r.short(va, vb):
-		r.shortSegment(ta, tb, Ta, Tb, va, r.src.at((Ta+Tb)/2), vb, 0)
+		r.shortSegment(ta, tb, Ta, Tb, va, r.sample((Ta+Tb)/2), vb, 0)
 	default:
 		k := math.Ceil(math.Abs(Tb-Ta) / initSpanK)
 		for i := 0.0; i < k; i++ {
@@ -468,7 +497,7 @@ func (r *pathRun) short(a, b sample) bool {
 func (r *pathRun) hold(ta, tb, T float64, v sample) piece {
 	p := piece{t0: ta, t1: tb, T0: T, T1: T, kind: kindHold}
 	h := (tb - ta) / r.tS
-	u := v.u / r.uS
+	u := v.u
 	J := math.Exp(v.lnJ - r.sJ)
 	p.dL = u * h
 	f := J * h
@@ -488,20 +517,23 @@ func (r *pathRun) apply(ru *rule, v []sample, ta, tb, Ta, Tb float64, kind int) 
 	for i := range n {
 		p.dL += ru.g[i] * v[i].u
 	}
-	p.dL *= h / r.uS
+	p.dL *= h
 	for i := range n {
 		gi := ru.g[i] * h
 		lj := v[i].lnJ - r.sJ
 		J := 0.0
 		if lj > underflowLn {
 			J = math.Exp(lj)
+			if v[i].u == 0 && lj > -r.lambda && !math.IsInf(v[i].lnU, -1) {
+				r.lost = true
+			}
 			var d float64
 			row := ru.s[i*n : (i+1)*n]
 			for j := range n {
 				d += row[j] * v[j].u
 			}
 			// ∫ from the node to the end, in [0, δ]
-			if d = d * h / r.uS; !(d > 0) {
+			if d *= h; !(d > 0) {
 				d = 0
 			} else if d > p.dL {
 				d = p.dL
@@ -516,7 +548,7 @@ func (r *pathRun) apply(ru *rule, v []sample, ta, tb, Ta, Tb float64, kind int) 
 			// r = e^lnC·J^(1/4)·u^(3/4): from J and u by two square roots
 			// where both are well inside the float64 range, else by its
 			// logarithm
-			if un := v[i].u / r.uS; J > 1e-280 && un > 1e-90 {
+			if un := v[i].u; J > 1e-280 && un > 1e-90 {
 				p.r += gi * r.rScale * math.Sqrt(math.Sqrt(J*un*un*un))
 			} else {
 				p.r += gi * math.Exp(v[i].lnR-r.sR)
@@ -530,7 +562,7 @@ func (r *pathRun) apply(ru *rule, v []sample, ta, tb, Ta, Tb float64, kind int) 
 func (r *pathRun) gaussPiece(ta, tb, Ta, Tb float64) piece {
 	v := r.buf[:gaussPoints]
 	for i, x := range gaussRule.x {
-		v[i] = r.src.at(Ta + (Tb-Ta)*x)
+		v[i] = r.sample(Ta + (Tb-Ta)*x)
 	}
 	return r.apply(gaussRule, v, ta, tb, Ta, Tb, kindGauss)
 }
@@ -560,7 +592,7 @@ func (r *pathRun) shortPiece(ta, tb, Ta, Tb float64, v *[5]sample, q *[shortPoin
 			n.lnJ = lnJ
 		}
 		if r.src.hasU {
-			n.u = math.Exp(lnU)
+			n.u, n.lnU = math.Exp(lnU-r.lnUS), lnU
 		}
 		if r.src.hasR {
 			n.lnR = lnR
@@ -575,7 +607,7 @@ func (r *pathRun) shortPiece(ta, tb, Ta, Tb float64, v *[5]sample, q *[shortPoin
 // the quarter points to shortTol (the quartic through all five is then
 // closer still), and bisects it otherwise.
 func (r *pathRun) shortSegment(ta, tb, Ta, Tb float64, va, vm, vb sample, depth int) {
-	v := [5]sample{va, r.src.at(Ta + (Tb-Ta)/4), vm, r.src.at(Ta + 3*(Tb-Ta)/4), vb}
+	v := [5]sample{va, r.sample(Ta + (Tb-Ta)/4), vm, r.sample(Ta + 3*(Tb-Ta)/4), vb}
 	if depth >= maxDepth || r.smooth(&v) {
 		r.pieces = append(r.pieces, r.shortPiece(ta, tb, Ta, Tb, &v, quartic))
 		return
@@ -705,7 +737,7 @@ func (r *pathRun) quarticPiece(ru *rule, c *[2][5]float64, x *[5]float64, withJ 
 			v.lnJ = pJ
 		}
 		if r.src.hasU {
-			v.u, v.lnU = math.Exp(pU), pU
+			v.u, v.lnU = math.Exp(pU-r.lnUS), pU
 		}
 		if r.src.hasR {
 			v.lnR = r.src.lnC + (pJ+3*pU)/4
@@ -800,37 +832,25 @@ func (r *pathRun) part(p piece, f float64) piece {
 	case kindNone:
 		return piece{t0: p.t0, t1: tb, T0: p.T0, T1: Tb, kind: kindNone}
 	case kindHold:
-		return r.hold(p.t0, tb, p.T0, r.src.at(p.T0))
+		return r.hold(p.t0, tb, p.T0, r.sample(p.T0))
 	case kindShort:
 		// the samples of shortSegment, at the same temperatures when f = 1
-		v := [5]sample{r.src.at(p.T0), r.src.at(p.T0 + (Tb-p.T0)/4), r.src.at((p.T0 + Tb) / 2), r.src.at(p.T0 + 3*(Tb-p.T0)/4), r.src.at(Tb)}
+		v := [5]sample{r.sample(p.T0), r.sample(p.T0 + (Tb-p.T0)/4), r.sample((p.T0 + Tb) / 2), r.sample(p.T0 + 3*(Tb-p.T0)/4), r.sample(Tb)}
 		return r.shortPiece(p.t0, tb, p.T0, Tb, &v, quartic)
 	}
 	return r.gaussPiece(p.t0, tb, p.T0, Tb)
 }
 
-// walk adds up the pieces in order: visit gets the index of each piece
-// with the running state before it, and once more, with index
-// len(pieces), the state at the end; it stops the walk by returning false.
-func (r *pathRun) walk(visit func(i int, before accum) bool) {
-	var a accum
-	for i, p := range r.pieces {
-		if !visit(i, a) {
-			return
-		}
+// before is the state before piece i (the state at the end for i =
+// len(pieces)): the state at the last path point at or before the piece,
+// and the pieces from there.
+func (r *pathRun) before(i int) accum {
+	j := sort.Search(len(r.points), func(j int) bool { return r.points[j] > i }) - 1
+	a := r.atPoint[j]
+	for _, p := range r.pieces[r.points[j]:i] {
 		a = a.add(p)
 	}
-	visit(len(r.pieces), a)
-}
-
-// before is the state before piece i (the state at the end for i = len(pieces)).
-func (r *pathRun) before(i int) accum {
-	var s accum
-	r.walk(func(j int, a accum) bool {
-		s = a
-		return j < i
-	})
-	return s
+	return a
 }
 
 // at is the state at time t (s, within the path).
@@ -900,10 +920,26 @@ func (a accum) raw(k sum) float64 {
 }
 
 // value is ln of a sum of state a, SI; −Inf for none.
-func (r *pathRun) value(k sum, a accum) float64 { return r.offset(k) + math.Log(a.raw(k)) }
+//
+// The extended volume is NaN where the normalized sums cannot represent it:
+// growth that underflows where nucleation counts (lost), or moments m1, m2
+// of grown nuclei with m3 underflowed to zero. Only a growth speed spanning
+// hundreds of decades along the path (a mobility law far outside its
+// range) gets there.
+func (r *pathRun) value(k sum, a accum) float64 {
+	if k == sumXext && (r.lost || a.m[3] == 0 && (a.m[1] > 0 || a.m[2] > 0)) {
+		return math.NaN()
+	}
+	return r.offset(k) + math.Log(a.raw(k))
+}
 
 // length is ∫u dt of state a, m.
-func (r *pathRun) length(a accum) float64 { return a.L * r.uS * r.tS }
+func (r *pathRun) length(a accum) float64 {
+	if r.lScale > 0 && !math.IsInf(r.lScale, 1) {
+		return a.L * r.lScale
+	}
+	return math.Exp(r.lnUS + math.Log(a.L*r.tS))
+}
 
 // cross returns the first time (s) and temperature (K) where sum k reaches
 // level (ln, SI), at or before time tEnd, and false if it does not. The
@@ -912,8 +948,6 @@ func (r *pathRun) length(a accum) float64 { return a.L * r.uS * r.tS }
 // floors of the run is sought on a run with deeper floors.
 func (r *pathRun) cross(k sum, level, tEnd float64) (t, T float64, ok bool) {
 	r = r.deepen(levelNeeds(level - r.offset(k)))
-	i := -1
-	var start accum
 	lvl := level - r.offset(k) // normalized
 	thr := math.Exp(lvl)
 	reaches := func(a accum) bool {
@@ -922,29 +956,31 @@ func (r *pathRun) cross(k sum, level, tEnd float64) (t, T float64, ok bool) {
 		}
 		return math.Log(a.raw(k)) >= lvl
 	}
-	var a accum
-	for j := range r.pieces {
-		p := &r.pieces[j]
+	// The sums never fall: the first path point where the sum has reached
+	// the level, by bisection, and the first piece before it that reaches
+	// it.
+	n := len(r.points)
+	j := sort.Search(n, func(j int) bool { return reaches(r.atPoint[j]) })
+	if j == n {
+		return 0, 0, false
+	}
+	from := 0
+	if j > 0 {
+		from = r.points[j-1]
+	}
+	i := -1
+	start := r.atPoint[max(j-1, 0)]
+	for m := from; m < len(r.pieces); m++ {
+		p := &r.pieces[m]
 		if p.t0 >= tEnd {
 			break
 		}
-		var next accum
-		switch k { // only the sum asked for
-		case sumN:
-			next.m[0] = a.m[0] + p.w[0]
-		case sumR:
-			next.r = a.r + p.r
-		default:
-			next = a.add(*p)
+		if next := start.add(*p); !reaches(next) {
+			start = next
+			continue
 		}
-		if reaches(next) {
-			i = j
-			break
-		}
-		a = next
-	}
-	if i >= 0 {
-		start = r.before(i)
+		i = m
+		break
 	}
 	if i < 0 {
 		return 0, 0, false

@@ -155,7 +155,7 @@ var ErrTooManyBands = fmt.Errorf("band width too narrow for the path: more than 
 // so each band holds exactly the integral over the time spent in it.
 // Errors: ErrBandWidth, ErrTooManyBands, ErrQuenchOverflow.
 func Quench(p Path, c CCurve, bandK float64) (QuenchResult, error) {
-	src := source{above: math.Inf(1), eval: func(T float64) (float64, float64) { return c.LnInvTime(T), 0 }}
+	src := source{above: math.Inf(1), eval: func(T float64) (float64, float64) { return c.LnInvTime(T), math.Inf(-1) }}
 	q, _, err := quench(p, src, sumN, bandK)
 	return q, err
 }
@@ -183,13 +183,9 @@ func quench(p Path, src source, k sum, bandK float64) (QuenchResult, *pathRun, e
 		return math.Exp(r.offset(k) + math.Log(raw))
 	}
 	res := QuenchResult{Q: si(r.total.raw(k)), LnQ: lnQ, Running: make([]float64, len(r.points))}
-	i := 0
-	r.walk(func(j int, a accum) bool {
-		for ; i < len(r.points) && r.points[i] == j; i++ {
-			res.Running[i] = si(a.raw(k))
-		}
-		return i < len(r.points)
-	})
+	for i, a := range r.atPoint {
+		res.Running[i] = si(a.raw(k))
+	}
 	if t, T, ok := r.cross(k, 0, math.Inf(1)); ok {
 		res.Reached, res.TimeReached, res.TempReached = true, t, T
 	}

@@ -99,6 +99,17 @@ func TestKronrodRule(t *testing.T) {
 	}
 }
 
+// rateAndGrowth is ln J and u ≥ 0 at T, for the references: the model's
+// own growth rate (State.Growth), not its logarithm.
+func (md *Model) rateAndGrowth(T float64) (lnJ, u float64) {
+	s := md.state(T)
+	u = s.Growth
+	if !(u > 0) {
+		u = 0
+	}
+	return s.LnJ, u
+}
+
 // refCoolingLnXext is ln of the extended volume at 1 K/s of linear cooling
 // from T_e down to lo, by nested adaptive quadrature in temperature:
 //
@@ -106,17 +117,22 @@ func TestKronrodRule(t *testing.T) {
 //
 // (a nucleus born at T' grows until the path ends at lo), with J scaled by
 // the largest J on a scan so that nothing overflows, to relative tolerance
-// rel on the outer integral and rel/10 on the inner one. G is integrated
+// rel on the outer integral and rel/10 on the inner one; u is scaled by
+// its largest value on the scan too, so that a growth speed of 1e120 m/s
+// does not overflow the cube. G is integrated
 // from lo upwards for every T', so no length is a difference of two large
 // ones.
 func refCoolingLnXext(md *Model, lo, rel float64) float64 {
 	te := md.te
-	top := math.Inf(-1)
+	top, uTop := math.Inf(-1), 0.0
 	for i := 0; i <= 4000; i++ {
-		lnJ, _ := md.rateAndGrowth(lo + (te-lo)*float64(i)/4000)
-		top = math.Max(top, lnJ)
+		lnJ, u := md.rateAndGrowth(lo + (te-lo)*float64(i)/4000)
+		top, uTop = math.Max(top, lnJ), math.Max(uTop, u)
 	}
-	u := func(T float64) float64 { _, u := md.rateAndGrowth(T); return u }
+	if !(uTop > 0) {
+		uTop = 1
+	}
+	u := func(T float64) float64 { _, u := md.rateAndGrowth(T); return u / uTop }
 	G := func(T float64) float64 { return adaptive(u, lo, T, rel/10, 0) } // u ≥ 0: relative tolerance suffices
 	outer := func(T float64) float64 {
 		lnJ, _ := md.rateAndGrowth(T)
@@ -126,7 +142,7 @@ func refCoolingLnXext(md *Model, lo, rel float64) float64 {
 		g := G(T)
 		return math.Exp(lnJ-top) * g * g * g
 	}
-	return ln4pi3 + top + math.Log(adaptiveTotal(outer, lo, te, rel))
+	return ln4pi3 + top + 3*math.Log(uTop) + math.Log(adaptiveTotal(outer, lo, te, rel))
 }
 
 // refPathSums is the reference for the running sums at point k of a path
@@ -150,7 +166,7 @@ func refPathSums(src source, time, temp []float64, k int, rel float64) (lnN, lnX
 		return temp[i] + (temp[i+1]-temp[i])*(t-time[i])/(time[i+1]-time[i])
 	}
 	u := func(i int) func(float64) float64 {
-		return func(t float64) float64 { return src.at(T(i, t)).u }
+		return func(t float64) float64 { return math.Exp(src.at(T(i, t)).lnU) }
 	}
 	J := func(i int, t float64) float64 {
 		lnJ := src.at(T(i, t)).lnJ
