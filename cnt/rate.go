@@ -148,11 +148,42 @@ func LnRateFixed(lnJ0, barrier, T float64) float64 {
 // higher the barrier.
 //
 // Special cases: Z = 0 or β* = 0 (ln β* = −Inf) gives +Inf.
-func LnTimeLag(zeldovich, lnBeta float64) float64 {
-	return lnLagFactor - lnBeta - 2*math.Log(zeldovich)
-}
+func LnTimeLag(zeldovich, lnBeta float64) float64 { return lnPerZ2Beta(lnLagFactor, zeldovich, lnBeta) }
 
 var lnLagFactor = math.Log(2 / (3 * math.Pi)) // ln(π²/6 · 4/π³)
 
 // TimeLag is exp(LnTimeLag), s; +Inf where it overflows.
 func TimeLag(zeldovich, lnBeta float64) float64 { return math.Exp(LnTimeLag(zeldovich, lnBeta)) }
+
+// Incubation is the incubation time τ (s) of a transient nucleation rate
+// written with the factor
+//
+//	J(t) = J_s·exp(−τ/t),  τ = 1/(2π·Z²·β*)
+//
+// t the time since the parent became supersaturated. The factor is the
+// form of the size-class precipitation models after Kampmann R., Wagner R.,
+// in Decomposition of Alloys: the Early Stages, Pergamon (1984) 91; the
+// constant is the estimate of Kelton K.F., Greer A.L., Nucleation in
+// Condensed Matter (2010) §3.3 (both from memory). It is not the time lag
+// (LnTimeLag): exp(−τ/t) approaches 1 only as 1 − τ/t, and the nuclei it
+// counts fall behind J_s·t by about τ·ln(t/τ), without bound.
+//
+// Accuracy: against the Becker–Döring master equation of the Al–Sc test
+// alloy's own nucleus (internal/beckerdoring; kinetics/population,
+// TestIncubationMasterEquation), the rate past the size where particles are
+// born reaches half its steady value 1.25, 1.48 and 1.61 times later than
+// the form's half time τ/ln 2, at barriers of 6.8, 14 and 21 k_BT (n* = 12,
+// 51, 102): the form runs ahead of the master equation, more so the higher
+// the barrier, as Kashchiev's lag does (LnTimeLag).
+//
+// Special cases: Z = 0 or β* = 0 (ln β* = −Inf) gives +Inf.
+func Incubation(zeldovich, lnBeta float64) float64 {
+	return math.Exp(lnPerZ2Beta(lnIncubationFactor, zeldovich, lnBeta))
+}
+
+var lnIncubationFactor = math.Log(1 / (2 * math.Pi))
+
+// lnPerZ2Beta is ln(c/(Z²·β*)) for ln c = lnC.
+func lnPerZ2Beta(lnC, zeldovich, lnBeta float64) float64 {
+	return lnC - lnBeta - 2*math.Log(zeldovich)
+}

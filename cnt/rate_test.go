@@ -159,6 +159,23 @@ func TestTimeLag(t *testing.T) {
 	}
 }
 
+// τ = 1/(2π·Z²·β*), Kelton and Greer (2010) §3.3, by hand: Z = 0.05,
+// β* = 1e6 1/s give 1/(2π·0.0025·1e6) = 6.3662e-5 s, 3/4 of the time lag θ
+// of the same nucleus.
+func TestIncubation(t *testing.T) {
+	if got := cnt.Incubation(0.05, math.Log(1e6)); !close(got, 6.3662e-5, 1e-5) {
+		t.Errorf("τ = %g s, want 6.3662e-5 s", got)
+	}
+	if got, want := cnt.Incubation(0.02, math.Log(3e4)), 0.75*cnt.TimeLag(0.02, math.Log(3e4)); !close(got, want, 1e-14) {
+		t.Errorf("τ = %g s, want 3θ/4 = %g s", got, want)
+	}
+	for _, c := range []struct{ z, lnB float64 }{{0, math.Log(1e6)}, {0.05, math.Inf(-1)}} {
+		if got := cnt.Incubation(c.z, c.lnB); !math.IsInf(got, 1) {
+			t.Errorf("Z = %g, ln β* = %g: τ = %g, want +Inf", c.z, c.lnB, got)
+		}
+	}
+}
+
 // droplet is a CNT droplet of our own with critical size n* and barrier
 // ΔG* (in k_BT): its critical nucleus from Critical, and the same droplet
 // as a Becker–Döring chain, ΔG(n)/k_BT = −n·Δμ/k_BT + a·n^(2/3) with

@@ -156,7 +156,25 @@ func (st *State) TimeLag(n int) float64 { return st.T - st.passed[n]/st.sys.Stea
 // out exact at any step, since backward-difference steps of a linear system
 // keep the integral of its transient (TestTimeLagExact). Errors: t or dt
 // not positive and finite, or more than 10⁸ steps.
-func (s *System) Integrate(t, dt float64) (*State, error) {
+func (s *System) Integrate(t, dt float64) (*State, error) { return s.run(t, dt, nil) }
+
+// Trace integrates as Integrate does and returns the time and the flux J(n)
+// past size n (1 ≤ n ≤ N) after every step: the transient of the rate at
+// one size, for comparing its shape with an analytic form.
+func (s *System) Trace(n int, t, dt float64) (times, flux []float64, err error) {
+	if n < 1 || n > s.n {
+		return nil, nil, fmt.Errorf("beckerdoring: Trace: size %d outside 1 … %d", n, s.n)
+	}
+	_, err = s.run(t, dt, func(st *State) {
+		times = append(times, st.T)
+		flux = append(flux, st.Flux(n))
+	})
+	return times, flux, err
+}
+
+// run is Integrate calling visit (if not nil) with the state after every
+// step.
+func (s *System) run(t, dt float64, visit func(*State)) (*State, error) {
 	if !(t > 0) || !(dt > 0) || math.IsInf(t, 0) || math.IsInf(dt, 0) {
 		return nil, errors.New("beckerdoring: Integrate needs t > 0 and dt > 0, finite")
 	}
@@ -207,6 +225,9 @@ func (s *System) Integrate(t, dt float64) (*State, error) {
 			}
 		}
 		prev, cur = cur, next
+		if visit != nil {
+			visit(cur)
+		}
 	}
 	// the time of the last step exactly
 	cur.T = t

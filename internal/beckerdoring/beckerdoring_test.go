@@ -177,6 +177,37 @@ func TestTimeLagExact(t *testing.T) {
 	}
 }
 
+// TestTrace: the flux Trace reports after the last step is the flux of the
+// state Integrate returns, step by step the same solution; a size outside
+// the chain is an error.
+func TestTrace(t *testing.T) {
+	s := testSystem(t)
+	times, flux, err := s.Trace(150, 30, 0.05)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := s.Integrate(30, 0.05)
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := len(flux)
+	if n != 600 || math.Abs(times[n-1]-30) > 1e-9 || flux[n-1] != st.Flux(150) {
+		t.Errorf("%d steps to %.12g: last flux %.15g, Integrate %.15g", n, times[n-1], flux[n-1], st.Flux(150))
+	}
+	for i := 1; i < n; i++ {
+		if !(flux[i] >= flux[i-1]) {
+			t.Errorf("flux past 150 falls at step %d: %g then %g", i, flux[i-1], flux[i])
+			break
+		}
+	}
+	if _, _, err := s.Trace(0, 1, 0.1); err == nil {
+		t.Error("size 0: no error")
+	}
+	if _, _, err := s.Trace(s.Size()+1, 1, 0.1); err == nil {
+		t.Error("size N+1: no error")
+	}
+}
+
 func TestBadInput(t *testing.T) {
 	if _, err := CNT(0, 1, 100); err == nil {
 		t.Error("dmu = 0: no error")
