@@ -227,10 +227,15 @@ func (md *Model) flags(s State) Flag {
 
 // SpanFlags are the flags a span of temperatures [lo, hi] (K) raises by
 // where it lies, whatever the model gives there: below T_g with a viscosity
-// law (naming the branch used), and outside the calibrated range. A path
-// answer (linear cooling, a measured curve) carries those of its span.
+// law (naming the branch used), and outside the calibrated range; and the
+// default site density of heterogeneous nucleation, which holds everywhere.
+// A path answer (linear cooling, a measured curve) carries those of its
+// span.
 func (md *Model) SpanFlags(lo, hi float64) Flag {
 	var f Flag
+	if md.DefaultSites() {
+		f |= FlagDefaultSites
+	}
 	if md.tg > 0 && lo < md.tg && md.HasViscosity() {
 		if md.Glassy() {
 			f |= FlagBelowTgGlassy

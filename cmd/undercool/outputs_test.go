@@ -25,14 +25,32 @@ var outputCases = []struct {
 	args   []string
 	checks []check
 }{
-	// A measured cooling curve: the fraction along it, the onset, the additivity
-	// sum, and the quench factor against the material's TTT curve or a C-curve.
-	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--volume", "1mm3"}, []check{{"stdout", false, `curve: .*demo-quench.csv, 403 points \(time_s, temperature_c\)`}, {"stdout", false, `fraction at the end of the curve: `}, {"stdout", false, `onset in 1e-09 m3: first nucleus expected at `}, {"stdout", false, `additivity sum, integral of dt/t_X over the curve`}, {"stdout", false, `share of Q \(%\)`}, {"stdout", true, `NaN|Inf`}}},
-	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--format", "json"}, []check{{"stdout", false, `"fraction": [0-9.e+-]+,`}, {"stdout", false, `"additivity_sum": [0-9.e+-]+,`}, {"stdout", false, `"quench_factor": [0-9.e+-]+,`}, {"stdout", false, `"retained_property_fraction": [0-9.e+-]+,`}, {"stdout", false, `"c_curve": "ttt"`}, {"stdout", true, `NaN|Inf`}}},
+	// A measured cooling curve: the onset first, the fraction along it (the path
+	// integral), the additivity sum and the verdict; the quench factor and the
+	// retained property fraction only with an Evancho-Staley C-curve.
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--volume", "1mm3"}, []check{{"stdout", false, `curve: .*demo-quench.csv, 403 points \(time_s, temperature_c\)`}, {"stdout", false, `fraction at the end of the curve: `}, {"stdout", false, `onset in 1e-09 m3: first nucleus expected at `}, {"stdout", false, `additivity sum, integral of dt/t_X over the curve`}, {"stdout", false, `share of the sum \(%\)`}, {"stdout", true, `retained property|exp\(k1 Q\)`}, {"stdout", false, `^verdict: stays below X = 1e-06 \(fraction at the end 5\.37e-08\)`}, {"stdout", false, `^why the two measures differ: the additivity sum reaches 1`}, {"stdout", true, `NaN|Inf`}}},
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--format", "json"}, []check{{"stdout", false, `"fraction": [0-9.e+-]+,`}, {"stdout", false, `"additivity_sum": [0-9.e+-]+,`}, {"stdout", true, `"quench_factor"`}, {"stdout", true, `"retained_property_fraction"`}, {"stdout", false, `"c_curve": "ttt"`}, {"stdout", false, `"measures_agree": false`}, {"stdout", true, `NaN|Inf`}}},
+
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--volume", "1mm3"}, []check{{"stdout", false, `(?s)^onset in 1e-09 m3: first nucleus .*^fraction at the end of the curve: 5\.371e-08`}}},
+	// With a material and a C-curve: the path integral's verdict, and the retained property of the C-curve.
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"fraction": 5\.37`}, {"stdout", false, `"quench_factor": [0-9.e+-]+,`}, {"stdout", false, `"retained_property_fraction": 0\.`}, {"stdout", false, `"text": "stays below X = 1e-06`}}},
+	// A small sample: the mean-field fraction reaches X before one nucleus is expected.
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--volume", "1e-15m3", "--fraction", "1e-9"}, []check{{"stdout", false, `^onset in 1e-15 m3: first nucleus expected at `}, {"stdout", false, `^fewer than one nucleus: where the fraction reaches X = 1e-09 \([0-9.]+ K\) only 0\.[0-9]+ nuclei are expected in the 1e-15 m3 sample`}}},
+	// Celsius numbers under a kelvin header: the curve starts far below T_e;
+	// all below 250 K, the warning of fit arrhenius.
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$WORK/celsius-as-kelvin.csv"}, []check{{"stdout", false, `^warning: the curve starts at 926\.00 K, 224\.00 K below T_e = 1150\.00 K: nothing that happened between T_e and its first point is counted`}, {"stdout", true, `below 250 K`}}},
+	{"cool_curve", []string{"cool", "--material", "ice", "--curve", "$WORK/cold-as-kelvin.csv", "--format", "json"}, []check{{"stdout", false, `"key": "all_below_250_k"`}, {"stdout", false, `"key": "starts_below_te"`}, {"stdout", false, `every temperature is below 250 K; if they are degrees Celsius, name the column temperature_c`}}},
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--curve", "$REPO/testdata/curves/demo-quench.csv", "--format", "json"}, []check{{"stdout", false, `"warnings": \[\]`}}},
+
+	// Heterogeneous nucleation: without a site density the screen says every
+	// molecule is used, an upper bound, and how to give one; sites from particles.
+	{"cool_curve", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--temps", "900"}, []check{{"stdout", false, `heterogeneous, contact angle 60 deg, every molecule a site \(no site density given: an upper bound, by many orders of magnitude for particles or walls; give sites, or particle_density with particle_radius\)`}, {"stdout", false, `^flag default_sites: `}}},
+	{"cool_curve", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--particle-radius", "1um", "--temps", "900"}, []check{{"stdout", false, `heterogeneous, contact angle 60 deg, 1\.96e\+26 sites/m3 on 1e18 particles/m3 of radius 1um`}, {"stdout", true, `default_sites`}}},
+	{"cool_curve", []string{"cool", "--material", "demo-alloy", "--theta", "60", "--critical", "--format", "json"}, []check{{"stdout", false, `"default_sites"`}}},
 
 	// The quench factor alone, no material: Evancho-Staley constants.
 	{"cool_curve", []string{"cool", "--curve", "$WORK/hold.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}, {"stdout", false, `"retained_property_fraction": 0\.99003`}, {"stdout", false, `"share_percent": 100`}, {"stdout", false, `"k4_k": 760`}}},
-	{"cool_curve", []string{"cool", "--curve", "$REPO/testdata/curves/demo-plate-quench.csv", "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol", "--band", "50K"}, []check{{"stdout", false, `quench factor Q = integral of dt/C\(T\): 7\.5`}, {"stdout", false, `retained property fraction exp\(k1 Q\) = 0\.96`}, {"stdout", false, `550–500`}}},
+	{"cool_curve", []string{"cool", "--curve", "$REPO/testdata/curves/demo-plate-quench.csv", "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol", "--band", "50K"}, []check{{"stdout", false, `quench factor Q = integral of dt/C\(T\) against the C-curve: 7\.5`}, {"stdout", false, `^verdict: retains 0\.96`}, {"stdout", false, `retained property fraction exp\(k1 Q\) = 0\.96`}, {"stdout", false, `550–500`}}},
 
 	// The critical cooling rate and the nose estimate beside it.
 	{"cool_linear", []string{"cool", "--material", "demo-alloy", "--critical"}, []check{{"stdout", false, `critical cooling rate to stay below X = 1e-06`}, {"stdout", false, `nose estimate \(Te - T_nose\)/t_nose: .* it overstates the rate`}, {"stdout", false, `rate \(K/s\)`}, {"stdout", true, `NaN|Inf`}}},
@@ -48,6 +66,12 @@ var outputCases = []struct {
 	// CCT row shows exactly the target fraction; at 10 times it the extended
 	// volume is 1e-4 of -ln(1 - 1e-6) = 1.0000005e-6.
 	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--critical", "--format", "csv"}, []check{{"stdout", false, `^# critical cooling rate to stay below X = 1e-06 at [0-9.]+ K: 2\.07e\+04 K/s`}, {"stdout", false, `^20730\.6[0-9]*,1e-06,`}, {"stdout", false, `^207306\.[0-9]*,1\.000000[0-9]*e-10,`}}},
+
+	// A small sample cooled slowly: the first nucleus first, and X reached by the
+	// mean field with fewer than one nucleus expected in it (issue's example form:
+	// q = 0.1 K/s, V = 1e-12 m3).
+	{"cool_linear", []string{"cool", "--material", "demo-alloy", "--rate", "0.1K/s", "--volume", "1e-12m3"}, []check{{"stdout", false, `(?s)^onset in 1e-12 m3 at 0\.100 K/s: first nucleus expected at 907\.5. K.*^fraction at 548\.53 K after cooling at 0\.100 K/s: 1; X = 1e-06 reached at 922\.2. K`}, {"stdout", false, `^fewer than one nucleus: where the fraction reaches X = 1e-06 \(922\.2. K\) only 0\.01 nuclei are expected in the 1e-12 m3 sample`}}},
+	{"cool_linear", []string{"cool", "--material", "demo-alloy", "--rate", "0.1K/s", "--volume", "1e-12m3", "--format", "json"}, []check{{"stdout", false, `"expected_nuclei_at_fraction": 0\.01`}}},
 
 	// Never nucleates in a tiny volume at a huge rate: the onset is null.
 	{"cool_linear", []string{"cool", "--material", "$WORK/own.toml", "--rate", "1e12K/s", "--volume", "1um3", "--format", "json"}, []check{{"stdout", false, `"onset_temperature_k": null`}, {"stdout", false, `"onset_undercooling_k": null`}, {"stdout", false, `"fraction_reached": null`}}},
@@ -255,7 +279,7 @@ var outputCases = []struct {
 	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--temps", "900", "--format", "markdown"}, []check{{"stdout", false, `^### undercool ttt`}, {"stdout", false, `^- nose: 831\.55 K`}}},
 
 	// The time lag, stated; site saturation, stated.
-	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--temps", "900", "--lag"}, []check{{"stdout", false, `time lag added`}, {"stdout", false, `time lag: nucleation taken to start after tau`}}},
+	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--temps", "900", "--lag"}, []check{{"stdout", false, `time lag added`}, {"stdout", false, `time lag: nucleation taken to start after Kashchiev's intercept lag theta = 2/\(3 pi Z\^2 beta\*\)`}}},
 	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--temps", "900", "--nuclei", "1e15"}, []check{{"stdout", false, `site saturation with 1e\+15 nuclei per m\^3 \(Avrami exponent 3\)`}}},
 	{"ttt_basic", []string{"ttt", "--material", "$WORK/alloy.toml", "--temps", "900", "--nuclei", "1e9/cm3", "--format", "json"}, []check{{"stdout", false, `"nuclei_per_m3": 1000000000000000`}}},
 
