@@ -103,7 +103,7 @@ var lnPi3 = math.Log(math.Pi / 3)
 // lnRateAndGrowth is ln J and ln u at T (−Inf: none; NaN: the model
 // cannot say).
 func (md *Model) lnRateAndGrowth(T float64) (lnJ, lnU float64) {
-	s := md.state(T)
+	s := md.state(T, false)
 	return s.LnJ, s.lnU
 }
 
@@ -124,9 +124,9 @@ func (r *pathRun) sums() Sums {
 	n := len(r.points)
 	buf := make([]float64, 3*n) // one allocation for the three columns
 	s := Sums{L: buf[:n:n], LnN: buf[n : 2*n : 2*n], LnXext: buf[2*n:], run: r}
-	for j, a := range r.atPoint {
+	r.eachPoint(func(j int, a accum) {
 		s.L[j], s.LnN[j], s.LnXext[j] = r.length(a), r.value(sumN, a), r.value(sumXext, a)
-	}
+	})
 	return s
 }
 

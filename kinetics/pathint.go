@@ -260,9 +260,10 @@ func (a accum) add(p piece) accum {
 }
 
 // pathRun is a path integrated: its pieces in order and the scales that
-// turn the normalized sums into SI, with the running state at every point
-// of the path; the state at any piece is the state at the point before it
-// plus the pieces between (see before).
+// turn the normalized sums into SI, with the running state at every
+// markEvery-th point of the path; the state at any point or piece is the
+// state at the mark before it plus the pieces between (see atPoint,
+// before), the same additions in the same order as from the start.
 type pathRun struct {
 	src        source
 	time, temp []float64 // the points of the path
@@ -270,7 +271,7 @@ type pathRun struct {
 	band       float64   // K, width of the bands the pieces keep within (0: none)
 	pieces     []piece
 	points     []int   // for each point of the path, the number of pieces up to it
-	atPoint    []accum // the running state at each point of the path
+	marks      []accum // the running state at every markEvery-th point of the path
 	total      accum   // the state at the end
 	// normalization: times over tS (s), speeds over e^lnUS (m/s), J over
 	// e^sJ, r over e^sR
@@ -387,20 +388,42 @@ func newRun(src source, time, temp []float64, band, lambda float64) *pathRun {
 		}
 		r.points[i+1] = len(r.pieces)
 	}
-	r.atPoint = make([]accum, n)
-	var a accum
-	j := 0
-	for i, p := range r.pieces {
-		for ; j < n && r.points[j] == i; j++ {
-			r.atPoint[j] = a
+	r.marks = make([]accum, 0, (n+markEvery-1)/markEvery)
+	r.eachPoint(func(j int, a accum) {
+		if j%markEvery == 0 {
+			r.marks = append(r.marks, a)
 		}
+		if j == n-1 {
+			r.total = a
+		}
+	})
+	return r
+}
+
+// markEvery is how many path points apart the run keeps its state.
+const markEvery = 16
+
+// eachPoint calls visit with the running state at every point of the path,
+// in order, adding up the pieces between them.
+func (r *pathRun) eachPoint(visit func(j int, a accum)) {
+	var a accum
+	k := 0
+	for j, m := range r.points {
+		for ; k < m; k++ {
+			a = a.add(r.pieces[k])
+		}
+		visit(j, a)
+	}
+}
+
+// atPoint is the running state at point j of the path: the state kept at
+// the mark before it and the pieces from there.
+func (r *pathRun) atPoint(j int) accum {
+	a := r.marks[j/markEvery]
+	for _, p := range r.pieces[r.points[j/markEvery*markEvery]:r.points[j]] {
 		a = a.add(p)
 	}
-	for ; j < n; j++ {
-		r.atPoint[j] = a
-	}
-	r.total = a
-	return r
+	return a
 }
 
 // window holds the samples at the last few points of a path, each
@@ -846,7 +869,7 @@ func (r *pathRun) part(p piece, f float64) piece {
 // and the pieces from there.
 func (r *pathRun) before(i int) accum {
 	j := sort.Search(len(r.points), func(j int) bool { return r.points[j] > i }) - 1
-	a := r.atPoint[j]
+	a := r.atPoint(j)
 	for _, p := range r.pieces[r.points[j]:i] {
 		a = a.add(p)
 	}
@@ -960,7 +983,7 @@ func (r *pathRun) cross(k sum, level, tEnd float64) (t, T float64, ok bool) {
 	// the level, by bisection, and the first piece before it that reaches
 	// it.
 	n := len(r.points)
-	j := sort.Search(n, func(j int) bool { return reaches(r.atPoint[j]) })
+	j := sort.Search(n, func(j int) bool { return reaches(r.atPoint(j)) })
 	if j == n {
 		return 0, 0, false
 	}
@@ -969,7 +992,7 @@ func (r *pathRun) cross(k sum, level, tEnd float64) (t, T float64, ok bool) {
 		from = r.points[j-1]
 	}
 	i := -1
-	start := r.atPoint[max(j-1, 0)]
+	start := r.atPoint(max(j-1, 0))
 	for m := from; m < len(r.pieces); m++ {
 		p := &r.pieces[m]
 		if p.t0 >= tEnd {

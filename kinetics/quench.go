@@ -183,9 +183,7 @@ func quench(p Path, src source, k sum, bandK float64) (QuenchResult, *pathRun, e
 		return math.Exp(r.offset(k) + math.Log(raw))
 	}
 	res := QuenchResult{Q: si(r.total.raw(k)), LnQ: lnQ, Running: make([]float64, len(r.points))}
-	for i, a := range r.atPoint {
-		res.Running[i] = si(a.raw(k))
-	}
+	r.eachPoint(func(i int, a accum) { res.Running[i] = si(a.raw(k)) })
 	if t, T, ok := r.cross(k, 0, math.Inf(1)); ok {
 		res.Reached, res.TimeReached, res.TempReached = true, t, T
 	}

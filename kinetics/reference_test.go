@@ -102,7 +102,7 @@ func TestKronrodRule(t *testing.T) {
 // rateAndGrowth is ln J and u ≥ 0 at T, for the references: the model's
 // own growth rate (State.Growth), not its logarithm.
 func (md *Model) rateAndGrowth(T float64) (lnJ, u float64) {
-	s := md.state(T)
+	s := md.state(T, true)
 	u = s.Growth
 	if !(u > 0) {
 		u = 0

@@ -129,14 +129,16 @@ func (s State) TimeLag() float64 {
 
 // At evaluates the model at temperature T (K, > 0).
 func (md *Model) At(T float64) State {
-	s := md.state(T)
+	s := md.state(T, true)
 	s.Flags |= md.flags(s)
 	return s
 }
 
 // state is At without the validity flags, for the paths that need only
-// ln J and u (see rateAndGrowth).
-func (md *Model) state(T float64) State {
+// ln J and ln u (see lnRateAndGrowth); without growth it leaves the growth
+// rate u itself NaN where it would be computed from ln u's parts (the path
+// integral reads ln u).
+func (md *Model) state(T float64, growth bool) State {
 	s := State{T: T, Undercooling: md.te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN(), lnU: math.NaN()}
 	kT := cnt.Boltzmann * T
 	s.DrivingMole = md.m.Driving.PerMole(T)
@@ -154,7 +156,9 @@ func (md *Model) state(T float64) State {
 	x := s.Dmu / kT
 	if md.m.Mobility != nil {
 		s.LnD = md.lnDiffusivity(T)
-		s.Growth = GrowthRate(s.LnD, md.jump, x)
+		if growth {
+			s.Growth = GrowthRate(s.LnD, md.jump, x)
+		}
 		s.lnU = math.Inf(-1)
 		if x > 0 {
 			s.lnU = s.LnD - md.lnJump + lnThermo(x)
