@@ -14,7 +14,7 @@ Commands:
 	hold       time to a fraction at one temperature (storage, anneal)
 	cool       cooling paths: fraction, critical rate, onset, quench factor
 	evolve     particles in size classes over a schedule: ageing, crystallizers
-	fit        fit Arrhenius, interface, Avrami or induction-time models to data
+	fit        fit Arrhenius, interface, growth, Avrami, induction, DSC peaks
 	materials  list the shipped material cards, or show one
 	report     a Markdown memo for a material and a question
 
