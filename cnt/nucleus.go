@@ -20,6 +20,22 @@ func ShapeFactor(thetaDeg float64) float64 {
 	return (2 + math.Cos(thetaDeg*math.Pi/180)) * s * s * s * s
 }
 
+// CapArea is the share of the surface of a sphere that a spherical cap of
+// the same radius r, wetting a flat substrate with contact angle θ
+// (degrees), exposes to the parent phase:
+//
+//	a(θ) = 2πr²(1 − cos θ)/(4πr²) = (1 − cos θ)/2 = sin²(θ/2)
+//
+// a(180°) = 1 (homogeneous), a(90°) = 1/2 (hemisphere), a(0°) = 0.
+// Special cases: θ outside [0, 180] or NaN gives NaN.
+func CapArea(thetaDeg float64) float64 {
+	if !(thetaDeg >= 0 && thetaDeg <= 180) {
+		return math.NaN()
+	}
+	s := math.Sin(thetaDeg * math.Pi / 360) // the half-angle form keeps small angles exact
+	return s * s
+}
+
 // Nucleus is the critical embryo at one temperature.
 type Nucleus struct {
 	Radius    float64 // r*, m

@@ -193,3 +193,23 @@ func TestShapeFactorSmallAngles(t *testing.T) {
 		t.Errorf("bug: cnt/nucleus.go ShapeFactor loses precision below about 1e-3° (1 − cos θ cancels; f = 0 exactly below about 1e-7°): %s", strings.Join(bad, "; "))
 	}
 }
+
+func TestCapArea(t *testing.T) {
+	for _, c := range []struct{ theta, want float64 }{
+		{180, 1},    // the whole sphere: homogeneous
+		{90, 0.5},   // hemisphere
+		{60, 0.25},  // (1 − 1/2)/2, by hand
+		{120, 0.75}, // (1 + 1/2)/2, by hand
+		{0, 0},      // complete wetting
+		{-1, math.NaN()}, {181, math.NaN()}, {math.NaN(), math.NaN()},
+	} {
+		if got := cnt.CapArea(c.theta); !same(got, c.want) && !close(got, c.want, 1e-15) {
+			t.Errorf("CapArea(%g) = %.17g, want %g", c.theta, got, c.want)
+		}
+	}
+	// small angles keep full precision: sin²(θ/2) ≈ (θ/2)² for θ = 1e-6°
+	th := 1e-6 * math.Pi / 180
+	if got := cnt.CapArea(1e-6); !close(got, th*th/4, 1e-12) {
+		t.Errorf("CapArea(1e-6°) = %g, want %g", got, th*th/4)
+	}
+}

@@ -32,8 +32,8 @@ func ExampleCooling() {
 	o := c.Onset(1e-9, 1)
 	fmt.Printf("first nucleus in 1 mm3 at 1 K/s: %.1f K\n", o.Temp)
 	// Output:
-	// critical rate for X = 1e-6: 2.077e+04 K/s
+	// critical rate for X = 1e-6: 2.073e+04 K/s
 	// fraction at 10 times that rate: 1e-10
-	// at 1 K/s, X = 1e-6 at 1059.9 K after 140.1 s
+	// at 1 K/s, X = 1e-6 at 1060.0 K after 140.0 s
 	// first nucleus in 1 mm3 at 1 K/s: 1064.0 K
 }

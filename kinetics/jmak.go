@@ -3,6 +3,8 @@ package kinetics
 import (
 	"fmt"
 	"math"
+
+	"undercool/cnt"
 )
 
 // JMAK chooses how the new phase appears in an isothermal transformation
@@ -136,11 +138,6 @@ func (a Avrami) Fraction(t float64) float64 {
 // −Inf without driving force or mobility, NaN without a growth law.
 func (md *Model) lnGrowth(s State) float64 { return s.lnU }
 
-// lnTimeLag is ln τ, τ = 1/(2π·Z²·β*), in logs; NaN where β* is not defined.
-func lnTimeLag(s State) float64 {
-	return -s.LnBeta - math.Log(2*math.Pi) - 2*math.Log(s.Nucleus.Zeldovich)
-}
-
 // LnGrowth is ln u(T), u in m/s, computed in logs (no underflow where the
 // mobility is tiny): −Inf without driving force or mobility, NaN without a
 // mobility law.
@@ -150,8 +147,10 @@ func (md *Model) LnGrowth(T float64) float64 { return md.lnGrowth(md.At(T)) }
 // law of an isothermal hold there. The law has ln K = −Inf where nothing
 // transforms (no driving force, no mobility) and NaN where the model cannot
 // say (no mobility law; no rate model for continuous nucleation).
-// With j.Lag the delay is τ(T) = 1/(2π·Z²·β*) (see cnt.TimeLag), the
-// transient treated as a step: no nucleation before τ, the steady rate after.
+// With j.Lag the delay is the time lag θ(T) = 2/(3π·Z²·β*) (see
+// cnt.LnTimeLag), the transient treated as a step: no nucleation before θ,
+// the steady rate after (which gives the number of nuclei exactly once the
+// transient is over).
 // It panics if j fails Check.
 func (md *Model) Isothermal(T float64, j JMAK) (State, Avrami) {
 	if err := j.Check(); err != nil {
@@ -168,7 +167,7 @@ func (md *Model) avrami(s State, j JMAK) Avrami {
 	}
 	a := Continuous(s.LnJ, lnU)
 	if j.Lag && !math.IsInf(a.LnK, -1) {
-		a.LnLag = lnTimeLag(s)
+		a.LnLag = cnt.LnTimeLag(s.Nucleus.Zeldovich, s.LnBeta) // NaN where β* is not defined
 	}
 	return a
 }

@@ -447,25 +447,37 @@ func (s Schedule) String() string {
 // asked for a path: a path spends time at every temperature it lists.
 var ErrScheduleJump = errors.New("the schedule has an instant jump, which a path integral cannot follow: write it as a cool or heat step")
 
-// Sample is the schedule as a Path for the path integrals (Along,
-// AlongPath): its break points, with every ramp cut into pieces of at most
-// maxDT kelvin (> 0) so that ln J and u, interpolated between the points of
-// a path, follow the temperature. A schedule with a jump gives
+// Path is the schedule as a Path for the path integrals (Along, AlongPath,
+// AnalyzeCurve, Additivity, Quench, OnsetAlong): its break points, as they
+// are. The integrals take a path as straight in T(t) between its points and
+// integrate each ramp, hold or heating step to their tolerance (pathint.go),
+// so a ramp needs no points inside it: Path and Sample give the same numbers
+// (TestSchedulePathSample). A schedule with a jump gives ErrScheduleJump.
+func (s Schedule) Path() (Path, error) {
+	for i := 1; i < len(s.Time); i++ {
+		if !(s.Time[i] > s.Time[i-1]) {
+			return Path{}, fmt.Errorf("%w (at %g s, %g K to %g K)", ErrScheduleJump, s.Time[i-1], s.Temp[i-1], s.Temp[i])
+		}
+	}
+	return Path{Time: append([]float64(nil), s.Time...), Temp: append([]float64(nil), s.Temp...)}, nil
+}
+
+// Sample is Path with every ramp also cut into pieces of at most maxDT
+// kelvin (> 0): points along the schedule for a table or a figure. The
+// path integrals need none of them. A schedule with a jump gives
 // ErrScheduleJump.
 func (s Schedule) Sample(maxDT float64) (Path, error) {
 	if !(maxDT > 0) {
 		panic("kinetics: Schedule.Sample: maxDT must be positive")
 	}
-	p := Path{Time: []float64{s.Time[0]}, Temp: []float64{s.Temp[0]}}
-	for i := 1; i < len(s.Time); i++ {
-		t0, t1, T0, T1 := s.Time[i-1], s.Time[i], s.Temp[i-1], s.Temp[i]
-		if !(t1 > t0) {
-			return Path{}, fmt.Errorf("%w (at %g s, %g K to %g K)", ErrScheduleJump, t0, T0, T1)
-		}
-		n := int(math.Ceil(math.Abs(T1-T0) / maxDT))
-		if n < 1 {
-			n = 1
-		}
+	b, err := s.Path()
+	if err != nil {
+		return Path{}, err
+	}
+	p := Path{Time: []float64{b.Time[0]}, Temp: []float64{b.Temp[0]}}
+	for i := 1; i < len(b.Time); i++ {
+		t0, t1, T0, T1 := b.Time[i-1], b.Time[i], b.Temp[i-1], b.Temp[i]
+		n := max(int(math.Ceil(math.Abs(T1-T0)/maxDT)), 1)
 		for k := 1; k <= n; k++ {
 			f := float64(k) / float64(n)
 			p.Time = append(p.Time, t0+f*(t1-t0))

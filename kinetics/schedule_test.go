@@ -163,3 +163,48 @@ func TestScheduleCurveAndSample(t *testing.T) {
 		t.Errorf("Sample of a jump: %v", err)
 	}
 }
+
+// TestSchedulePathSample: a schedule that cools, holds and heats again,
+// given to the path integral as its break points (Path) and cut into 1 K
+// pieces (Sample): the same fraction, nuclei and crossing of X, to 1e-6
+// relative (the integrator's tolerance on a piece is 1e-8, about 4e-8 on a
+// sum) and 1e-3 K. A ramp needs no points inside it.
+func TestSchedulePathSample(t *testing.T) {
+	md := shippedModel(t, "demo-alloy")
+	s := mustSchedule(t, "start at 1000K; cool to 820K at 2K/s; hold 40s; cool to 760K at 1K/s; heat to 860K at 5K/s; hold 10s")
+	bare, err := s.Path()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(bare.Time) != len(s.Time) {
+		t.Errorf("Path: %d points, the schedule has %d break points", len(bare.Time), len(s.Time))
+	}
+	fine, err := s.Sample(1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const X = 1e-3
+	a, _, err := md.AlongPath(bare, X)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, _, err := md.AlongPath(fine, X)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := a.LnXext - b.LnXext; !(math.Abs(d) <= 1e-6) {
+		t.Errorf("ln Xext: %.12g on the break points, %.12g on 1 K pieces", a.LnXext, b.LnXext)
+	}
+	if d := a.LnNuclei - b.LnNuclei; !(math.Abs(d) <= 1e-6) {
+		t.Errorf("ln N: %.12g on the break points, %.12g on 1 K pieces", a.LnNuclei, b.LnNuclei)
+	}
+	if a.Reached != b.Reached || math.Abs(a.TempReached-b.TempReached) > 1e-3 || math.Abs(a.TimeReached-b.TimeReached) > 1e-3 {
+		t.Errorf("X = %g: reached %v at %.5f K, %.5f s on the break points; %v at %.5f K, %.5f s on 1 K pieces",
+			X, a.Reached, a.TempReached, a.TimeReached, b.Reached, b.TempReached, b.TimeReached)
+	}
+	t.Logf("%d and %d points: fraction %.10g and %.10g; X reached at %.5f K and %.5f K", len(bare.Time), len(fine.Time), a.Fraction, b.Fraction, a.TempReached, b.TempReached)
+	j := mustSchedule(t, "start at 600K; hold 1h; jump to 500K; hold 1h")
+	if _, err := j.Path(); !errors.Is(err, kinetics.ErrScheduleJump) {
+		t.Errorf("Path of a jump: %v", err)
+	}
+}

@@ -5,10 +5,6 @@ import (
 	"fmt"
 )
 
-// zonePoints is the number of steps of the linear path on which
-// MetastableZone integrates J; the onset is interpolated between them.
-const zonePoints = 20000
-
 // ErrEndAboveSat is returned when a cooling path would end at or above the
 // saturation temperature it starts from.
 var ErrEndAboveSat = errors.New("the end of the path must be below the saturation temperature")
@@ -16,7 +12,8 @@ var ErrEndAboveSat = errors.New("the end of the path must be below the saturatio
 // MetastableZone is the onset of nucleation in a volume V (m³, > 0) of a
 // solution cooled at rate q (K/s, > 0) from its saturation temperature
 // (the model's T_e) down to end (K): the temperature where the expected
-// number of nuclei V·∫J dt first reaches 1 (OnsetAlong on a LinearPath), and
+// number of nuclei V·∫J dt first reaches 1 (OnsetAlong on a one-step
+// LinearPath, integrated and solved to the tolerance of the path integral), and
 // with it the metastable zone width ΔT_max = T_sat − T_onset. The onset is
 // not reached (Onset.Reached false) when fewer than one nucleus is expected
 // by the end of the path. Errors: ErrNoRate, ErrEndAboveSat.
@@ -32,7 +29,7 @@ func (md *Model) MetastableZone(V, q, end float64) (Onset, error) {
 	if !(end < te) || !(end > 0) {
 		return Onset{}, fmt.Errorf("%w (end %g K, saturation %g K)", ErrEndAboveSat, end, te)
 	}
-	p := LinearPath(te, end, q, zonePoints)
+	p := LinearPath(te, end, q, 1)
 	s, err := md.Along(p)
 	if err != nil {
 		return Onset{}, err

@@ -88,8 +88,8 @@ func TestMetastableZoneEdges(t *testing.T) {
 	}
 }
 
-// BenchmarkMetastableZone is one onset: zonePoints evaluations of the
-// model along the path and one pass of the running integrals.
+// BenchmarkMetastableZone is one onset: the path integral of a linear
+// cooling and the crossing of one nucleus.
 func BenchmarkMetastableZone(b *testing.B) {
 	md := zoneModel(b)
 	for b.Loop() {

@@ -40,6 +40,9 @@ const (
 	// FlagGammaNotPositive: the interfacial-energy law gives γ(T) ≤ 0; no
 	// nucleus and no rate.
 	FlagGammaNotPositive
+	// FlagDefaultSites: nucleation on a substrate (θ < 180°) with no site
+	// density given, so every molecule counts as a site (see DefaultSites).
+	FlagDefaultSites
 )
 
 // Limits behind the validity flags (common practice).
@@ -64,6 +67,7 @@ var flagNames = []struct {
 	{FlagOutsideCalibrated, "outside_calibrated_range", "outside the range the card was calibrated on"},
 	{FlagOutsideGrowthTable, "outside_growth_table", "outside the measured growth-rate table: growth taken as zero there"},
 	{FlagGammaNotPositive, "gamma_not_positive", "the interfacial-energy law gives gamma <= 0: no nucleus, no rate"},
+	{FlagDefaultSites, "default_sites", "heterogeneous nucleation with no site density given: every molecule counted as a site, an upper bound"},
 }
 
 // Keys returns the snake_case names of the set flags, in a fixed order.
@@ -110,9 +114,9 @@ func (s State) DrivingVolume(vm float64) float64 { return s.DrivingMole / vm }
 // Log10J is log10 of the rate.
 func (s State) Log10J() float64 { return s.LnJ / math.Ln10 }
 
-// TimeLag is the transient time τ = 1/(2π·Z²·β*), s: NaN without a
-// mobility law or outside a tabulated driving force, +Inf where there is no
-// driving force (nothing nucleates).
+// TimeLag is the time lag of nucleation θ = 2/(3π·Z²·β*), s (see
+// cnt.LnTimeLag): NaN without a mobility law or outside a tabulated driving
+// force, +Inf where there is no driving force (nothing nucleates).
 func (s State) TimeLag() float64 {
 	if math.IsNaN(s.Growth) {
 		return math.NaN()
@@ -125,14 +129,16 @@ func (s State) TimeLag() float64 {
 
 // At evaluates the model at temperature T (K, > 0).
 func (md *Model) At(T float64) State {
-	s := md.state(T)
+	s := md.state(T, true)
 	s.Flags |= md.flags(s)
 	return s
 }
 
 // state is At without the validity flags, for the paths that need only
-// ln J and u (see rateAndGrowth).
-func (md *Model) state(T float64) State {
+// ln J and ln u (see lnRateAndGrowth); without growth it leaves the growth
+// rate u itself NaN where it would be computed from ln u's parts (the path
+// integral reads ln u).
+func (md *Model) state(T float64, growth bool) State {
 	s := State{T: T, Undercooling: md.te - T, LnD: math.NaN(), LnBeta: math.NaN(), LnJ: math.NaN(), Growth: math.NaN(), lnU: math.NaN()}
 	kT := cnt.Boltzmann * T
 	s.DrivingMole = md.m.Driving.PerMole(T)
@@ -150,11 +156,13 @@ func (md *Model) state(T float64) State {
 	x := s.Dmu / kT
 	if md.m.Mobility != nil {
 		s.LnD = md.lnDiffusivity(T)
-		s.Growth = GrowthRate(s.LnD, md.jump, x)
+		if growth {
+			s.Growth = GrowthRate(s.LnD, md.jump, x)
+		}
 		s.lnU = math.Inf(-1)
 		if x > 0 {
 			s.lnU = s.LnD - md.lnJump + lnThermo(x)
-			s.LnBeta = cnt.LnAttachment(s.LnD, s.Nucleus.Size, md.jump)
+			s.LnBeta = cnt.LnAttachmentCap(s.LnD, s.Nucleus.Size, md.f, md.m.Theta, md.jump)
 			if md.m.Prefactor == PrefactorDiffusion {
 				s.LnBeta = cnt.LnAttachmentDiffusion(s.LnD, s.Nucleus.Radius, md.m.Conc)
 			}
@@ -180,11 +188,22 @@ func (md *Model) state(T float64) State {
 	return s
 }
 
+// DefaultSites reports whether the model nucleates on a substrate
+// (θ < 180°) with no site density given (Material.Sites = 0), so that every
+// molecule of the parent counts as a site: an upper bound on the sites by
+// many orders of magnitude for particles or walls, which a result must
+// state or a command refuse. cnt.SitesOnParticles gives a density from a
+// number of particles per volume and their area.
+func (md *Model) DefaultSites() bool { return md.f < 1 && md.m.Sites == 0 }
+
 // flags are the validity flags of an evaluated state.
 func (md *Model) flags(s State) Flag {
 	var f Flag
+	if md.DefaultSites() {
+		f |= FlagDefaultSites
+	}
 	if math.IsNaN(s.DrivingMole) {
-		return FlagOutsideTable
+		return f | FlagOutsideTable
 	}
 	if !(s.Dmu > 0) {
 		f |= FlagNoDrivingForce
@@ -212,10 +231,15 @@ func (md *Model) flags(s State) Flag {
 
 // SpanFlags are the flags a span of temperatures [lo, hi] (K) raises by
 // where it lies, whatever the model gives there: below T_g with a viscosity
-// law (naming the branch used), and outside the calibrated range. A path
-// answer (linear cooling, a measured curve) carries those of its span.
+// law (naming the branch used), and outside the calibrated range; and the
+// default site density of heterogeneous nucleation, which holds everywhere.
+// A path answer (linear cooling, a measured curve) carries those of its
+// span.
 func (md *Model) SpanFlags(lo, hi float64) Flag {
 	var f Flag
+	if md.DefaultSites() {
+		f |= FlagDefaultSites
+	}
 	if md.tg > 0 && lo < md.tg && md.HasViscosity() {
 		if md.Glassy() {
 			f |= FlagBelowTgGlassy

@@ -3,6 +3,7 @@ package presets
 import (
 	"errors"
 	"fmt"
+	"math"
 
 	"undercool/cnt"
 	"undercool/kinetics"
@@ -98,7 +99,9 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 		return nil, nil, err
 	}
 	m.Theta = b.opt("theta", 180)
-	m.Sites = b.given("sites")
+	if m.Sites, err = b.sites(m.Vm); err != nil {
+		return nil, nil, err
+	}
 	m.Jump = b.given("jump")
 	m.Tg = b.given("tg")
 	m.Growth = b.given("growth_rate")
@@ -149,7 +152,7 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 		return nil, nil, fmt.Errorf("%s: %w", c.File, err)
 	}
 	// The defaults of the model itself, as the bases of their spreads.
-	if !c.Has("sites") {
+	if !c.Has("sites") && !c.Has("particle_density") {
 		b.read["sites"] = 1 / md.MolecularVolume()
 	}
 	if !c.Has("jump") {
@@ -159,6 +162,27 @@ func (c *Card) build() (*kinetics.Model, map[string]float64, error) {
 		b.read["growth_ug"] = g.Ug
 	}
 	return md, b.read, nil
+}
+
+// sites is the density of nucleation sites: sites as given, or from
+// particles of a second phase (particle_density and particle_radius, one
+// site per molecule of volume v = vm/N_A on their surface,
+// cnt.SitesOnParticles), or 0 (the model's default, every molecule).
+func (b *builder) sites(vm float64) (float64, error) {
+	c := b.c
+	n, r := c.Has("particle_density"), c.Has("particle_radius")
+	switch {
+	case !n && !r:
+		return b.given("sites"), nil
+	case c.Has("sites"):
+		return 0, fmt.Errorf("%s: sites %s and particle_density, particle_radius both give the site density; give one or the other", c.File, c.Values["sites"].Text)
+	case !n:
+		return 0, &MissingError{File: c.File, Key: "particle_density", Why: "the number of substrate particles per volume, with particle_radius"}
+	case !r:
+		return 0, &MissingError{File: c.File, Key: "particle_radius", Why: "the radius of the substrate particles, with particle_density"}
+	}
+	radius := b.opt("particle_radius", 0)
+	return cnt.SitesOnParticles(b.opt("particle_density", 0), 4*math.Pi*radius*radius, vm/cnt.Avogadro), nil
 }
 
 // gammaLaw reads the interfacial-energy law of the card into m.

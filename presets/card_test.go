@@ -385,3 +385,52 @@ func TestStandingForms(t *testing.T) {
 		}
 	}
 }
+
+// TestSitesFromParticles: heterogeneous nucleation on particles of a
+// second phase. 1e18 particles per m³ of radius 1 µm carry 4π(1e-6)² m²
+// each; with v = 9.8e-6/N_A m³ per molecule the sites are
+// 1e18·1.2566e-11/v^(2/3) (by hand, cnt.SitesOnParticles). Sites and
+// particles together, or one particle value alone, are errors naming the
+// values (a missing one as a *MissingError). And J at a fixed site density rises as θ falls (the cap's own
+// attachment, cnt.LnAttachmentCap): at 900 K, θ = 120°, 90°, 60°.
+func TestSitesFromParticles(t *testing.T) {
+	const parts = "\ntheta = { value = \"90\", source = \"invented for the tests\" }\n" +
+		"particle_density = { value = \"1e18 m-3\", source = \"invented for the tests\" }\n" +
+		"particle_radius = { value = \"1 um\", source = \"invented for the tests\" }\n"
+	md, err := mustParse(t, goodCard+parts, "p.toml").Model()
+	if err != nil {
+		t.Fatal(err)
+	}
+	v := 9.8e-6 / 6.02214076e23
+	want := 1e18 * 4 * math.Pi * 1e-12 / math.Pow(v, 2.0/3)
+	if got := md.Material().Sites; math.Abs(got/want-1) > 1e-12 {
+		t.Errorf("sites %g, want %g", got, want)
+	}
+	if md.DefaultSites() {
+		t.Error("sites from particles reported as the default")
+	}
+	both := mustParse(t, goodCard+parts+"sites = { value = \"1e20 m-3\", source = \"invented for the tests\" }\n", "b.toml")
+	if _, err := both.Model(); err == nil || !strings.Contains(err.Error(), "give one or the other") {
+		t.Errorf("sites and particles: %v, want an error naming both", err)
+	}
+	for _, drop := range []string{"particle_density", "particle_radius"} {
+		c := mustParse(t, replaceLine(t, goodCard+parts, drop, ""), "one.toml")
+		var me *MissingError
+		if _, err := c.Model(); !errors.As(err, &me) || me.Key != drop {
+			t.Errorf("without %s: %v, want it missing (the other is given)", drop, err)
+		}
+	}
+	var prev float64 = math.Inf(-1)
+	for _, theta := range []string{"120", "90", "60"} {
+		c := mustParse(t, replaceLine(t, goodCard+parts, "theta", "theta = { value = \""+theta+"\", source = \"invented for the tests\" }"), "t.toml")
+		m, err := c.Model()
+		if err != nil {
+			t.Fatal(err)
+		}
+		lnJ := m.At(900).LnJ
+		if !(lnJ > prev) {
+			t.Errorf("θ = %s°: ln J = %g, not above %g at the larger angle", theta, lnJ, prev)
+		}
+		prev = lnJ
+	}
+}

@@ -55,6 +55,13 @@ func headerUnit(s string) string {
 	return u
 }
 
+// InKelvin reports whether the column of a quantity was written in kelvin:
+// its header names the unit K (temperature_k).
+func (d *Data) InKelvin(quantity string) bool {
+	_, u, ok := matchHeader(d.Headers[quantity], []Column{{Quantity: quantity}})
+	return ok && u == "k"
+}
+
 // matchHeader returns the column a header names and the header's unit, or false.
 func matchHeader(h string, cols []Column) (int, string, bool) {
 	h = strings.ToLower(strings.TrimSpace(h))

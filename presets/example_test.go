@@ -72,7 +72,7 @@ func Example_criticalRate() {
 	}
 	fmt.Printf("critical cooling rate: %.3g K/s (path to %.1f K)\n", cl.CriticalRate(1e-6), cl.End)
 	// Output:
-	// critical cooling rate: 8.2 K/s (path to 548.2 K)
+	// critical cooling rate: 8.18 K/s (path to 548.5 K)
 }
 
 // The uncertainty of a rate from the spreads of a card's values: each

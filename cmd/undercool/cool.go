@@ -61,7 +61,7 @@ func setupCool(fs *pflag.FlagSet, e *env) func([]string) error {
 	cf.volume = addVolume(fs, "a sample volume", "sample volume for the onset of nucleation (first nucleus expected), m3, mm3, uL, mL, L or um3 (> 0)")
 	cf.curve = addInput(fs, "curve", "measured cooling curve FILE.csv with columns time_UNIT and temperature_UNIT (e.g. time_s,temperature_c), time strictly increasing")
 	cf.ccurve = &ccurveFlag{}
-	fs.Var(cf.ccurve, "c-curve", "Evancho-Staley C-curve constants k1=..,k2=..,k3=..,k4=..,k5=.. (k1 < 0 dimensionless, k2 s, k3 and k5 J/mol, k4 K) for the quench factor of --curve; default: the material's TTT curve")
+	fs.Var(cf.ccurve, "c-curve", "Evancho-Staley C-curve constants k1=..,k2=..,k3=..,k4=..,k5=.. (k1 < 0 dimensionless, k2 s, k3 and k5 J/mol, k4 K) for the quench factor of --curve and its retained property fraction exp(k1 Q); default: none, only the additivity sum against the material's TTT curve")
 	cf.band = &quantityFlag{kind: units.TemperatureDifference, what: "a band width, K"}
 	if err := cf.band.Set("25K"); err != nil {
 		panic(err)

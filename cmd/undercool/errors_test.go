@@ -134,6 +134,9 @@ var errorCases = []struct {
 	{"rate", []string{"rate", "--material", "$WORK/standing-no-error.toml"}, `^undercool: --material: .*standing-no-error.toml: \[standing\] checked rows need error, the rms error of the checked rows`, 2},
 	{"rate", []string{"rate", "--material", "$WORK/standing-bad-row.toml"}, `^undercool: --material: .*standing-bad-row.toml: \[standing\] calibrated: "rows.csv" is not a measured row FILE:LINE$`, 2},
 	{"rate", []string{"rate", "--material", "$WORK/growth-table-missing.toml"}, `^undercool: --material: .*growth-table-missing.toml:4: growth "table" and growth_table = "FILE.csv" go together$`, 2},
+	{"rate", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--temps", "900"}, `^undercool: preset demo-alloy: missing value "particle_radius" \(the radius of the substrate particles, with particle_density\); give it in the card or with --particle-radius$`, 2},
+	{"rate", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--particle-radius", "1um", "--sites", "1e20", "--temps", "900"}, `^undercool: preset demo-alloy: sites 1e20 and particle_density, particle_radius both give the site density; give one or the other$`, 2},
+	{"rate", []string{"rate", "--material", "demo-alloy", "--particle-radius", "-1um"}, `^undercool: --particle-radius: "-1um" must be positive$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--gamma-law", "linear"}, `^undercool: preset demo-alloy: missing value "gamma_t_ref" \(the temperature gamma is given at, for gamma_law linear\); give it in the card or with --gamma-t-ref$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--gamma-law", "wavy"}, `^undercool: --gamma-law: "wavy" is not one of constant, linear, negentropic$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--growth", "fast"}, `^undercool: --growth: "fast" is not one of normal, viscosity-power, arrhenius, or a FILE.csv$`, 2},
@@ -181,7 +184,7 @@ var errorCases = []struct {
 	{"solution", []string{"rate", "--gamma", "5mJ/m2", "--molar-mass", "168g/mol", "--sat-temp", "40C", "--dh-sol", "28kJ/mol", "--temps", "20C"}, `missing value "vm" \(molar volume \(or molar_mass and density\)\)`, 2},
 	{"solution", []string{"rate", "--material", "$WORK/demo-solute-a.toml", "--temps", "20C", "--prefactor", "diffusion", "--solute-diffusivity", "1e-9m2/s"}, `the diffusion prefactor needs the number of solute molecules per volume`, 2},
 	{"solution", []string{"hold", "--material", "$WORK/demo-solute-a.toml", "--at", "20C", "--volume", "0mL"}, `^undercool: --volume: "0mL" must be positive$`, 2},
-	{"spread", []string{"rate", "--material", "demo-alloy", "--spread", "colour=2%"}, `^undercool: --spread: unknown parameter "colour" \(known: te, dh, dcp, vm, gamma, theta, sites, j0, d0, q,`, 2},
+	{"spread", []string{"rate", "--material", "demo-alloy", "--spread", "colour=2%"}, `^undercool: --spread: unknown parameter "colour" \(known: te, dh, dcp, vm, gamma, theta, sites, particle_density, particle_radius, j0, d0, q,`, 2},
 	{"spread", []string{"rate", "--material", "demo-alloy", "--spread", "gamma=-2%"}, `^undercool: --spread: gamma: "-2%": a standard deviation must not be negative$`, 2},
 	{"spread", []string{"rate", "--material", "demo-alloy", "--spread", "q=-3kJ/mol"}, `^undercool: --spread: q: "-3kJ/mol": a standard deviation must not be negative$`, 2},
 	{"spread", []string{"rate", "--material", "demo-alloy", "--spread", "gamma=abc"}, `^undercool: --spread: gamma: "abc" is not a number`, 2},
@@ -248,10 +251,14 @@ var errorCases = []struct {
 	{"fit_plot", []string{"fit", "arrhenius", "$WORK/bad.csv", "--plot", "$WORK/bad.svg"}, `bad.csv:2: column "diffusivity_m2_per_s": -1 must be positive`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--plot", "rate.jpg"}, `^undercool: --plot: "rate.jpg": unsupported plot file type ".jpg" \(use .svg or .png\)$`, 2},
 	{"ttt_plot", []string{"rate", "--material", "demo-alloy", "--temps", "900", "--plot", "one.svg"}, `^undercool: --plot: a rate plot needs more than one temperature`, 2},
-	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "200", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, `^undercool: cool: the fraction at the end of the curve came out NaN: the computation left the range of floating-point numbers`, 1},
-	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "200", "--rate", "1K/s", "--format", "json"}, `^undercool: cool: the fraction at the end of the path came out NaN`, 1},
-	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "200", "--critical"}, `^undercool: cool: the critical cooling rate came out NaN`, 1},
-	{"report", []string{"report", "--material", "sucrose", "--wlf-c1", "200", "--out", "memo.md"}, `^undercool: report: the critical cooling rate came out NaN`, 1},
+	// A mobility far outside its range: with wlf_c1 = 1000 the growth rate
+	// passes 1e300 m/s and the sums leave the float64 range. (With 200 the
+	// path integral, which carries its sums scaled, now gives finite answers
+	// where the earlier one overflowed to NaN.)
+	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, `^undercool: cool: the quench factor overflows`, 1},
+	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--rate", "1K/s", "--format", "json"}, `^undercool: cool: the critical cooling rate came out \+Inf: the computation left the range of floating-point numbers`, 1},
+	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--critical"}, `^undercool: cool: the critical cooling rate came out \+Inf`, 1},
+	{"report", []string{"report", "--material", "sucrose", "--wlf-c1", "1000", "--out", "memo.md"}, `^undercool: report: the critical cooling rate came out \+Inf`, 1},
 	{"fit", []string{"fit", "arrhenius", "$WORK/extreme-t.csv"}, `^undercool: fit: the activation energy Q came out NaN`, 1},
 	{"fit", []string{"fit", "arrhenius", "$WORK/extreme-t.csv", "--format", "json"}, `^undercool: fit: the activation energy Q came out NaN`, 1},
 	{"limits", []string{"hold", "--material", "/dev/zero", "--at", "300K"}, `^undercool: --material: /dev/zero: larger than the 4 MiB a card may be$`, 2},

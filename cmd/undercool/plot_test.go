@@ -166,13 +166,13 @@ func TestFigures(t *testing.T) {
 	}{
 		{[]string{"ttt", "--material", "demo-alloy", "--fraction", "0.01,0.5,0.99"}, []string{"TTT, demo-alloy (invented demo)",
 			">nose of X = 0.01: 831.55 K, 1.00 min<", ">nose of X = 0.5: 831.55 K, 2.89 min<", ">nose of X = 0.99: 831.55 K, 4.64 min<", ">1e2<", ">Te = 1150.00 K<"}},
-		{[]string{"cool", "--material", "vit1", "--critical"}, []string{"CCT over TTT, vit1:", ">nose: 895.00 K, 1.00 min<", ">critical rate 0.726 K/s<", ">Tg = 625.00 K<"}},
+		{[]string{"cool", "--material", "vit1", "--critical"}, []string{"CCT over TTT, vit1:", ">nose: 895.00 K, 1.00 min<", ">critical rate 0.727 K/s<", ">Tg = 625.00 K<"}},
 		{[]string{"cool", "--material", "demo-alloy", "--curve", curve}, []string{"measured curve over TTT, demo-alloy (invented demo)",
-			">measured curve (X = 1e-06 not reached: 5.4e-08 at its end)<", ">additivity sum reaches 1: 766.19 K, 19.8 s into the curve<"}},
+			">measured curve (X = 1e-06 not reached: 5.37e-08 at its end)<", ">additivity sum reaches 1: 766.68 K, 19.7 s into the curve<"}},
 		{[]string{"cool", "--material", own, "--curve", linear}, []string{">measured curve<", ">X = 1e-06 reached: "}},
-		{[]string{"cool", "--curve", plate, "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol"}, []string{">C-curve<", ">quench factor reaches 1: 544.48 K, 3.69 s into the curve<"}},
+		{[]string{"cool", "--curve", plate, "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol"}, []string{">C-curve<", ">quench factor reaches 1: 544.58 K, 3.69 s into the curve<"}},
 		{[]string{"rate", "--material", "demo-alloy"}, []string{"nucleation and growth rates, demo-alloy (invented demo)"}},
-		{[]string{"report", "--material", "demo-alloy", "--curve", curve, "--date", "2026-01-15", "--out", "-"}, []string{">measured curve (X = 1e-06 not reached", ">additivity sum reaches 1: 766.19 K"}},
+		{[]string{"report", "--material", "demo-alloy", "--curve", curve, "--date", "2026-01-15", "--out", "-"}, []string{">measured curve (X = 1e-06 not reached", ">additivity sum reaches 1: 766.68 K"}},
 	} {
 		svg := figureText(t, c.args...)
 		for _, w := range c.want {

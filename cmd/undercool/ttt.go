@@ -39,7 +39,7 @@ func addJMAKFlags(fs *pflag.FlagSet, list bool) *jmakFlags {
 		help = "transformed fraction(s), each strictly between 0 and 1, comma-separated for several curves, e.g. 0.01,0.5,0.99 (1e-6: the usual detection limit)"
 	}
 	jf := &jmakFlags{fraction: addFraction(fs, list, help)}
-	fs.BoolVar(&jf.lag, "lag", false, "add the transient time lag of nucleation, tau = 1/(2 pi Z^2 beta*), to the time (default off)")
+	fs.BoolVar(&jf.lag, "lag", false, "add the time lag of nucleation, Kashchiev's theta = 2/(3 pi Z^2 beta*), to the time (default off)")
 	jf.nuclei = addQuantity(fs, "nuclei", units.NumberDensity, "nuclei per m^3", "site saturation: this many pre-existing nuclei per volume grow, none form (m^-3 or cm-3, > 0); default continuous nucleation at J(T)")
 	return jf
 }

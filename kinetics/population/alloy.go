@@ -31,7 +31,7 @@ import (
 //	Δμ = k_BT·[c_p·ln(c/c_eq) + (1 − c_p)·ln((1 − c)/(1 − c_eq))]   per atom (cnt.DiluteDriving)
 //	r*, ΔG*, Z from cnt.Critical with v = V_m/N_A, the volume per atom
 //	β* = 4π·r*²·D·c/a⁴                                              (cnt.LnAttachmentSolid)
-//	τ  = 1/(2π·Z²·β*)                                                (cnt.TimeLag)
+//	τ  = 1/(2π·Z²·β*)                                                (cnt.Incubation)
 //
 // with t the time since the alloy became supersaturated (c₀ > c_eq(T)).
 // New particles are born at r* + ½·sqrt(k_BT/(πγ)), the radius at which
@@ -154,7 +154,7 @@ func (m *alloyModel) at(T, m3, since float64) point {
 	lnBeta := cnt.LnAttachmentSolid(lnD, nuc.Radius, c, math.Exp(m.lnA))
 	p.lnJ = cnt.LnRate(m.lnN0, nuc.Zeldovich, lnBeta, nuc.Barrier, T)
 	if !a.NoLag {
-		tau := cnt.TimeLag(nuc.Zeldovich, lnBeta)
+		tau := cnt.Incubation(nuc.Zeldovich, lnBeta)
 		if since > 0 {
 			p.lnJ -= tau / since
 		} else {

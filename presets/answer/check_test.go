@@ -17,7 +17,8 @@ func TestCheck(t *testing.T) {
 	}{
 		{"curve fraction", &Curve{AlongCurve: &AlongCurve{Fraction: nan}}, "fraction at the end of the curve"},
 		{"curve additivity", &Curve{AlongCurve: &AlongCurve{Additivity: inf}}, "additivity sum"},
-		{"quench factor alone", &Curve{Q: nan}, "quench factor"},
+		{"quench factor alone", &Curve{Property: &Property{Q: nan, Retained: 1}}, "quench factor"},
+		{"retained property", &Curve{Property: &Property{Q: 1, Retained: nan}}, "retained property fraction"},
 		{"a CCT row", &CCT{Rows: []CoolRow{{Fraction: 0.5}, {Fraction: nan}}}, "fraction at the end of the path"},
 		{"one rate", &CCT{AtRate: &AtRate{Fraction: nan}}, "fraction at the end of the path"},
 		{"critical rate", &Critical{Rate: nan}, "critical cooling rate"},

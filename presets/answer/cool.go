@@ -54,6 +54,9 @@ type Critical struct {
 	NoseEstimate Num          `json:"nose_estimate_k_per_s"`
 	Nose         TimeAt       `json:"nose"`
 	*Onset
+	// NucleiAtX is the number of nuclei expected in the sample volume
+	// where, at the critical rate, the fraction reaches X.
+	NucleiAtX   *Num         `json:"expected_nuclei_at_fraction,omitempty"`
 	Flags       Strings      `json:"flags"`
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
 	Rows        []CoolRow    `json:"rows"`
@@ -75,12 +78,16 @@ type CCT struct {
 	linear
 }
 
-// AtRate is what cooling at one rate does.
+// AtRate is what cooling at one rate does: with a sample volume, the
+// first nucleus first.
 type AtRate struct {
-	Rate     Num     `json:"cooling_rate_k_per_s"`
+	Rate Num `json:"cooling_rate_k_per_s"`
+	*Onset
 	Fraction Num     `json:"fraction" result:"fraction at the end of the path"`
 	Reached  *TimeAt `json:"fraction_reached"` // null: not reached
-	*Onset
+	// NucleiAtX is the number of nuclei expected in the sample volume
+	// where the fraction reaches X (with a volume, and X reached).
+	NucleiAtX *Num `json:"expected_nuclei_at_fraction,omitempty"`
 }
 
 // linear is what both answers of linear cooling hold.
@@ -149,6 +156,7 @@ func (l linear) critical(inputs LinearInputs, u *Uncertainty) (*Critical, error)
 		var line string
 		a.Onset, line = l.onset(l.Qc)
 		a.summary = append(a.summary, line)
+		a.NucleiAtX = l.sample(l.Qc, &a.summary)
 	}
 	var rates []float64
 	if l.Qc > 0 {
@@ -167,8 +175,13 @@ func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 		q := l.Rates[0]
 		X := cl.Fraction(q)
 		p := cl.Reach(q, l.X)
-		line := fmt.Sprintf("fraction at %.2f K after cooling at %s: %.4g", cl.End, RateText(q), X)
 		a.AtRate = &AtRate{Rate: Num(q), Fraction: Num(X)}
+		if l.V > 0 {
+			var line string
+			a.AtRate.Onset, line = l.onset(q)
+			a.summary = append(a.summary, line)
+		}
+		line := fmt.Sprintf("fraction at %.2f K after cooling at %s: %.4g", cl.End, RateText(q), X)
 		if p.Reached {
 			line += fmt.Sprintf("; X = %s reached at %.2f K after %s", FracLabel(l.X), p.Temp, ReadableTime(p.Time))
 			a.AtRate.Reached = &TimeAt{Num(p.Temp), Num(p.Time)}
@@ -177,9 +190,7 @@ func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 		}
 		a.summary = append(a.summary, line)
 		if l.V > 0 {
-			var line string
-			a.AtRate.Onset, line = l.onset(q)
-			a.summary = append(a.summary, line)
+			a.AtRate.NucleiAtX = l.sample(q, &a.summary)
 		}
 	}
 	a.summary = append(a.summary, fmt.Sprintf("critical cooling rate to stay below X = %s: %s", FracLabel(l.X), RateText(l.Qc)))
@@ -191,6 +202,21 @@ func (l linear) cct(inputs LinearInputs, u *Uncertainty) *CCT {
 func (l linear) onset(q float64) (*Onset, string) {
 	o := onsetOf(l.Path.Onset(l.V, q), l.Path.Te)
 	return o, o.line(l.V, RateText(q))
+}
+
+// sample is the number of nuclei expected in the volume where cooling at
+// rate q reaches X (nil where it does not), and adds the line that says
+// so to summary when it is below one.
+func (l linear) sample(q float64, summary *[]string) *Num {
+	s := l.Path.Sample(l.V, q, l.X)
+	if !s.Reached {
+		return nil
+	}
+	if s.FewNuclei() {
+		*summary = append(*summary, fewNucleiLine(s, l.V))
+	}
+	n := Num(math.Exp(s.LnNuclei))
+	return &n
 }
 
 // rows are the CCT rows of the rates.
@@ -233,7 +259,7 @@ func (l linear) doc(inputs LinearInputs, rows []CoolRow, u *Uncertainty, critica
 	d.Notes = append(d.Notes,
 		"the table is the CCT table: for each rate, where linear cooling from Te first reaches X; — where it does not before the end of the path")
 	if l.V > 0 {
-		d.Notes = append(d.Notes, "onset: where the expected number of nuclei in the volume, V times the integral of J dt, reaches 1 (the sample is then unfrozen with probability 1/e)")
+		d.Notes = append(d.Notes, onsetNote)
 	}
 	d.Notes = append(d.Notes, "no time lag of nucleation and no athermal (pre-existing) nuclei")
 	if critical {

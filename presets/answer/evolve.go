@@ -498,7 +498,7 @@ func (a *Evolve) summary() []string {
 // modelNote says what an evolve run assumes, by system.
 func (a *Evolve) modelNote() string {
 	if a.System == "alloy" {
-		return "model: spherical precipitates of fixed composition in a dilute binary matrix of the same volume per atom; classical homogeneous nucleation at the sites with the time lag exp(-tau/t) and beta* = 4 pi r*^2 D c/a^4; growth by solute diffusion with the Gibbs-Thomson solubility at the interface; coarsening is not added but follows (Kampmann and Wagner 1984; Myhr and Grong 2000; Perez, Dumont and Acevedo-Reyes 2008). Left out: elastic strain, the composition of early clusters, quenched-in vacancies, nucleation on dislocations and grain boundaries, loss of coherency"
+		return "model: spherical precipitates of fixed composition in a dilute binary matrix of the same volume per atom; classical homogeneous nucleation at the sites with the incubation factor exp(-tau/t), tau = 1/(2 pi Z^2 beta*), and beta* = 4 pi r*^2 D c/a^4; growth by solute diffusion with the Gibbs-Thomson solubility at the interface; coarsening is not added but follows (Kampmann and Wagner 1984; Myhr and Grong 2000; Perez, Dumont and Acevedo-Reyes 2008). Left out: elastic strain, the composition of early clusters, quenched-in vacancies, nucleation on dislocations and grain boundaries, loss of coherency"
 	}
 	return "model: a well-mixed batch with the solute balance per volume of solvent; primary nucleation by CNT (no secondary nucleation, breakage or agglomeration); the growth law above, the same for every crystal; crystals born just above the critical size (Randolph and Larson 1988 for the population balance)"
 }

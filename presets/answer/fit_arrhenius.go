@@ -157,14 +157,10 @@ func Arrhenius(data FitData, names Names) (*FitArrhenius, error) {
 
 // celsiusWarnings applies two rules of thumb for a temperature column in
 // the wrong scale (common practice), named by its quantity: every
-// temperature below coldLimit, or a fit that is much straighter with every
-// temperature shifted by ±273.15 K.
+// temperature below coldLimit (coldWarning), or a fit that is much
+// straighter with every temperature shifted by ±273.15 K.
 func celsiusWarnings(T []float64, f *fit.ArrheniusFit, quantity string) []Warning {
-	out := []Warning{}
-	if floats.Max(T) < coldLimit {
-		out = append(out, Warning{"all_below_250_k", fmt.Sprintf(
-			"every temperature is below %g K; if they are degrees Celsius, name the column %s_c", coldLimit, quantity)})
-	}
+	out := coldWarning(T, quantity)
 	if f.Straighter(units.CelsiusOffset) {
 		out = append(out, Warning{"straighter_if_celsius", fmt.Sprintf("the temperatures look like degrees Celsius read as kelvin: the points lie on a much straighter line %g K higher; name the column %s_c if so", units.CelsiusOffset, quantity)})
 	}
@@ -172,6 +168,18 @@ func celsiusWarnings(T []float64, f *fit.ArrheniusFit, quantity string) []Warnin
 		out = append(out, Warning{"straighter_if_kelvin", fmt.Sprintf("the temperatures look like kelvin read as degrees Celsius: the points lie on a much straighter line %g K lower; name the column %s_k if so", units.CelsiusOffset, quantity)})
 	}
 	return out
+}
+
+// coldWarning is the first rule of celsiusWarnings, for any column of
+// temperatures read as kelvin, named by its quantity: every one below
+// coldLimit suggests degrees Celsius written as kelvin. Empty (not nil:
+// JSON []) otherwise.
+func coldWarning(T []float64, quantity string) []Warning {
+	if floats.Max(T) < coldLimit {
+		return []Warning{{"all_below_250_k", fmt.Sprintf(
+			"every temperature is below %g K; if they are degrees Celsius, name the column %s_c", coldLimit, quantity)}}
+	}
+	return []Warning{}
 }
 
 // Doc is how the fit reads.

@@ -141,7 +141,7 @@ func Describe(c *presets.Card, md *kinetics.Model) Material {
 	d.about = []string{
 		MaterialLine(c),
 		StandingLine(c),
-		fmt.Sprintf("models: driving force %s; mobility %s; prefactor %s; %s", driving, mob, d.Prefactor, nucleationSite(m)),
+		fmt.Sprintf("models: driving force %s; mobility %s; prefactor %s; %s", driving, mob, d.Prefactor, nucleationSite(m, c)),
 	}
 	if m.GammaLaw != kinetics.GammaConstant || m.GrowthLaw != nil || d.Glassy != "" {
 		d.about = append(d.about, lawsLine(md, d.Growth))
@@ -208,15 +208,18 @@ func MaterialLine(c *presets.Card) string {
 	return fmt.Sprintf("material: %s (%s)", c.Name, c.File)
 }
 
-func nucleationSite(m kinetics.Material) string {
+func nucleationSite(m kinetics.Material, c *presets.Card) string {
 	if m.Theta >= 180 {
 		if m.Sites > 0 {
 			return fmt.Sprintf("homogeneous, %.3g sites/m3", m.Sites)
 		}
 		return "homogeneous, every molecule a site"
 	}
-	sites := "every molecule a site"
-	if m.Sites > 0 {
+	sites := "every molecule a site (no site density given: an upper bound, by many orders of magnitude for particles or walls; give sites, or particle_density with particle_radius)"
+	switch {
+	case c.Has("particle_density"):
+		sites = fmt.Sprintf("%.3g sites/m3 on %s particles/m3 of radius %s", m.Sites, c.Values["particle_density"].Text, c.Values["particle_radius"].Text)
+	case m.Sites > 0:
 		sites = fmt.Sprintf("%.3g sites/m3", m.Sites)
 	}
 	return fmt.Sprintf("heterogeneous, contact angle %.4g deg, %s", m.Theta, sites)

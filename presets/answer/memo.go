@@ -197,18 +197,18 @@ func (m *Memo) results() []memoLine {
 	}
 	if c := m.Curve; c != nil {
 		a := c.Analysis
+		next := k + 1
+		if m.in.V > 0 {
+			// the first nucleus first (its band follows the fraction's)
+			lines = append(lines, memoLine{fmt.Sprintf("onset undercooling in %.4g m³ on the curve", m.in.V), c.Onset.cell(true), next})
+			next++
+		}
 		lines = append(lines, memoLine{"fraction at the end of the curve", sig3(a.Path.Fraction), k})
 		reached := "not reached"
 		if a.Path.Reached {
 			reached = fmt.Sprintf("at %.2f K, %s into the curve", a.Path.TempReached, ReadableTime(a.Path.TimeReached))
 		}
 		lines = append(lines, memoLine{"X reached on the curve", reached, -1})
-		next := k + 1
-		if m.in.V > 0 {
-			v := onsetOf(kinetics.OnsetAlong(*m.in.Path, a.Sums, m.in.V), te).cell(true)
-			lines = append(lines, memoLine{fmt.Sprintf("onset undercooling in %.4g m³ on the curve", m.in.V), v, next})
-			next++
-		}
 		sum := sig3(a.Additivity.Q)
 		if a.Additivity.Reached {
 			sum += fmt.Sprintf(", reaches 1 at %.2f K", a.Additivity.TempReached)
@@ -376,6 +376,22 @@ func (m *Memo) resultBlocks() []Block {
 		results.Rows = append(results.Rows, row)
 	}
 	bs := []Block{TableBlock(results)}
+	if c := m.Cool; c != nil && in.V > 0 && c.Qc > 0 {
+		if s := c.Path.Sample(in.V, c.Qc, in.X); s.FewNuclei() {
+			bs = append(bs, Para("At the critical rate, "+fewNucleiLine(s, in.V)+"."))
+		}
+	}
+	if c := m.Curve; c != nil {
+		if in.V > 0 {
+			if s := c.Analysis.Sample(in.V); s.FewNuclei() {
+				bs = append(bs, Para("On the curve, "+fewNucleiLine(s, in.V)+"."))
+			}
+		}
+		bs = append(bs, Para("**Verdict on the measured curve:** "+c.Verdict.Text+mark+"."))
+		if c.Verdict.Why != "" {
+			bs = append(bs, Para("Why the path integral and the additivity sum differ: "+c.Verdict.Why+"."))
+		}
+	}
 	if m.Cool != nil && m.nose().Inside() {
 		bs = append(bs, Para("The nose estimate assumes the whole path is spent at the nose; a real path spends only part of its time there, so the exact critical rate is lower."))
 	}

@@ -16,6 +16,9 @@ type Onset struct {
 	Expected     Num `json:"expected_nuclei"`      // on the whole path
 }
 
+// onsetNote says what an onset is.
+const onsetNote = "onset: where the expected number of nuclei in the volume, V times the integral of J dt, reaches 1 (the sample is then unfrozen with probability 1/e)"
+
 // onsetOf is an onset on a path from te: every description of an onset
 // comes from it.
 func onsetOf(o kinetics.Onset, te float64) *Onset {
