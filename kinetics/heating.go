@@ -262,7 +262,8 @@ func (h *Heating) CriticalRate(X float64) float64 {
 }
 
 // Reach returns where heating at rate q (K/s, > 0) first reaches the
-// fraction X (0 < X < 1), to 1e-6 K; Reached false if not by To.
+// fraction X (0 < X < 1), to 1e-6 K; Reached false if not by To. Within
+// 1e-9 of the level at To (the critical rate) it is reached at To.
 func (h *Heating) Reach(q, X float64) CCTPoint {
 	if !(q > 0) || !(X > 0 && X < 1) {
 		panic("kinetics: Heating.Reach: need q > 0 and 0 < X < 1")
@@ -270,8 +271,14 @@ func (h *Heating) Reach(q, X float64) CCTPoint {
 	level := lnXextOf(X)
 	f := func(T float64) float64 { return h.lnXext(h.state(T), q) - level }
 	p := CCTPoint{Rate: q}
-	switch {
-	case !(f(h.To) >= 0):
+	switch end := f(h.To); {
+	case math.Abs(end) <= 1e-9:
+		// At the critical rate X is reached at the end of the path: near
+		// T_e the growth stops and the extended volume stays within parts
+		// in 10⁹ of its total over kelvins, so a crossing found on that
+		// plateau would be rounding noise (as for Cooling.Reach).
+		p.Reached, p.Temp = true, h.To
+	case !(end >= 0):
 		return p
 	case f(h.From) >= 0:
 		p.Reached, p.Temp = true, h.From
