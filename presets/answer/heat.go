@@ -298,12 +298,17 @@ func (hb heating) dsc(inputs HeatInputs, q *Quenched, rates []float64) *DSC {
 		if p.Onset.Reached {
 			row.Onset = Num(p.Onset.Temp)
 		}
-		if !p.Interior {
+		switch {
+		case !p.Interior:
 			row.Peak, row.PeakC, row.Fraction, row.Height = Num(math.NaN()), Num(math.NaN()), Num(math.NaN()), Num(math.NaN())
-		} else {
+		case p.Onset.Reached:
 			beta, tp = append(beta, r), append(tp, p.T)
 		}
 		a.Rows = append(a.Rows, row)
+	}
+	if n := len(a.Rows) - len(tp); n > 0 {
+		a.notes = append(a.notes, fmt.Sprintf("%d of the rates never reach the onset (X = %g %%) on the path: no exotherm a calorimeter would show; their dX/dT maximum (if any) is listed and left out of Kissinger's line",
+			n, 100*kinetics.OnsetFraction))
 	}
 	if n := len(tp); n > 0 {
 		a.GrowthE = Num(growthEnergy(hb.Model, tp[n/2]))
@@ -316,8 +321,11 @@ func (hb heating) dsc(inputs HeatInputs, q *Quenched, rates []float64) *DSC {
 	} else if len(tp) < 2 {
 		a.summary = append(a.summary, "Kissinger's line needs peaks at two rates or more inside the path")
 	}
-	if len(tp) < len(rates) {
-		a.notes = append(a.notes, fmt.Sprintf("— where dX/dT is largest at an end of the path (%.2f to %.2f K): no peak inside it", h.From, math.Min(h.To, hb.Model.Te())))
+	for _, p := range a.Peaks {
+		if !p.Interior {
+			a.notes = append(a.notes, fmt.Sprintf("— for the peak: dX/dT is largest at an end of the path (%.2f to %.2f K), no peak inside it", h.From, math.Min(h.To, hb.Model.Te())))
+			break
+		}
 	}
 	return a
 }
