@@ -26,6 +26,9 @@ var errorCases = []struct {
 }{
 	{"cool", []string{"cool", "--material", "demo-alloy"}, `^undercool: cool: give --rate Q, --critical or --curve FILE.csv`, 2},
 	// heat
+	{"cool", []string{"report", "--material", "lithium-disilicate", "--heat-from", "25C", "--out", "$WORK/memo.md"}, `^undercool: --heat-from: says where the memo's heating starts; give --heat-rate or --dsc with it`, 2},
+	{"cool", []string{"report", "--material", "demo-alloy", "--dsc", "2,5K/min", "--out", "$WORK/memo.md"}, `^undercool: --heat-from: the card has no glass transition Tg`, 2},
+	{"cool", []string{"report", "--material", "lithium-disilicate", "--dsc", "2,5K/min", "--heat-from", "1400K", "--out", "$WORK/memo.md"}, `^undercool: --heat-from: 1400K is not below the equilibrium temperature`, 2},
 	{"cool", []string{"heat", "--material", "lithium-disilicate", "--plot", "$WORK/heat.svg"}, `^undercool: heat: give --rate Q, --critical, --dsc Q,Q,... or --schedule`, 2},
 	{"cool", []string{"heat", "--material", "lithium-disilicate", "--rate", "0K/min", "--plot", "$WORK/heat.svg"}, `^undercool: --rate: "0K/min" must be positive \(a heating rate, K/s\)`, 2},
 	{"cool", []string{"heat", "--material", "lithium-disilicate", "--rate", "-2K/min"}, `^undercool: --rate: "-2K/min" must be positive`, 2},

@@ -137,7 +137,7 @@ func (hf *heatFlags) input() (answer.HeatInput, error) {
 	if hf.cooledAt.set {
 		in.CooledAt = hf.cooledAt.q[0]
 	}
-	if in.From, err = hf.start(md); err != nil {
+	if in.From, err = hf.start(md, "from"); err != nil {
 		return in, err
 	}
 	in.To = md.Te()
@@ -150,16 +150,17 @@ func (hf *heatFlags) input() (answer.HeatInput, error) {
 	return in, nil
 }
 
-// start is where linear heating starts: --from, or the card's Tg.
-func (hf *heatFlags) start(md *kinetics.Model) (float64, error) {
+// start is where linear heating starts: the flag (--from, or report's
+// --heat-from), or the card's Tg.
+func (hf *heatFlags) start(md *kinetics.Model, name string) (float64, error) {
 	te, tg := md.Te(), md.Tg()
 	switch {
 	case (!hf.from.set || hf.from.tg) && !(tg > 0):
-		return 0, usagef("--from: the card has no glass transition Tg; give the start of heating, e.g. --from 25C")
+		return 0, usagef("--%s: the card has no glass transition Tg; give the start of heating, e.g. --%s 25C", name, name)
 	case !hf.from.set || hf.from.tg:
 		return tg, nil
 	case !(hf.from.x < te):
-		return 0, usagef("--from: %s is not below the equilibrium temperature %.2f K: nothing crystallizes above it", hf.from.text, te)
+		return 0, usagef("--%s: %s is not below the equilibrium temperature %.2f K: nothing crystallizes above it", name, hf.from.text, te)
 	}
 	return hf.from.x, nil
 }
