@@ -264,6 +264,8 @@ func (hb heating) critical(inputs HeatInputs, q *Quenched, in HeatInput) (*HeatC
 	switch {
 	case math.IsInf(qh, 1):
 		a.summary = append(a.summary, fmt.Sprintf("critical heating rate: none; the quenched-in nuclei already fill X = %s", FracLabel(hb.X)))
+	case qh > 0 && q != nil:
+		a.summary = append(a.summary, fmt.Sprintf("critical heating rate to stay below X = %s at %.2f K: %s (exact path integral; with the nuclei carried in, the root of a polynomial in 1/rate)", FracLabel(hb.X), h.To, RateText(qh)))
 	case qh > 0:
 		a.summary = append(a.summary, fmt.Sprintf("critical heating rate to stay below X = %s at %.2f K: %s (exact path integral; Xext scales as rate^-4 from a nucleus-free start)", FracLabel(hb.X), h.To, RateText(qh)))
 	default:
