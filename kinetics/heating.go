@@ -165,23 +165,14 @@ func (h *Heating) lnXextRate(s heatState, q float64) float64 {
 	return math.Log(4*math.Pi) + s.lnU + logSum(terms)
 }
 
-// logSum is ln Σ e^x over the terms, −Inf for none; NaN if any is NaN.
+// logSum is ln Σ e^x over the terms (logAddExp in turn), −Inf for none;
+// NaN if any is NaN.
 func logSum(x []float64) float64 {
-	top := math.Inf(-1)
+	s := math.Inf(-1)
 	for _, v := range x {
-		if math.IsNaN(v) {
-			return math.NaN()
-		}
-		top = math.Max(top, v)
+		s = logAddExp(s, v)
 	}
-	if math.IsInf(top, 0) {
-		return top
-	}
-	var s float64
-	for _, v := range x {
-		s += math.Exp(v - top)
-	}
-	return top + math.Log(s)
+	return s
 }
 
 // HeatPoint is the state of heating at rate q when it passes T.
