@@ -83,6 +83,7 @@ var goldenCases = []struct {
 	{"heat-dsc.csv", []string{"heat", "--material", "lithium-disilicate", "--dsc", "2,5,10,20K/min", "--format", "csv"}},
 	{"heat-critical.txt", []string{"heat", "--material", "lithium-disilicate", "--critical"}},
 	{"heat-critical.json", []string{"heat", "--material", "lithium-disilicate", "--critical", "--format", "json"}},
+	{"heat-critical-sucrose.txt", []string{"heat", "--material", "sucrose", "--critical"}},
 	{"heat-critical-cooled.json", []string{"heat", "--material", "lithium-disilicate", "--critical", "--cooled-at", "1K/s", "--format", "json"}},
 	{"heat-rate.txt", []string{"heat", "--material", "lithium-disilicate", "--rate", "10K/min", "--from", "25C", "--to", "1000K", "--fraction", "0.01"}},
 	{"heat-rate-cooled.json", []string{"heat", "--material", "lithium-disilicate", "--rate", "10K/min", "--cooled-at", "1K/s", "--format", "json"}},
