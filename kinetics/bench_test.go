@@ -47,3 +47,39 @@ func BenchmarkRateTable1000(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkHeatCritical is the critical heating rate of a shipped glass
+// card from Tg to T_e: the unit-rate heating path integrated once, and the
+// q⁻⁴ closed form.
+func BenchmarkHeatCritical(b *testing.B) {
+	heat := glassHeating(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		sinkF += heat().CriticalRate(1e-6)
+	}
+}
+
+// glassHeating heats the lithium disilicate card from Tg to T_e.
+func glassHeating(b *testing.B) func() *kinetics.Heating {
+	md := shippedModel(b, "lithium-disilicate")
+	return func() *kinetics.Heating {
+		h, err := md.LinearHeating(md.Material().Tg, md.Te(), kinetics.NoNuclei)
+		if err != nil {
+			b.Fatal(err)
+		}
+		return h
+	}
+}
+
+// BenchmarkHeatDSCPeaks is the DSC peak and onset at four heating rates
+// (2, 5, 10 and 20 K/min) of the same card, from one unit-rate path.
+func BenchmarkHeatDSCPeaks(b *testing.B) {
+	heat := glassHeating(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		h := heat()
+		for _, q := range []float64{2.0 / 60, 5.0 / 60, 10.0 / 60, 20.0 / 60} {
+			sinkF += h.Peak(q).T
+		}
+	}
+}

@@ -111,29 +111,36 @@ func (md *Model) rateAndGrowth(T float64) (lnJ, u float64) {
 }
 
 // refCoolingLnXext is ln of the extended volume at 1 K/s of linear cooling
-// from T_e down to lo, by nested adaptive quadrature in temperature:
+// from T_e down to lo (refLinearLnXext).
+func refCoolingLnXext(md *Model, lo, rel float64) float64 { return refLinearLnXext(md, md.te, lo, rel) }
+
+// refLinearLnXext is ln of the extended volume at 1 K/s at the end of a
+// linear path from start to end (K; cooling for end < start, heating for
+// end > start), by nested adaptive quadrature in temperature:
 //
-//	Xext = (4π/3)·∫_lo^{T_e} J(T')·G(T')³ dT',  G(T') = ∫_lo^{T'} u dT''
+//	Xext = (4π/3)·∫ J(T')·G(T')³ dT',  G(T') = |∫_{T'}^{end} u dT''|
 //
-// (a nucleus born at T' grows until the path ends at lo), with J scaled by
-// the largest J on a scan so that nothing overflows, to relative tolerance
-// rel on the outer integral and rel/10 on the inner one; u is scaled by
-// its largest value on the scan too, so that a growth speed of 1e120 m/s
-// does not overflow the cube. G is integrated
-// from lo upwards for every T', so no length is a difference of two large
-// ones.
-func refCoolingLnXext(md *Model, lo, rel float64) float64 {
-	te := md.te
+// over the path (a nucleus born at T' grows until the path ends), with J
+// scaled by the largest J on a scan so that nothing overflows, to relative
+// tolerance rel on the outer integral and rel/10 on the inner one; u is
+// scaled by its largest value on the scan too, so that a growth speed of
+// 1e120 m/s does not overflow the cube. G is integrated from the end of
+// the path towards T' for every T', so no length is a difference of two
+// large ones.
+func refLinearLnXext(md *Model, start, end, rel float64) float64 {
+	lo, hi := math.Min(start, end), math.Max(start, end)
 	top, uTop := math.Inf(-1), 0.0
 	for i := 0; i <= 4000; i++ {
-		lnJ, u := md.rateAndGrowth(lo + (te-lo)*float64(i)/4000)
+		lnJ, u := md.rateAndGrowth(lo + (hi-lo)*float64(i)/4000)
 		top, uTop = math.Max(top, lnJ), math.Max(uTop, u)
 	}
 	if !(uTop > 0) {
 		uTop = 1
 	}
 	u := func(T float64) float64 { _, u := md.rateAndGrowth(T); return u / uTop }
-	G := func(T float64) float64 { return adaptive(u, lo, T, rel/10, 0) } // u ≥ 0: relative tolerance suffices
+	G := func(T float64) float64 { // u ≥ 0: relative tolerance suffices
+		return adaptive(u, math.Min(T, end), math.Max(T, end), rel/10, 0)
+	}
 	outer := func(T float64) float64 {
 		lnJ, _ := md.rateAndGrowth(T)
 		if math.IsInf(lnJ, -1) || math.IsNaN(lnJ) {
@@ -142,7 +149,7 @@ func refCoolingLnXext(md *Model, lo, rel float64) float64 {
 		g := G(T)
 		return math.Exp(lnJ-top) * g * g * g
 	}
-	return ln4pi3 + top + 3*math.Log(uTop) + math.Log(adaptiveTotal(outer, lo, te, rel))
+	return ln4pi3 + top + 3*math.Log(uTop) + math.Log(adaptiveTotal(outer, lo, hi, rel))
 }
 
 // refPathSums is the reference for the running sums at point k of a path

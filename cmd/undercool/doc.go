@@ -1,7 +1,8 @@
 /*
 Undercool computes how fast a new phase nucleates and grows when a material
-is cooled, held or stored below its equilibrium temperature, from classical
-nucleation theory and an Arrhenius or viscosity mobility law.
+is cooled, held, stored or reheated below its equilibrium temperature,
+from classical nucleation theory and an Arrhenius or viscosity mobility
+law.
 
 Usage:
 
@@ -13,8 +14,9 @@ Commands:
 	ttt        TTT curve for a transformed fraction, with its nose
 	hold       time to a fraction at one temperature (storage, anneal)
 	cool       cooling paths: fraction, critical rate, onset, quench factor
+	heat       heating a glass: critical heating rate, DSC peaks, heat treatments
 	evolve     particles in size classes over a schedule: ageing, crystallizers
-	fit        fit Arrhenius, interface, Avrami or induction-time models to data
+	fit        fit Arrhenius, interface, growth, Avrami, induction, DSC peaks
 	materials  list the shipped material cards, or show one
 	report     a Markdown memo for a material and a question
 
@@ -40,7 +42,8 @@ when that is a terminal.
 The results are estimates: rates depend on the cube of the interfacial
 energy inside an exponential, so a 10 % error in it moves a rate by orders
 of magnitude. Heat treatment and quenching (hot metal, quench-oil fires,
-steam) and pharmaceutical or food process decisions must follow local
-codes, validated procedures and licensed practice.
+steam), reheating glass (furnaces, molten material) and pharmaceutical or
+food process decisions must follow local codes, validated procedures and
+licensed practice.
 */
 package main

@@ -14,8 +14,14 @@ import (
 // evolveJSON runs evolve in-process with --format json and decodes it.
 func evolveJSON(t *testing.T, args ...string) map[string]any {
 	t.Helper()
+	return runJSON(t, append([]string{"evolve"}, args...)...)
+}
+
+// runJSON runs a command in-process with --format json and decodes it.
+func runJSON(t *testing.T, args ...string) map[string]any {
+	t.Helper()
 	var stdout, stderr bytes.Buffer
-	if code := run(append(append([]string{"evolve"}, args...), "--format", "json"), nil, &stdout, &stderr); code != 0 {
+	if code := run(append(args, "--format", "json"), nil, &stdout, &stderr); code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr.String())
 	}
 	var out map[string]any

@@ -17,17 +17,20 @@ func init() {
 			"interface (the interfacial energy and a prefactor scale from measured nucleation rates, the rest of the material from --material and flags; with --gamma-law linear, gamma at --gamma-t-ref and its slope dgamma/dT together) or " +
 			"growth (the kinetic coefficient of growth from measured growth rates, columns temperature_UNIT and growth_rate_UNIT: log10 u_g and the decoupling exponent xi of the viscosity-power law, or u_0 and Q_u of the Arrhenius law with --growth arrhenius; the driving force and viscosity from --material) or " +
 			"avrami (n and k from transformed fractions against time) or " +
-			"induction (the interfacial energy and the apparent prefactor A of a solution from induction times, ln t against 1/(T^3 ln^2 S); columns temperature_UNIT, supersaturation, induction_time_UNIT). " +
+			"induction (the interfacial energy and the apparent prefactor A of a solution from induction times, ln t against 1/(T^3 ln^2 S); columns temperature_UNIT, supersaturation, induction_time_UNIT) or " +
+			"kissinger (the apparent activation energy E and pre-exponential A from the peak temperatures of heating scans, ln(beta/Tp^2) against 1/Tp; columns heating_rate_UNIT, peak_temperature_UNIT) or " +
+			"ozawa (with peak_temperature_UNIT: E from ln(beta) against 1/Tp, Ozawa-Flynn-Wall with Doyle's approximation; with temperature_UNIT and fraction: Ozawa's exponent m at each temperature from ln(-ln(1-X)) against ln(beta)). " +
+			"The energy of a crystallization peak is apparent: it mixes nucleation and growth and is not the activation energy of diffusion. " +
 			"Estimates come with standard errors and 95 % intervals (Student t, N - 2 degrees of freedom); two points give the exact answer and no interval. " +
 			"Lines starting with # are comments; FILE - reads standard input.",
-		usage:   "undercool fit arrhenius|interface|growth|avrami|induction FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--keep-prefactor] [--keep-xi] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
+		usage:   "undercool fit arrhenius|interface|growth|avrami|induction|kissinger|ozawa FILE.csv [--weights] [--material NAME|FILE.toml] [value flags] [--keep-prefactor] [--keep-xi] [--card-out FILE.toml] [--plot FILE.svg|png] [--format F]",
 		example: "undercool fit arrhenius testdata/fit/diffusion.csv --card-out solute.toml",
 		setup:   setupFit,
 	}
 }
 
 // fitKinds are the accepted first arguments of fit.
-var fitKinds = []string{"arrhenius", "interface", "growth", "avrami", "induction"}
+var fitKinds = []string{"arrhenius", "interface", "growth", "avrami", "induction", "kissinger", "ozawa"}
 
 // fitFlags are the flags of the fit command.
 type fitFlags struct {
@@ -49,7 +52,7 @@ func setupFit(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.BoolVar(&f.keepXi, "keep-xi", false, "fit growth: hold the decoupling exponent xi at the material's (--growth-xi, default 1) and fit only u_g")
 	f.cardOut = addOutput(fs, "card-out", "write the fitted values as a material card FILE.toml, loadable with --material (arrhenius with a diffusivity column, interface, growth)")
 	f.kind = addChoice(fs, "kind", "metal", presets.KindChoices, "kind of material written by arrhenius --card-out without --material: "+strings.Join(presets.KindChoices, ", "))
-	f.plot = addPlot(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot)")
+	f.plot = addPlot(fs, "draw the data and the fit (arrhenius: log y against 1000/T; avrami: the linearized plot; interface: log J against T and the classical plot; kissinger, ozawa: the line against 1000/Tp, or ln(-ln(1-X)) against ln(beta) at each temperature)")
 	f.mf = addMaterialFlags(fs)
 	f.volume = addVolume(fs, "", "fit induction: the volume of each sample, for the prefactor A from A·V, m3, L, mL, uL or mm3 (> 0)")
 	f.format = addFormat(fs, e)
@@ -206,11 +209,28 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 		}
 		return a, a.Card, nil
 	}
+	// The rest use no material and have no card.
 	if n := f.mf.given(); n != "" {
-		return nil, nil, usagef("--%s: fit avrami uses no material; give only the data file", n)
+		return nil, nil, usagef("--%s: fit %s uses no material; give only the data file", n, kind)
 	}
 	if f.cardOut.set {
-		return nil, nil, usagef("--card-out: a material card has no place for the Avrami n and k; use the JSON output (--format json)")
+		return nil, nil, usagef("--card-out: a material card has no place for %s; use the JSON output (--format json)", noCard[kind])
+	}
+	switch kind {
+	case "kissinger":
+		data, err := read(answer.PeakColumns())
+		if err != nil {
+			return nil, nil, err
+		}
+		a, err := answer.Kissinger(data, flagNames)
+		return a, nil, err
+	case "ozawa":
+		data, err := read(answer.OzawaColumns())
+		if err != nil {
+			return nil, nil, err
+		}
+		a, err := answer.Ozawa(data, flagNames)
+		return a, nil, err
 	}
 	data, err := read(answer.AvramiColumns())
 	if err != nil {
@@ -218,6 +238,13 @@ func (f *fitFlags) fit(e *env, kind, path string) (answer.Answer, carded, error)
 	}
 	a, err := answer.Avrami(data, flagNames)
 	return a, nil, err
+}
+
+// noCard says what a fit without a card finds.
+var noCard = map[string]string{
+	"avrami":    "the Avrami n and k",
+	"kissinger": "an apparent activation energy of DSC peaks",
+	"ozawa":     "an apparent activation energy of DSC peaks or Ozawa's exponent",
 }
 
 // finish writes the plot and the card where they are asked for (each with

@@ -20,9 +20,10 @@ type inverseTempTicks struct{}
 
 func (inverseTempTicks) Ticks(lo, hi float64) []plot.Tick {
 	ticks := plot.DefaultTicks{}.Ticks(lo, hi)
+	plainLabels(ticks)
 	for i := range ticks {
 		if ticks[i].Label != "" && ticks[i].Value > 0 {
-			ticks[i].Label = strconv.FormatFloat(ticks[i].Value, 'f', -1, 64) + "\n" + strconv.FormatFloat(1000/ticks[i].Value, 'f', 0, 64) + " K"
+			ticks[i].Label += "\n" + strconv.FormatFloat(1000/ticks[i].Value, 'f', 0, 64) + " K"
 		}
 	}
 	return ticks
@@ -81,6 +82,10 @@ func fitPlot(pf *plotFlag, a answer.Answer) error {
 		return inductionPlot(pf, a.Data.Name(), a.Times, a.Fit)
 	case *answer.FitGrowth:
 		return growthPlot(pf, a.Data.Name(), a.T, a.U, a.Fit)
+	case *answer.FitPeaks:
+		return peaksPlot(pf, a)
+	case *answer.FitOzawaExponent:
+		return ozawaExponentPlot(pf, a)
 	}
 	panic(fmt.Sprintf("undercool: fitPlot: %T", a))
 }
@@ -88,6 +93,28 @@ func fitPlot(pf *plotFlag, a answer.Answer) error {
 // arrheniusPlot is y on a log axis against 1000/T, with the temperature in
 // kelvin under each tick.
 func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, res *fit.ArrheniusFit) error {
+	return inverseTPlot(pf, "Arrhenius fit, "+file, symbol+" ("+unit+"), log scale", fmt.Sprintf("fit, Q = %.4g kJ/mol", res.Q/1e3),
+		T, y, func(x float64) float64 { return math.Exp(res.Line.At(x)) }, true)
+}
+
+// peaksPlot is the straight line of a fit to DSC peaks as it is fitted:
+// ln(beta/Tp^2) (Kissinger) or ln(beta) (Ozawa) against 1000/Tp.
+func peaksPlot(pf *plotFlag, a *answer.FitPeaks) error {
+	res := a.Fit
+	y := make([]float64, len(a.Tp))
+	for i, t := range a.Tp {
+		y[i] = res.LnY(a.Beta[i], t)
+	}
+	title, label := "Kissinger plot, ", "ln(beta/Tp^2), beta in K/s"
+	if res.Method == fit.Ozawa {
+		title, label = "Ozawa-Flynn-Wall plot, ", "ln(beta / 1 K/s)"
+	}
+	return inverseTPlot(pf, title+a.Data.Name(), label, fmt.Sprintf("fit, E = %.4g kJ/mol", res.E/1e3), a.Tp, y, res.Arrhenius.Line.At, false)
+}
+
+// inverseTPlot is y against 1000/T, with the temperature in kelvin under
+// each tick, and the fitted curve at(1/T); y on a log axis if logY.
+func inverseTPlot(pf *plotFlag, title, yLabel, legend string, T, y []float64, at func(invT float64) float64, logY bool) error {
 	x := make([]float64, len(T))
 	pts := make(plotter.XYs, len(T))
 	for i, t := range T {
@@ -95,19 +122,60 @@ func arrheniusPlot(pf *plotFlag, file, symbol, unit string, T, y []float64, res 
 		pts[i] = plotter.XY{X: x[i], Y: y[i]}
 	}
 	lo, hi := span(x)
-	line := fittedLine(lo, hi, 50, func(x float64) (float64, bool) {
-		return math.Exp(res.Line.At(x / 1000)), true
-	})
+	line := fittedLine(lo, hi, 50, func(x float64) (float64, bool) { return at(x / 1000), true })
 	p := plot.New()
-	p.Title.Text = "Arrhenius fit, " + file
+	p.Title.Text = title
 	p.X.Label.Text = "1000/T (1/K), T beneath"
-	p.Y.Label.Text = symbol + " (" + unit + "), log scale"
+	p.Y.Label.Text = yLabel
 	p.X.Tick.Marker = inverseTempTicks{}
-	p.Y.Scale = plot.LogScale{}
-	p.Y.Tick.Marker = decadeTicks{}
+	if logY {
+		p.Y.Scale = plot.LogScale{}
+		p.Y.Tick.Marker = decadeTicks{}
+	}
 	p.X.Min, p.X.Max = lo, hi
-	if err := dataAndLine(p, pts, line, "data", fmt.Sprintf("fit, Q = %.4g kJ/mol", res.Q/1e3)); err != nil {
+	if err := dataAndLine(p, pts, line, "data", legend); err != nil {
 		return err
+	}
+	return savePlots(pf, p)
+}
+
+// ozawaExponentPlot is ln(−ln(1−X)) against ln beta, a line for each
+// temperature fitted, with its points used.
+func ozawaExponentPlot(pf *plotFlag, a *answer.FitOzawaExponent) error {
+	p := plot.New()
+	p.Title.Text = "Ozawa plot, " + a.Data.Name()
+	p.X.Label.Text = "ln(beta / 1 K/s)"
+	p.Y.Label.Text = "ln(-ln(1 - X))"
+	var all []float64
+	for i, res := range a.Fits {
+		for _, j := range res.Used {
+			all = append(all, math.Log(a.Beta[i][j]))
+		}
+	}
+	lo, hi := span(all)
+	p.X.Min, p.X.Max = lo, hi
+	p.Add(plotter.NewGrid())
+	for i, res := range a.Fits {
+		var pts plotter.XYs
+		var xs []float64
+		for _, j := range res.Used {
+			x := math.Log(a.Beta[i][j])
+			pts = append(pts, plotter.XY{X: x, Y: math.Log(-math.Log1p(-a.X[i][j]))})
+			xs = append(xs, x)
+		}
+		l0, h0 := span(xs)
+		ln, err := plotter.NewLine(fittedLine(l0, h0, 2, func(x float64) (float64, bool) { return res.Line.At(x), true }))
+		if err != nil {
+			return placef("--plot: %v", err)
+		}
+		sc, err := plotter.NewScatter(pts)
+		if err != nil {
+			return placef("--plot: %v", err)
+		}
+		ln.Color, ln.Width = curveColor(i), vg.Points(1.5)
+		sc.GlyphStyle = draw.GlyphStyle{Color: curveColor(i), Radius: vg.Points(3), Shape: draw.CircleGlyph{}}
+		p.Add(ln, sc)
+		p.Legend.Add(fmt.Sprintf("%.5g K, m = %.3g", float64(a.Exponents[i].T), res.M), ln, sc)
 	}
 	return savePlots(pf, p)
 }

@@ -318,14 +318,22 @@ func addFraction(fs *pflag.FlagSet, list bool, help string) *fractionFlag {
 	return f
 }
 
-// ratesFlag is --rate: one or more positive cooling rates; a bare number
-// takes the unit of the last.
+// ratesFlag is --rate: one or more positive cooling rates (heating rates
+// with heating); a bare number takes the unit of the last.
 type ratesFlag struct {
 	given
-	q []float64 // K/s
+	heating bool
+	q       []float64 // K/s
 }
 
 func (f *ratesFlag) Set(s string) error {
+	kind, what := units.CoolingRate, "a cooling rate, K/s"
+	if f.heating {
+		kind, what = units.HeatingRate, "a heating rate, K/s"
+	}
+	if strings.TrimSpace(s) == "" {
+		return bad("give one or more rates, comma-separated, e.g. 2,5,10,20K/min")
+	}
 	parts := strings.Split(s, ",")
 	_, unit := splitUnit(strings.TrimSpace(parts[len(parts)-1]))
 	var out []float64
@@ -334,12 +342,12 @@ func (f *ratesFlag) Set(s string) error {
 		if n, u := splitUnit(t); u == "" && n != "" {
 			t += unit
 		}
-		q, err := units.Parse(t, units.CoolingRate)
+		q, err := units.Parse(t, kind)
 		if err != nil {
 			return &valueError{err}
 		}
 		if !(q > 0) {
-			return bad("%q must be positive (a cooling rate, K/s)", strings.TrimSpace(p))
+			return bad("%q must be positive (%s)", strings.TrimSpace(p), what)
 		}
 		out = append(out, q)
 	}

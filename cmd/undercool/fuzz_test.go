@@ -29,7 +29,7 @@ import (
 
 // fuzzCommands are the commands the first byte picks from; "help" and an
 // unknown name exercise the dispatcher.
-var fuzzCommands = []string{"rate", "ttt", "hold", "cool", "fit", "materials", "report", "help", "frobnicate"}
+var fuzzCommands = []string{"rate", "ttt", "hold", "cool", "heat", "fit", "materials", "report", "help", "frobnicate"}
 
 // fuzzFitKinds are the fit models, with one that does not exist.
 var fuzzFitKinds = []string{"arrhenius", "interface", "avrami", "induction", "wiggle"}

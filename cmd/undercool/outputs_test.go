@@ -52,6 +52,11 @@ var outputCases = []struct {
 	{"cool_curve", []string{"cool", "--curve", "$WORK/hold.csv", "--c-curve", "k1=-0.00501,k2=1e-10s,k3=4000,k4=760K,k5=130kJ/mol", "--format", "json"}, []check{{"stdout", false, `"quench_factor": 2\.00000`}, {"stdout", false, `"retained_property_fraction": 0\.99003`}, {"stdout", false, `"share_percent": 100`}, {"stdout", false, `"k4_k": 760`}}},
 	{"cool_curve", []string{"cool", "--curve", "$REPO/testdata/curves/demo-plate-quench.csv", "--c-curve", "k1=-0.00501,k2=5e-16s,k3=4000,k4=760K,k5=130kJ/mol", "--band", "50K"}, []check{{"stdout", false, `quench factor Q = integral of dt/C\(T\) against the C-curve: 7\.5`}, {"stdout", false, `^verdict: retains 0\.96`}, {"stdout", false, `retained property fraction exp\(k1 Q\) = 0\.96`}, {"stdout", false, `550–500`}}},
 
+	// The memo's heating: the critical heating rate beside the critical cooling
+	// rate, the fraction at a rate, the DSC peaks and what their energy is.
+	{"cool_linear", []string{"report", "--material", "lithium-disilicate", "--heat-rate", "10K/min", "--dsc", "2,10K/min", "--out", "-", "--date", "2026-12-02"}, []check{{"stdout", false, `^## Heating$`}, {"stdout", false, `^- critical heating rate to stay below X = 1e-06 at 1307\.00 K: 152 K/s`}, {"stdout", false, `^- heating/cooling ratio: `}, {"stdout", false, `^- fraction at 1307\.00 K after heating at 0\.167 K/s: `}, {"stdout", false, `^\|  *10 \|  *0\.1667 \|  *912\.88 \|  *962\.58 \|`}, {"stdout", false, `it is not the activation energy of diffusion`}, {"stdout", false, `Hot glass, furnaces`}, {"stdout", false, `--dsc 2,10K/min`}}},
+	{"cool_linear", []string{"heat", "--material", "lithium-disilicate", "--from", "Tg", "--rate", "10K/min", "--cooled-at", "1K/s"}, []check{{"stdout", false, `^quenched in by cooling at 1\.00 K/s: 3\.368e\+10 nuclei per m3, mean radius `}, {"stdout", false, `^path: linear heating from 727\.00 K to 1307\.00 K, with the nuclei left by cooling from Te`}}},
+
 	// The critical cooling rate and the nose estimate beside it.
 	{"cool_linear", []string{"cool", "--material", "demo-alloy", "--critical"}, []check{{"stdout", false, `critical cooling rate to stay below X = 1e-06`}, {"stdout", false, `nose estimate \(Te - T_nose\)/t_nose: .* it overstates the rate`}, {"stdout", false, `rate \(K/s\)`}, {"stdout", true, `NaN|Inf`}}},
 	{"cool_linear", []string{"cool", "--material", "demo-alloy", "--critical", "--format", "json"}, []check{{"stdout", false, `"critical_cooling_rate_k_per_s": [0-9.e+-]+,`}, {"stdout", false, `"nose_estimate_k_per_s": [0-9.e+-]+,`}, {"stdout", false, `"end_reason": "rest negligible"`}, {"stdout", true, `NaN|Inf`}}},
@@ -115,6 +120,29 @@ var outputCases = []struct {
 	// 28.2 s of Callister's austenite-to-pearlite problem, n = 2.453, k = 4.46e-4.
 	{"fit_avrami", []string{"fit", "avrami", "$WORK/two.csv"}, []check{{"stdout", false, `^n = 2\.453 \(two points: exact, no interval\)`}, {"stdout", false, `^k = 0\.000446`}, {"stdout", false, `^t\(X = 0\.95\) = 36\.3. s \(two points: exact, no interval\)`}}},
 	{"fit_avrami", []string{"fit", "avrami", "$WORK/two.csv", "--format", "json"}, []check{{"stdout", false, `"avrami_exponent_ci95": null`}, {"stdout", false, `"half_time_ci95_s": null`}, {"stdout", true, `NaN|Inf`}}},
+
+	// fit kissinger and fit ozawa. Two peaks (5 K/min at 500 K, 20 K/min at
+	// 515 K) by hand: Kissinger E = R ln[(20/515^2)/(5/500^2)]/(1/500 - 1/515)
+	// = 189430.07 J/mol and A = (E/R) exp(ln(beta1/T1^2) + E/(R T1)), beta in
+	// K/s, = 4.6744e17 /s; Ozawa E = R ln 4/(1/500 - 1/515)/(0.4567 ln 10)
+	// = 188160.7 J/mol.
+	{"fit_peaks", []string{"fit", "kissinger", "$WORK/two.csv"}, []check{{"stdout", false, `^apparent E = 189\.4 kJ/mol \(189430 J/mol, 1\.963 eV\) \(two points: exact, no interval\)$`}, {"stdout", false, `^pre-exponential A = 4\.674e\+17 1/s \(two points: exact, no interval\); ln A = 40\.686$`}, {"stdout", false, `^E/\(R Tp\) = 44\.24 to 45\.57 over the peaks$`}, {"stdout", false, `^points: 2 \(exact fit`}}},
+	{"fit_peaks", []string{"fit", "kissinger", "$WORK/two.csv", "--format", "json"}, []check{{"stdout", false, `"activation_energy_j_per_mol": 189430\.07`}, {"stdout", false, `"activation_energy_ci95_j_per_mol": null`}, {"stdout", false, `"pre_exponential_per_s": 46744490`}, {"stdout", false, `"pre_exponential_ci95_per_s": null`}, {"stdout", false, `"method": "kissinger"`}, {"stdout", true, `doyle|NaN|Inf`}}},
+	{"fit_peaks", []string{"fit", "ozawa", "$WORK/two.csv"}, []check{{"stdout", false, `^apparent E = 188\.2 kJ/mol \(188161 J/mol`}, {"stdout", true, `pre-exponential|warning`}}},
+	{"fit_peaks", []string{"fit", "ozawa", "$WORK/two.csv", "--format", "json"}, []check{{"stdout", false, `"activation_energy_j_per_mol": 188160\.(69|70)`}, {"stdout", false, `"doyle_slope": 1\.0515`}, {"stdout", false, `"method": "ozawa-flynn-wall"`}, {"stdout", true, `pre_exponential|NaN|Inf`}}},
+	// 5 K/min at 500 K, 20 K/min at 600 K: Ozawa E = R ln 4/(1/500 - 1/600)/1.0516
+	// = 32882 J/mol, E/(R Tp) = 6.59 at 600 K and 7.91 at 500 K.
+	{"fit_peaks", []string{"fit", "ozawa", "$WORK/low.csv"}, []check{{"stdout", false, `^warning: E/\(R Tp\) runs from 6\.59 to 7\.91, outside 20 to 60 where Doyle's approximation holds`}}},
+	{"fit_peaks", []string{"fit", "ozawa", "$WORK/low.csv", "--format", "json"}, []check{{"stdout", false, `"key": "outside_doyle_range"`}}},
+	{"fit_peaks", []string{"fit", "kissinger", "$WORK/celsius.csv"}, []check{{"stdout", false, `^warning: every temperature is below 250 K; if they are degrees Celsius, name the column peak_temperature_c$`}}},
+	// Ozawa's exponent from two scans at 500 K (the column in Celsius): by
+	// hand m = -[ln(-ln 0.9) - ln(-ln 0.4)]/ln 4 = 1.56024.
+	{"fit_peaks", []string{"fit", "ozawa", "$WORK/fractions-two.csv"}, []check{{"stdout", false, `^at 500 K: m = 1\.56 \(two points: exact, no interval\) \(2 points, exact\)$`}}},
+	{"fit_peaks", []string{"fit", "ozawa", "$WORK/fractions-two.csv", "--format", "json"}, []check{{"stdout", false, `"avrami_exponent": 1\.56023`}, {"stdout", false, `"avrami_exponent_ci95": null`}, {"stdout", false, `"not_fitted": \[\]`}}},
+	// The invented demo glass of the README.
+	{"fit_peaks", []string{"fit", "kissinger", "$REPO/testdata/fit/glass-peaks.csv"}, []check{{"stdout", false, `data: .*glass-peaks.csv, 5 points; columns heating_rate_k_per_min, peak_temperature_c`}, {"stdout", false, `^E is apparent: .*it is not the activation energy of diffusion or of viscous flow`}, {"stdout", false, `^estimates only: a fitted law describes`}, {"stdout", true, `gamma cubed|warning|NaN|Inf`}}},
+	{"fit_peaks", []string{"fit", "kissinger", "$REPO/testdata/fit/glass-peaks.csv", "--format", "csv"}, []check{{"stdout", false, `^line,heating_rate_k_per_min,heating_rate_k_per_s,peak_temperature_k,peak_temperature_c,inverse_temperature_per_k,ordinate,fitted_ordinate,residual$`}, {"stdout", false, `^5,2,0\.033333333,500\.15,227,`}}},
+	{"fit_peaks", []string{"fit", "ozawa", "$REPO/testdata/fit/glass-fractions.csv"}, []check{{"stdout", false, `^at 505 K: m = 3\.102, SE`}, {"stdout", false, `^at 515 K: m = 2\.771`}, {"stdout", false, `│ 16 +│ 515\.00 │ +1 │ 1\.0000 │ .*│ left out │`}}},
 
 	// fit interface on the invented nucleation rates of the invented demo alloy.
 	{"fit_interface", []string{"fit", "interface", "$REPO/testdata/fit/nucleation-rates.csv", "--material", "demo-alloy"}, []check{{"stdout", false, `material: demo-alloy`}, {"stdout", false, `data: .*nucleation-rates.csv, 8 points; columns temperature_k, rate_per_m3_s`}, {"stdout", false, `^gamma = 0\.14266 J/m2 \(142\.66 mJ/m2\), SE 0\.27665 mJ/m2, 95 % \[141\.99, 143\.34\] mJ/m2`}, {"stdout", false, `^prefactor scale A = 19\.86`}, {"stdout", false, `classical plot \(ln J - ln D against 1/\(T dg_v\^2\)\): slope -3\.5289e\+21 K J2/m6, gamma = 0\.1427 J/m2`}, {"stdout", true, `NaN|Inf`}}},

@@ -171,12 +171,40 @@ type plainTicks struct{}
 
 func (plainTicks) Ticks(lo, hi float64) []plot.Tick {
 	ticks := plot.DefaultTicks{}.Ticks(lo, hi)
+	plainLabels(ticks)
+	return ticks
+}
+
+// plainLabels writes the labels of the labelled ticks with the fewest
+// decimals that give every one of them exactly (to 1e-9 of the axis's
+// span): "1.9", "1.95", "2" become "1.90", "1.95", "2.00", and rounding
+// noise such as 1.9000000000000001 never shows.
+func plainLabels(ticks []plot.Tick) {
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, t := range ticks {
+		lo, hi = math.Min(lo, t.Value), math.Max(hi, t.Value)
+	}
+	exact := func(d int) bool {
+		for _, t := range ticks {
+			if t.Label == "" {
+				continue
+			}
+			r, _ := strconv.ParseFloat(strconv.FormatFloat(t.Value, 'f', d, 64), 64)
+			if math.Abs(r-t.Value) > 1e-9*math.Max(hi-lo, math.Abs(t.Value)) {
+				return false
+			}
+		}
+		return true
+	}
+	d := 0
+	for d < 10 && !exact(d) {
+		d++
+	}
 	for i := range ticks {
 		if ticks[i].Label != "" {
-			ticks[i].Label = strconv.FormatFloat(ticks[i].Value, 'f', -1, 64)
+			ticks[i].Label = strconv.FormatFloat(ticks[i].Value, 'f', d, 64)
 		}
 	}
-	return ticks
 }
 
 // finitePositive reports whether x can sit on a log axis.

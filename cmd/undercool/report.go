@@ -10,14 +10,15 @@ import (
 	"github.com/spf13/pflag"
 
 	"undercool/cmd/undercool/internal/outfile"
+	"undercool/kinetics"
 	"undercool/kinetics/population"
 	"undercool/presets/answer"
 )
 
 func init() {
 	commands["report"] = &command{
-		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve), the onset in a sample (--volume) and the particles in size classes along a thermal schedule (--schedule: the evolve time table, distribution and figure), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
-		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--schedule 'STEP; STEP ...'|@FILE] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
+		summary: "A Markdown memo for a material and a question: the material with every value and its source, the model choices, the TTT nose, the critical cooling rate, a hold time (--at), a measured cooling curve (--curve), heating a glass (--heat-rate, --dsc: the critical heating rate beside the critical cooling rate, the DSC peaks), the onset in a sample (--volume) and the particles in size classes along a thermal schedule (--schedule: the evolve time table, distribution and figure), with uncertainty bands, the sensitivity ranking, the TTT (and CCT) plot beside it as SVG, the validity flags and the cautions. Written whole or not at all.",
+		usage:   "undercool report --out FILE.md|- [--material NAME|FILE.toml] [value flags] [--fraction X] [--at T] [--curve FILE.csv] [--volume V] [--heat-rate Q] [--dsc Q,Q,...] [--heat-from T|Tg] [--schedule 'STEP; STEP ...'|@FILE] [--spread NAME=VALUE ...] [--samples N] [--seed S] [--plot FILE.svg] [--date YYYY-MM-DD]",
 		example: "undercool report --material demo-alloy --at 900K --spread gamma=2% --spread d0=x2 --out memo.md",
 		setup:   setupReport,
 	}
@@ -56,6 +57,12 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 	fs.Var(pf, "plot", "the TTT (and CCT) plot, FILE.svg (default: beside the memo, FILE-ttt.svg; none for --out - unless given)")
 	date := &dateFlag{}
 	fs.Var(date, "date", "the memo's date, YYYY-MM-DD (default: today, UTC)")
+	heatFrom := &startFlag{}
+	fs.Var(heatFrom, "heat-from", "heating in the memo starts here, K, C or F, or Tg (default: Tg); with --heat-rate or --dsc")
+	heatRate := &ratesFlag{heating: true}
+	fs.Var(heatRate, "heat-rate", "also answer for linear heating from --heat-from to Te at this rate, K/s or K/min (> 0), with the critical heating rate beside the critical cooling rate")
+	dsc := &ratesFlag{heating: true}
+	fs.Var(dsc, "dsc", "also give the forward DSC peaks at these heating rates, e.g. 2,5,10,20K/min, with the critical heating rate beside the critical cooling rate")
 	sched := &scheduleFlag{}
 	fs.Var(sched, "schedule", "also follow the particles in size classes along this "+scheduleHelp+"; the figure goes beside the memo as FILE-evolve.svg")
 	setGroup(fs, groupOutput, "out", "plot", "date")
@@ -115,6 +122,9 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		if !in.Model.HasTe() {
 			return noTe("report", "no temperature range for the memo's TTT table")
 		}
+		if in.Heat, err = memoHeat(in.Model, heatFrom, heatRate, dsc); err != nil {
+			return err
+		}
 		if in.Sampling, err = sf.sampling(e, in.Card); err != nil {
 			return err
 		}
@@ -170,6 +180,30 @@ func setupReport(fs *pflag.FlagSet, e *env) func([]string) error {
 		}
 		return e.files.write(out.path, func(w io.Writer) error { _, err := w.Write(b.Bytes()); return err })
 	}
+}
+
+// memoHeat is what the memo asks of heating (nil: nothing): from
+// --heat-from (default Tg), at --heat-rate, with the DSC peaks of --dsc.
+func memoHeat(md *kinetics.Model, from *startFlag, rate, dsc *ratesFlag) (*answer.MemoHeat, error) {
+	switch {
+	case !rate.set && !dsc.set:
+		if from.set {
+			return nil, usagef("--heat-from: says where the memo's heating starts; give --heat-rate or --dsc with it")
+		}
+		return nil, nil
+	case rate.set && len(rate.q) > 1:
+		return nil, usagef("--heat-rate: give one heating rate (for several, --dsc)")
+	}
+	hf := heatFlags{from: from}
+	T, err := hf.start(md, "heat-from")
+	if err != nil {
+		return nil, err
+	}
+	h := &answer.MemoHeat{From: T, DSC: dsc.q}
+	if rate.set {
+		h.Rate = rate.q[0]
+	}
+	return h, nil
 }
 
 // memoPlot is where the memo's SVG goes: --plot, or beside the memo

@@ -37,47 +37,63 @@ func Avrami(t, X, w []float64) (*AvramiFit, error) {
 	if len(t) != len(X) || (w != nil && len(w) != len(t)) {
 		panic("fit: Avrami: slices differ in length")
 	}
-	f := &AvramiFit{}
-	var x, y, ww []float64
-	for i := range t {
-		if !(X[i] > 0 && X[i] < 1) {
-			f.Skipped = append(f.Skipped, i)
-			continue
-		}
-		if !(t[i] > 0) || math.IsInf(t[i], 1) {
-			return nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("time must be positive and finite to take its logarithm, got %g s", t[i])}
-		}
-		f.Used = append(f.Used, i)
-		x = append(x, math.Log(t[i]))
-		y = append(y, math.Log(-math.Log1p(-X[i])))
-		if w != nil {
-			ww = append(ww, w[i])
-		}
-	}
-	if len(x) < 2 {
-		return nil, fmt.Errorf("an Avrami fit needs at least 2 points with 0 < fraction < 1, got %d", len(x))
-	}
-	l, err := Line(x, y, ww)
+	l, used, skipped, err := fractionLine(t, X, w, fractionAxis{"an Avrami fit", "time", "s"})
 	if err != nil {
-		if pe, ok := err.(*kinetics.PointError); ok {
-			pe.Index = f.Used[pe.Index]
-			return nil, pe
-		}
-		if err == ErrSameX {
-			return nil, fmt.Errorf("all points with 0 < fraction < 1 have the same time: no exponent can be fitted")
-		}
 		return nil, err
 	}
 	if !(l.Slope > 0) {
 		return nil, fmt.Errorf("the fraction does not grow with time (fitted exponent %.3g): no Avrami law fits", l.Slope)
 	}
-	f.Line = l
+	f := &AvramiFit{Line: l, Used: used, Skipped: skipped}
 	f.N, f.NSE, f.NCI = l.Slope, l.SlopeSE, l.SlopeCI()
 	f.LnK, f.LnKSE = l.Intercept, l.InterceptSE
 	f.K = math.Exp(f.LnK)
 	ici := l.InterceptCI()
 	f.KCI = [2]float64{math.Exp(ici[0]), math.Exp(ici[1])}
 	return f, nil
+}
+
+// fractionAxis names the abscissa of a linearized fraction fit in its
+// messages: the fit, the quantity and its unit.
+type fractionAxis struct{ fit, quantity, unit string }
+
+// fractionLine fits the straight line ln(−ln(1−X)) = a + b·ln v of the
+// Avrami and Ozawa plots. Points with X ≤ 0 or X ≥ 1 carry no information
+// on it and are left out (skipped); the others are used. It returns a
+// *kinetics.PointError for a used v that is not positive and finite, an
+// error when fewer than two points are left or they all share one v.
+func fractionLine(v, X, w []float64, ax fractionAxis) (l *LineFit, used, skipped []int, err error) {
+	var x, y, ww []float64
+	for i := range v {
+		if !(X[i] > 0 && X[i] < 1) {
+			skipped = append(skipped, i)
+			continue
+		}
+		if !(v[i] > 0) || math.IsInf(v[i], 1) {
+			return nil, nil, nil, &kinetics.PointError{Index: i, Msg: fmt.Sprintf("%s must be positive and finite to take its logarithm, got %g %s", ax.quantity, v[i], ax.unit)}
+		}
+		used = append(used, i)
+		x = append(x, math.Log(v[i]))
+		y = append(y, math.Log(-math.Log1p(-X[i])))
+		if w != nil {
+			ww = append(ww, w[i])
+		}
+	}
+	if len(x) < 2 {
+		return nil, nil, nil, fmt.Errorf("%s needs at least 2 points with 0 < fraction < 1, got %d", ax.fit, len(x))
+	}
+	l, err = Line(x, y, ww)
+	if err != nil {
+		if pe, ok := err.(*kinetics.PointError); ok {
+			pe.Index = used[pe.Index]
+			return nil, nil, nil, pe
+		}
+		if err == ErrSameX {
+			return nil, nil, nil, fmt.Errorf("all points with 0 < fraction < 1 have the same %s: no exponent can be fitted", ax.quantity)
+		}
+		return nil, nil, nil, err
+	}
+	return l, used, skipped, nil
 }
 
 // TimeTo is the time (s) at which the fitted law reaches fraction X, 0 < X < 1:

@@ -161,7 +161,7 @@ func Curves(in CurveInput) (*Curve, error) {
 		a.about = append(a.about, transformLine)
 	}
 	if d.InKelvin("temperature") {
-		a.Warnings = append(a.Warnings, coldWarning(p.Temp)...)
+		a.Warnings = append(a.Warnings, coldWarning(p.Temp, "temperature")...)
 	}
 	if es := in.CCurve; es != nil {
 		q, err := kinetics.QuenchProperty(p, *es, in.Band)

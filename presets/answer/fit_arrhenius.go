@@ -145,7 +145,7 @@ func Arrhenius(data FitData, names Names) (*FitArrhenius, error) {
 		Q:      Num(res.Q), QSE: Num(res.QSE), QCI: res.QCI, QkJ: Num(res.Q / 1e3), QeV: Num(eV),
 		A: Num(res.A), AUnit: q.unit, ACI: res.ACI, LnA: Num(res.LnA), LnASE: Num(res.LnASE),
 		Scatter:  scatterOf(l.R2, l.ResidualSD, l.DoF, l.T),
-		Warnings: celsiusWarnings(T, res),
+		Warnings: celsiusWarnings(T, res, "temperature"),
 		Fit:      res, T: T, Y: y, q: *q, Data: data, names: names,
 	}
 	a.Rows = []ArrheniusRow{}
@@ -156,27 +156,28 @@ func Arrhenius(data FitData, names Names) (*FitArrhenius, error) {
 }
 
 // celsiusWarnings applies two rules of thumb for a temperature column in
-// the wrong scale (common practice): every temperature below coldLimit
-// (coldWarning), or a fit that is much straighter with every temperature
-// shifted by ±273.15 K.
-func celsiusWarnings(T []float64, f *fit.ArrheniusFit) []Warning {
-	out := coldWarning(T)
+// the wrong scale (common practice), named by its quantity: every
+// temperature below coldLimit (coldWarning), or a fit that is much
+// straighter with every temperature shifted by ±273.15 K.
+func celsiusWarnings(T []float64, f *fit.ArrheniusFit, quantity string) []Warning {
+	out := coldWarning(T, quantity)
 	if f.Straighter(units.CelsiusOffset) {
-		out = append(out, Warning{"straighter_if_celsius", fmt.Sprintf("the temperatures look like degrees Celsius read as kelvin: the points lie on a much straighter line %g K higher; name the column temperature_c if so", units.CelsiusOffset)})
+		out = append(out, Warning{"straighter_if_celsius", fmt.Sprintf("the temperatures look like degrees Celsius read as kelvin: the points lie on a much straighter line %g K higher; name the column %s_c if so", units.CelsiusOffset, quantity)})
 	}
 	if f.Straighter(-units.CelsiusOffset) {
-		out = append(out, Warning{"straighter_if_kelvin", fmt.Sprintf("the temperatures look like kelvin read as degrees Celsius: the points lie on a much straighter line %g K lower; name the column temperature_k if so", units.CelsiusOffset)})
+		out = append(out, Warning{"straighter_if_kelvin", fmt.Sprintf("the temperatures look like kelvin read as degrees Celsius: the points lie on a much straighter line %g K lower; name the column %s_k if so", units.CelsiusOffset, quantity)})
 	}
 	return out
 }
 
 // coldWarning is the first rule of celsiusWarnings, for any column of
-// temperatures read as kelvin: every one below coldLimit suggests degrees
-// Celsius written as kelvin. Empty (not nil: JSON []) otherwise.
-func coldWarning(T []float64) []Warning {
+// temperatures read as kelvin, named by its quantity: every one below
+// coldLimit suggests degrees Celsius written as kelvin. Empty (not nil:
+// JSON []) otherwise.
+func coldWarning(T []float64, quantity string) []Warning {
 	if floats.Max(T) < coldLimit {
 		return []Warning{{"all_below_250_k", fmt.Sprintf(
-			"every temperature is below %g K; if they are degrees Celsius, name the column temperature_c", coldLimit)}}
+			"every temperature is below %g K; if they are degrees Celsius, name the column %s_c", coldLimit, quantity)}}
 	}
 	return []Warning{}
 }

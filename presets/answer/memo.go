@@ -31,6 +31,9 @@ type MemoInput struct {
 	Command  string // the command line that makes the memo again
 	Plot     string // how the memo links its figure; "": none
 	Names    Names
+	// Heat, if set, adds heating: the critical heating rate beside the
+	// critical cooling rate, a rate, DSC peaks.
+	Heat *MemoHeat
 	// Evolve, if set, adds particles in size classes along a schedule
 	// (the evolve answer), run with Context (nil: context.Background),
 	// its figure linked as EvolvePlot ("": none).
@@ -52,6 +55,8 @@ type Memo struct {
 	Cool  *Critical // nil: not computed (site saturation, or an error: CoolErr)
 	Hold  *Hold     // nil: no hold asked
 	Curve *Curve    // nil: no curve
+	// Heats are the answers of heating; nil: none asked.
+	Heats *MemoHeats
 	// Evolve is the run along a schedule; nil: none asked.
 	Evolve *Evolve
 	// CoolErr says why linear cooling was not computed.
@@ -109,6 +114,12 @@ func Memos(in MemoInput) (*Memo, error) {
 		m.flags |= m.Curve.flags
 	}
 	m.u = merge(us)
+	if in.Heat != nil {
+		if m.Heats, err = m.heats(*in.Heat); err != nil {
+			return nil, err
+		}
+		m.flags |= m.Heats.Critical.heating.Flags
+	}
 	if in.Evolve != nil {
 		ctx := in.Context
 		if ctx == nil {
@@ -261,6 +272,7 @@ func (m *Memo) Blocks() []Block {
 		qs = append(qs, fmt.Sprintf("What did the measured cooling curve %s (%d points, %s) do: the fraction at its end and the additivity sum?",
 			in.Data.File, len(p.Time), CurveSpan(*p)))
 	}
+	qs = append(qs, m.heatQuestions()...)
 	if ev := in.Evolve; ev != nil {
 		qs = append(qs, fmt.Sprintf("How do the particles nucleate, grow and coarsen along the schedule %s: their number, size and volume fraction against time, and their final size distribution?", ev.Schedule.String()))
 	}
@@ -312,6 +324,7 @@ func (m *Memo) Blocks() []Block {
 	}
 	bs = append(bs, List(choices...), Heading(2, "Results"))
 	bs = append(bs, m.resultBlocks()...)
+	bs = append(bs, m.heatBlocks()...)
 	bs = append(bs, Heading(2, "Uncertainty and what to measure next"))
 	bs = append(bs, m.uncertaintyBlocks()...)
 	if in.Plot != "" {
@@ -345,6 +358,9 @@ func (m *Memo) Blocks() []Block {
 	bs = append(bs, Heading(2, "Cautions"),
 		Para("These results are estimates from classical nucleation theory with the inputs above. Rates depend on the cube of the interfacial energy inside an exponential, and a 10 % error in it moves a rate by orders of magnitude; the uncertainty bands cover only the spreads stated, not the choice of model."),
 		Para("Heat treatment and quenching (hot metal, quench-oil fires, steam) and pharmaceutical or food process decisions must follow local codes, validated procedures and licensed practice. Do not use this memo as the sole basis for such a decision."))
+	if m.Heats != nil {
+		bs = append(bs, Para("Hot glass, furnaces and molten material can burn and injure people: reheating and heat treatment follow the site's procedures. Amorphous drugs and their processing carry risk to patients: the estimates above do not replace validated stability and process studies."))
+	}
 	if strings.EqualFold(c.Kind, "demo") {
 		bs = append(bs, Para("The material of this memo is invented for demonstration; its numbers describe no real material."))
 	}

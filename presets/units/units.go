@@ -125,11 +125,9 @@ var (
 	Fraction = k("fraction", "", true, map[string]unit{
 		"%": {0.01, 0}, "percent": {0.01, 0}, "pct": {0.01, 0},
 	})
-	CoolingRate = k("cooling rate", "K/s", false, map[string]unit{
-		"K/s": {1, 0}, "C/s": {1, 0}, "°C/s": {1, 0}, "K/min": {1.0 / 60, 0}, "C/min": {1.0 / 60, 0}, "°C/min": {1.0 / 60, 0},
-		"K/h": {1.0 / 3600, 0}, "C/h": {1.0 / 3600, 0}, "°C/h": {1.0 / 3600, 0},
-	})
-	Volume = k("volume", "m3", false, map[string]unit{
+	CoolingRate = k("cooling rate", "K/s", false, temperatureRates)
+	HeatingRate = k("heating rate", "K/s", false, temperatureRates)
+	Volume      = k("volume", "m3", false, map[string]unit{
 		"m3": {1, 0}, "L": {1e-3, 0}, "mL": {1e-6, 0}, "cm3": {1e-6, 0}, "uL": {1e-9, 0}, "mm3": {1e-9, 0}, "nL": {1e-12, 0}, "pL": {1e-15, 0}, "um3": {1e-18, 0},
 	})
 	Time = k("time", "s", true, map[string]unit{
@@ -160,6 +158,12 @@ var (
 		"um/min": {1e-6 / 60, 0}, "um/h": {1e-6 / 3600, 0}, "mm/h": {1e-3 / 3600, 0}, "mm/min": {1e-3 / 60, 0},
 	})
 )
+
+// temperatureRates are the units of a cooling or a heating rate.
+var temperatureRates = map[string]unit{
+	"K/s": {1, 0}, "C/s": {1, 0}, "°C/s": {1, 0}, "K/min": {1.0 / 60, 0}, "C/min": {1.0 / 60, 0}, "°C/min": {1.0 / 60, 0},
+	"K/h": {1.0 / 3600, 0}, "C/h": {1.0 / 3600, 0}, "°C/h": {1.0 / 3600, 0},
+}
 
 // Units lists the accepted spellings of a kind, sorted, for messages.
 func (k Kind) Units() []string {
