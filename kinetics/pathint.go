@@ -332,11 +332,16 @@ func (r *pathRun) deepen(lambda float64) *pathRun {
 }
 
 // lambdaNeeded is the floor depth at which the non-zero sums of state a lie
-// lambdaMargin above the floor (0 if none is non-zero).
+// lambdaMargin above the floor (0 if none is non-zero). A sum already past
+// the largest float64 in SI needs no depth: what a deeper floor adds to it
+// only adds to an overflow (a mobility law far outside its range gets
+// there, and a deep run of it costs seconds).
 func (r *pathRun) lambdaNeeded(a accum) float64 {
 	need := 0.0
-	for _, v := range []float64{a.m[0], a.m[3], a.L, a.r} {
-		if v > 0 {
+	lnL := r.lnUS + math.Log(r.tS)
+	for i, v := range []float64{a.m[0], a.m[3], a.L, a.r} {
+		off := [4]float64{r.offset(sumN), r.offset(sumXext), lnL, r.offset(sumR)}[i]
+		if v > 0 && off+math.Log(v) <= maxLn {
 			need = math.Max(need, lambdaMargin-math.Log(v))
 		}
 	}

@@ -173,3 +173,19 @@ func TestCrossingReference(t *testing.T) {
 		t.Logf("ln Xext = total − %g at %.6f s (%.4f K, before point %d): reference %+.2g", below, tc, Tc, k, lnX-level)
 	}
 }
+
+// TestOverflowNeedsNoDepth: a sum already past the largest float64 in SI
+// asks for no deeper floor (deepening only adds to it); a representable
+// sum asks for lambdaMargin e-folds below its normalized value.
+func TestOverflowNeedsNoDepth(t *testing.T) {
+	small := accum{r: math.Exp(-437)}
+	r := &pathRun{tS: 1}
+	r.offsets[sumR] = 1200 // SI: 1200 − 437 = 763 > maxLn
+	if got := r.lambdaNeeded(small); got != 0 {
+		t.Errorf("overflowing sum: needs depth %g, want 0", got)
+	}
+	r.offsets[sumR] = 1000 // SI: 563, representable
+	if got, want := r.lambdaNeeded(small), lambdaMargin+437; math.Abs(got-want) > 1e-9 {
+		t.Errorf("representable sum: needs depth %g, want %g", got, want)
+	}
+}

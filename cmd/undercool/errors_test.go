@@ -279,6 +279,7 @@ var errorCases = []struct {
 	// path integral, which carries its sums scaled, now gives finite answers
 	// where the earlier one overflowed to NaN.)
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, `^undercool: cool: the quench factor overflows`, 1},
+	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--curve", "$REPO/testdata/curves/demo-plate-quench.csv"}, `^undercool: cool: the quench factor overflows`, 1},
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--rate", "1K/s", "--format", "json"}, `^undercool: cool: the critical cooling rate came out \+Inf: the computation left the range of floating-point numbers`, 1},
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--critical"}, `^undercool: cool: the critical cooling rate came out \+Inf`, 1},
 	{"report", []string{"report", "--material", "sucrose", "--wlf-c1", "1000", "--out", "memo.md"}, `^undercool: report: the critical cooling rate came out \+Inf`, 1},

@@ -186,10 +186,14 @@ var goldenCases = []struct {
 }
 
 // TestGolden runs every pinned case in-process and compares its standard
-// output with the golden file byte for byte.
+// output with the golden file byte for byte. The cases run in parallel, with
+// the scripts, once the tests that change the environment or the working
+// folder are done.
 func TestGolden(t *testing.T) {
+	t.Parallel()
 	for _, c := range goldenCases {
 		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
 			var stdout, stderr bytes.Buffer
 			if code := run(c.args, nil, &stdout, &stderr); code != 0 {
 				t.Fatalf("exit %d: %s", code, stderr.String())

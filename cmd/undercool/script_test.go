@@ -19,6 +19,7 @@ func TestMain(m *testing.M) {
 // TestScripts runs the end-to-end scripts in testdata/script: every command,
 // every format and every bad input, through the real binary entry point.
 func TestScripts(t *testing.T) {
+	t.Parallel()
 	testscript.Run(t, testscript.Params{
 		Dir:           "../../testdata/script",
 		UpdateScripts: *update,
