@@ -55,6 +55,9 @@ var outputCases = []struct {
 	// The memo's heating: the critical heating rate beside the critical cooling
 	// rate, the fraction at a rate, the DSC peaks and what their energy is.
 	{"cool_linear", []string{"report", "--material", "lithium-disilicate", "--heat-rate", "10K/min", "--dsc", "2,10K/min", "--out", "-", "--date", "2026-12-02"}, []check{{"stdout", false, `^## Heating$`}, {"stdout", false, `^- critical heating rate to stay below X = 1e-06 at 1307\.00 K: 152 K/s`}, {"stdout", false, `^- heating/cooling ratio: `}, {"stdout", false, `^- fraction at 1307\.00 K after heating at 0\.167 K/s: `}, {"stdout", false, `^\|  *10 \|  *0\.1667 \|  *912\.88 \|  *962\.58 \|`}, {"stdout", false, `it is not the activation energy of diffusion`}, {"stdout", false, `Hot glass, furnaces`}, {"stdout", false, `--dsc 2,10K/min`}}},
+	// a glass cooled slower than its critical cooling rate: no heating rate is fast enough, an answer, not a failure
+	{"cool_linear", []string{"heat", "--material", "demo-alloy", "--from", "300K", "--rate", "10K/min", "--cooled-at", "1e-3K/s"}, []check{{"stdout", false, `^critical heating rate: none; the quenched-in nuclei already fill X = 1e-06 \(the cooling that made`}}},
+	{"cool_linear", []string{"heat", "--material", "demo-alloy", "--from", "300K", "--critical", "--cooled-at", "1e-3K/s", "--format", "json"}, []check{{"stdout", false, `"critical_heating_rate_k_per_s": null,`}, {"stdout", false, `"critical_cooling_rate_k_per_s": 8\.18`}}},
 	{"cool_linear", []string{"heat", "--material", "lithium-disilicate", "--from", "Tg", "--rate", "10K/min", "--cooled-at", "1K/s"}, []check{{"stdout", false, `^quenched in by cooling at 1\.00 K/s: 3\.368e\+10 nuclei per m3, mean radius `}, {"stdout", false, `^path: linear heating from 727\.00 K to 1307\.00 K, with the nuclei left by cooling from Te`}}},
 
 	// The critical cooling rate and the nose estimate beside it.

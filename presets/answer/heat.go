@@ -106,7 +106,7 @@ type Heat struct {
 	Fraction Num        `json:"fraction" result:"fraction at the end of heating"`
 	Crystals Num        `json:"crystals_per_m3"`
 	Reached  *TimeAt    `json:"fraction_reached"` // null: not reached
-	Critical Num        `json:"critical_heating_rate_k_per_s" result:"critical heating rate"`
+	Critical Num        `json:"critical_heating_rate_k_per_s"` // +Inf: none, the quenched-in nuclei fill X (JSON null)
 	Flags    Strings    `json:"flags"`
 	Rows     []HeatRow  `json:"rows"`
 	heating
@@ -117,7 +117,7 @@ type Heat struct {
 type HeatCritical struct {
 	Inputs   HeatInputs    `json:"inputs"`
 	Quenched *Quenched     `json:"quenched_in,omitempty"`
-	Rate     Num           `json:"critical_heating_rate_k_per_s" result:"critical heating rate"` // 0: none needed
+	Rate     Num           `json:"critical_heating_rate_k_per_s"` // 0: none needed; +Inf: none, the quenched-in nuclei fill X (JSON null)
 	Cooling  Num           `json:"critical_cooling_rate_k_per_s"`
 	CoolEnd  Num           `json:"cooling_end_temperature_k"`
 	Ratio    Num           `json:"heating_to_cooling_ratio"`
@@ -200,12 +200,23 @@ func Heats(in HeatInput) (Answer, error) {
 	}
 	inputs.about = append(inputs.about, line, heatTransformLine)
 	switch {
-	case in.Critical:
-		return hb.critical(inputs, q, in)
 	case len(in.DSC) > 0:
 		return hb.dsc(inputs, q, in.DSC), nil
 	}
-	return hb.atRate(inputs, q, in.Rate), nil
+	// +Inf is an answer (no rate is fast enough), NaN a failed computation
+	qc := h.CriticalRate(in.X)
+	if math.IsNaN(qc) {
+		return nil, &UndefinedError{"critical heating rate", qc}
+	}
+	if in.Critical {
+		return hb.critical(inputs, q, qc)
+	}
+	return hb.atRate(inputs, q, in.Rate, qc), nil
+}
+
+// noneFastEnough says that no heating rate keeps the fraction below X.
+func noneFastEnough(X float64) string {
+	return fmt.Sprintf("critical heating rate: none; the quenched-in nuclei already fill X = %s (the cooling that made the glass was slower than its critical cooling rate)", FracLabel(X))
 }
 
 // heatTransformLine names the transformation model of heating.
@@ -227,10 +238,9 @@ func quenched(in HeatInput) (kinetics.Nuclei, *Quenched, error) {
 }
 
 // atRate is heating at one rate: the fraction along the path.
-func (hb heating) atRate(inputs HeatInputs, q *Quenched, rate float64) *Heat {
+func (hb heating) atRate(inputs HeatInputs, q *Quenched, rate, qc float64) *Heat {
 	h := hb.Path
 	end := h.At(h.To, rate)
-	qc := h.CriticalRate(hb.X)
 	a := &Heat{Inputs: inputs, Quenched: q, Rate: Num(rate), Fraction: Num(end.Fraction), Crystals: Num(math.Exp(end.LnNuclei)),
 		Critical: Num(qc), Flags: hb.Flags.Keys(), heating: hb}
 	line := fmt.Sprintf("fraction at %.2f K after heating at %s: %.4g, %.4g crystals per m3", h.To, RateText(rate), end.Fraction, math.Exp(end.LnNuclei))
@@ -241,6 +251,9 @@ func (hb heating) atRate(inputs HeatInputs, q *Quenched, rate float64) *Heat {
 		line += fmt.Sprintf("; X = %s not reached", FracLabel(hb.X))
 	}
 	a.summary = append(a.summary, line, fmt.Sprintf("critical heating rate to stay below X = %s: %s", FracLabel(hb.X), RateText(qc)))
+	if math.IsInf(qc, 1) {
+		a.summary[len(a.summary)-1] = noneFastEnough(hb.X)
+	}
 	for _, T := range Spread(h.From, h.To, heatRows) {
 		p := h.At(T, rate)
 		a.Rows = append(a.Rows, HeatRow{Num(T), Num(p.Time), Num(p.Fraction), Num(math.Exp(p.LnNuclei)), Num(math.Exp(p.LnRate))})
@@ -251,9 +264,8 @@ func (hb heating) atRate(inputs HeatInputs, q *Quenched, rate float64) *Heat {
 // critical is the critical heating rate, beside the critical cooling rate
 // of the same card (linear cooling from T_e to T_g, or where the rest is
 // negligible: cool --critical).
-func (hb heating) critical(inputs HeatInputs, q *Quenched, in HeatInput) (*HeatCritical, error) {
+func (hb heating) critical(inputs HeatInputs, q *Quenched, qh float64) (*HeatCritical, error) {
 	h := hb.Path
-	qh := h.CriticalRate(hb.X)
 	cl, err := hb.Model.LinearCooling(0)
 	if err != nil {
 		return nil, err
@@ -263,7 +275,7 @@ func (hb heating) critical(inputs HeatInputs, q *Quenched, in HeatInput) (*HeatC
 		Flags: hb.Flags.Keys(), Rows: []HeatRateRow{}, heating: hb}
 	switch {
 	case math.IsInf(qh, 1):
-		a.summary = append(a.summary, fmt.Sprintf("critical heating rate: none; the quenched-in nuclei already fill X = %s", FracLabel(hb.X)))
+		a.summary = append(a.summary, noneFastEnough(hb.X))
 	case qh > 0 && q != nil:
 		a.summary = append(a.summary, fmt.Sprintf("critical heating rate to stay below X = %s at %.2f K: %s (exact path integral; with the nuclei carried in, the root of a polynomial in 1/rate)", FracLabel(hb.X), h.To, RateText(qh)))
 	case qh > 0:
