@@ -105,7 +105,7 @@ type Heat struct {
 	Rate     Num        `json:"heating_rate_k_per_s"`
 	Fraction Num        `json:"fraction" result:"fraction at the end of heating"`
 	Crystals Num        `json:"crystals_per_m3"`
-	Reached  *TimeAt    `json:"fraction_reached"` // null: not reached
+	Reached  *TimeAt    `json:"fraction_reached"`              // null: not reached
 	Critical Num        `json:"critical_heating_rate_k_per_s"` // +Inf: none, the quenched-in nuclei fill X (JSON null)
 	Flags    Strings    `json:"flags"`
 	Rows     []HeatRow  `json:"rows"`
