@@ -192,15 +192,25 @@ func heatPlot(pf *plotFlag, c *presets.Card, a answer.Answer) error {
 	p.Y.Label.Text = "dX/dT (1/K)"
 	hi := math.Min(h.To, md.Te())
 	drawn := 0
+	// the span shown: where some curve is above a thousandth of its peak,
+	// and a tenth of that span on each side (the path beyond is flat)
+	lo, up := math.Inf(1), math.Inf(-1)
 	for i, q := range rates {
 		var pts plotter.XYs
+		top := 0.0
 		for _, T := range answer.Spread(h.From, hi, heatPlotPoints) {
 			if y := math.Exp(h.At(T, q).LnRate); finitePositive(y) || y == 0 {
 				pts = append(pts, plotter.XY{X: T, Y: y})
+				top = math.Max(top, y)
 			}
 		}
 		if len(pts) < 2 {
 			continue
+		}
+		for _, pt := range pts {
+			if pt.Y > 1e-3*top {
+				lo, up = math.Min(lo, pt.X), math.Max(up, pt.X)
+			}
 		}
 		if err := linePlot(p, pts, curveColor(i), 1.5, nil, fmt.Sprintf("%.4g K/min", 60*q)); err != nil {
 			return err
@@ -217,6 +227,10 @@ func heatPlot(pf *plotFlag, c *presets.Card, a answer.Answer) error {
 	}
 	if drawn == 0 {
 		return usagef("--plot: nothing to draw: nothing crystallizes on the path")
+	}
+	if up > lo {
+		pad := (up - lo) / 10
+		p.X.Min, p.X.Max = math.Max(h.From, lo-pad), math.Min(hi, up+pad)
 	}
 	p.Add(plotter.NewGrid())
 	p.Legend.Top = true
