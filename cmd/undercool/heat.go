@@ -192,26 +192,18 @@ func heatPlot(pf *plotFlag, c *presets.Card, a answer.Answer) error {
 	p.Y.Label.Text = "dX/dT (1/K)"
 	hi := math.Min(h.To, md.Te())
 	drawn := 0
-	// the span shown: where some curve is above a thousandth of its peak,
-	// and a tenth of that span on each side (the path beyond is flat)
-	lo, up := math.Inf(1), math.Inf(-1)
+	var curves []plotter.XYs
 	for i, q := range rates {
 		var pts plotter.XYs
-		top := 0.0
 		for _, T := range answer.Spread(h.From, hi, heatPlotPoints) {
 			if y := math.Exp(h.At(T, q).LnRate); finitePositive(y) || y == 0 {
 				pts = append(pts, plotter.XY{X: T, Y: y})
-				top = math.Max(top, y)
 			}
 		}
 		if len(pts) < 2 {
 			continue
 		}
-		for _, pt := range pts {
-			if pt.Y > 1e-3*top {
-				lo, up = math.Min(lo, pt.X), math.Max(up, pt.X)
-			}
-		}
+		curves = append(curves, pts)
 		if err := linePlot(p, pts, curveColor(i), 1.5, nil, fmt.Sprintf("%.4g K/min", 60*q)); err != nil {
 			return err
 		}
@@ -228,11 +220,33 @@ func heatPlot(pf *plotFlag, c *presets.Card, a answer.Answer) error {
 	if drawn == 0 {
 		return usagef("--plot: nothing to draw: nothing crystallizes on the path")
 	}
-	if up > lo {
-		pad := (up - lo) / 10
-		p.X.Min, p.X.Max = math.Max(h.From, lo-pad), math.Min(hi, up+pad)
+	if lo, up, ok := peakSpan(curves); ok {
+		p.X.Min, p.X.Max = math.Max(h.From, lo), math.Min(hi, up)
 	}
 	p.Add(plotter.NewGrid())
 	p.Legend.Top = true
 	return savePlots(pf, p)
+}
+
+// peakSpan is the span of x where some curve lies above a thousandth of
+// its own largest y, widened by a tenth of itself on each side: where DSC
+// curves are not flat. ok is false when no curve rises above zero.
+func peakSpan(curves []plotter.XYs) (lo, hi float64, ok bool) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, c := range curves {
+		top := 0.0
+		for _, pt := range c {
+			top = math.Max(top, pt.Y)
+		}
+		for _, pt := range c {
+			if top > 0 && pt.Y > 1e-3*top {
+				lo, hi = math.Min(lo, pt.X), math.Max(hi, pt.X)
+			}
+		}
+	}
+	if !(hi >= lo) {
+		return 0, 0, false
+	}
+	pad := (hi - lo) / 10
+	return lo - pad, hi + pad, true
 }

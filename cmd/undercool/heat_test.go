@@ -7,6 +7,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/plot/plotter"
 )
 
 // TestHeatThenCoolCurve: a path that heats a glass and cools it again,
@@ -123,5 +125,26 @@ func TestHeatPlot(t *testing.T) {
 		if !strings.Contains(string(svg), want) {
 			t.Errorf("the figure has no %q", want)
 		}
+	}
+}
+
+// TestPeakSpan: the plot spans where a curve is above a thousandth of its
+// own peak, a tenth more on each side; a flat curve gives no span.
+func TestPeakSpan(t *testing.T) {
+	peak := func(at, w float64) plotter.XYs {
+		var c plotter.XYs
+		for x := 700.0; x <= 1300; x++ {
+			c = append(c, plotter.XY{X: x, Y: math.Exp(-(x - at) * (x - at) / (2 * w * w))})
+		}
+		return c
+	}
+	// exp(−d²/2w²) > 1e-3 for |d| < w·√(2 ln 1000) = 3.717w: with w = 10,
+	// 900 ± 37 and 1000 ± 37 on the integer grid
+	lo, hi, ok := peakSpan([]plotter.XYs{peak(900, 10), peak(1000, 10)})
+	if !ok || math.Abs(lo-(863-17.4)) > 1e-9 || math.Abs(hi-(1037+17.4)) > 1e-9 {
+		t.Errorf("span [%g, %g] %v, want [845.6, 1054.4]", lo, hi, ok)
+	}
+	if _, _, ok := peakSpan([]plotter.XYs{{{X: 1, Y: 0}, {X: 2, Y: 0}}}); ok {
+		t.Error("a flat curve gave a span")
 	}
 }
