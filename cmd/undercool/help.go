@@ -51,12 +51,11 @@ func paramGroup(p presets.Param) string {
 	return groupMaterial
 }
 
-// printHelp writes a command's help, fitted to the screen: its usage,
+// printHelp writes a command's help, fitted to width: its usage,
 // summary, flags by group and example. The solution values show only where
 // they apply: with --material naming a card that is not a solution they
 // are left out, and the help says so.
-func printHelp(w io.Writer, name string, cmd *command, fs *pflag.FlagSet, args []string) {
-	width := screenWidth(w)
+func printHelp(w io.Writer, width int, name string, cmd *command, fs *pflag.FlagSet, args []string) {
 	para := func(s string) {
 		for _, l := range wrapLine(s, width) {
 			fmt.Fprintln(w, l)

@@ -25,6 +25,7 @@ func main() {
 type env struct {
 	stdin          io.Reader
 	stdout, stderr io.Writer // stdout is held until the command's files are written
+	width          int       // of the screen the tables are fitted to (screenWidth of the real stdout)
 	files          files
 	notes          []string // printed on stderr once the command succeeds
 	finish         []func() // run when the command returns (a progress bar clears its line)
@@ -120,8 +121,14 @@ func commandNames() []string {
 	return names
 }
 
-// run is the whole program; it returns the exit status.
+// run is the whole program; it returns the exit status. Its tables are
+// fitted to the screen stdout writes to (screenWidth).
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	return runWidth(screenWidth(stdout), args, stdin, stdout, stderr)
+}
+
+// runWidth is run with the tables and help fitted to width characters.
+func runWidth(width int, args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fail := func(msg string, code int) int {
 		fmt.Fprintf(stderr, "undercool: %s\n", strings.ReplaceAll(msg, "\n", " "))
 		return code
@@ -138,7 +145,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	case "-h", "--help", "help":
 		if len(args) > 1 && commands[args[1]] != nil {
 			// "undercool help rate" is "undercool rate --help".
-			return run([]string{args[1], "--help"}, stdin, stdout, stderr)
+			return runWidth(width, []string{args[1], "--help"}, stdin, stdout, stderr)
 		}
 		fmt.Fprint(stdout, manual())
 		return 0
@@ -151,14 +158,14 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs.SetOutput(io.Discard)
 	fs.SortFlags = false
 	var out bytes.Buffer
-	e := &env{stdin: stdin, stdout: &out, stderr: stderr}
+	e := &env{stdin: stdin, stdout: &out, stderr: stderr, width: width}
 	do := cmd.setup(fs, e)
 	if err := fs.Parse(args[1:]); err != nil {
 		var bad *pflag.InvalidValueError
 		var v *valueError
 		switch {
 		case errors.Is(err, pflag.ErrHelp):
-			printHelp(stdout, name, cmd, fs, args[1:])
+			printHelp(stdout, width, name, cmd, fs, args[1:])
 			return 0
 		case errors.As(err, &bad) && errors.As(err, &v):
 			return fail(fmt.Sprintf("--%s: %v", bad.GetFlag().Name, v), 2)

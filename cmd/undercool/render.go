@@ -55,7 +55,7 @@ func (f *formatFlag) draw(b *bytes.Buffer, a answer.Answer) error {
 	case "markdown":
 		return writeBlocks(b, markdownBlocks(d))
 	}
-	return writeText(b, d, screenWidth(f.e.stdout))
+	return writeText(b, d, f.e.width)
 }
 
 // check reports, before any file is written, whether a can be drawn with

@@ -29,8 +29,10 @@ var screenCases = [][]string{
 
 // TestScreenWidth draws every terminal output, the table goldens and the
 // cases above, and every command's help, on screens of 80 and 100
-// characters ($COLUMNS): no line may be wider.
+// characters: no line may be wider. The width is given as run gives it
+// (screenWidth of the real stdout), so the two screens run in parallel.
 func TestScreenWidth(t *testing.T) {
+	t.Parallel()
 	var runs [][]string
 	for _, c := range goldenCases {
 		if strings.HasSuffix(c.name, ".txt") {
@@ -46,25 +48,33 @@ func TestScreenWidth(t *testing.T) {
 		}
 	}
 	for _, w := range []int{80, 100} {
-		t.Setenv("COLUMNS", strconv.Itoa(w))
-		for _, args := range runs {
-			var stdout, stderr bytes.Buffer
-			if code := run(args, nil, &stdout, &stderr); code != 0 {
-				t.Errorf("%s: exit %d: %s", strings.Join(args, " "), code, stderr.String())
-				continue
-			}
-			for i, l := range strings.Split(stdout.String(), "\n") {
-				if n := utf8.RuneCountInString(l); n > w {
-					t.Errorf("COLUMNS=%d %s: line %d is %d characters wide:\n%s", w, strings.Join(args, " "), i+1, n, l)
-					break
-				}
+		t.Run(strconv.Itoa(w), func(t *testing.T) {
+			t.Parallel()
+			screenRuns(t, w, runs)
+		})
+	}
+}
+
+// screenRuns runs each of runs fitted to w characters and checks that no
+// line of its output is wider.
+func screenRuns(t *testing.T, w int, runs [][]string) {
+	for _, args := range runs {
+		var stdout, stderr bytes.Buffer
+		if code := runWidth(w, args, nil, &stdout, &stderr); code != 0 {
+			t.Errorf("%s: exit %d: %s", strings.Join(args, " "), code, stderr.String())
+			continue
+		}
+		for i, l := range strings.Split(stdout.String(), "\n") {
+			if n := utf8.RuneCountInString(l); n > w {
+				t.Errorf("%d columns, %s: line %d is %d characters wide:\n%s", w, strings.Join(args, " "), i+1, n, l)
+				break
 			}
 		}
 	}
 }
 
 // TestScreenWidthDefault checks the width without $COLUMNS, writing to a
-// buffer (no terminal): 100 characters.
+// buffer (no terminal): 100 characters; and with COLUMNS=80.
 func TestScreenWidthDefault(t *testing.T) {
 	t.Setenv("COLUMNS", "")
 	var stdout, stderr bytes.Buffer
@@ -77,6 +87,17 @@ func TestScreenWidthDefault(t *testing.T) {
 	}
 	if m := slices.Max(widths); m > defaultWidth || m < defaultWidth-20 {
 		t.Errorf("widest line %d characters; want at most %d and near it (the table fills the screen)", m, defaultWidth)
+	}
+	// $COLUMNS, when set, is the width
+	t.Setenv("COLUMNS", "80")
+	stdout.Reset()
+	if code := run([]string{"rate", "--material", "demo-alloy"}, nil, &stdout, &stderr); code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr.String())
+	}
+	for _, l := range strings.Split(stdout.String(), "\n") {
+		if n := utf8.RuneCountInString(l); n > 80 {
+			t.Errorf("COLUMNS=80: a line of %d characters:\n%s", n, l)
+		}
 	}
 }
 
