@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"fmt"
 	"math"
 	"os"
@@ -14,7 +15,14 @@ import (
 // A fit of more points than it lists gives its estimates without a table
 // of every point (JSON rows []), and says so; one point fewer lists them.
 func TestFitListsItsPoints(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
+	// the paths are absolute: no folder to change to, so it runs in parallel
+	fit := func(args ...string) (int, string, string) {
+		var out, errOut bytes.Buffer
+		code := run(append([]string{"fit", "arrhenius"}, args...), strings.NewReader(""), &out, &errOut)
+		return code, out.String(), errOut.String()
+	}
 	for _, n := range []int{answer.MaxListed, answer.MaxListed + 1} {
 		var b strings.Builder
 		b.WriteString("temperature_k,diffusivity_m2_per_s\n")
@@ -27,12 +35,12 @@ func TestFitListsItsPoints(t *testing.T) {
 			t.Fatal(err)
 		}
 		listed := n <= answer.MaxListed
-		code, stdout, stderr := runIn(t, dir, "fit", "arrhenius", path)
+		code, stdout, stderr := fit(path)
 		note := fmt.Sprintf("the %d rows are not listed one by one", n)
 		if code != 0 || strings.Contains(stdout, note) == listed || strings.Contains(stdout, "1000/T (1/K)") != listed {
 			t.Errorf("%d points: exit %d, listed %v: %.300s %s", n, code, strings.Contains(stdout, "1000/T (1/K)"), stdout, stderr)
 		}
-		code, stdout, _ = runIn(t, dir, "fit", "arrhenius", path, "--format", "json")
+		code, stdout, _ = fit(path, "--format", "json")
 		if code != 0 || strings.Contains(stdout, `"rows": []`) == listed || !strings.Contains(stdout, fmt.Sprintf(`"points": %d,`, n)) {
 			t.Errorf("%d points, JSON: exit %d, rows listed %v", n, code, !strings.Contains(stdout, `"rows": []`))
 		}
