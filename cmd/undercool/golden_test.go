@@ -185,8 +185,10 @@ var goldenCases = []struct {
 		"--date", "2026-01-15", "--out", "-"}},
 }
 
-// TestGolden runs every pinned case in-process and compares its standard
-// output with the golden file byte for byte. The cases run in parallel, with
+// TestGolden runs every pinned case in-process, on a screen of the default
+// width whatever $COLUMNS says, and compares its standard output with the
+// golden file byte for byte; no line of a screen output is wider than the
+// screen (TestScreenWidth draws them on 80 columns). The cases run in parallel, with
 // the scripts, once the tests that change the environment or the working
 // folder are done.
 func TestGolden(t *testing.T) {
@@ -195,8 +197,11 @@ func TestGolden(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			t.Parallel()
 			var stdout, stderr bytes.Buffer
-			if code := run(c.args, nil, &stdout, &stderr); code != 0 {
+			if code := runWidth(defaultWidth, c.args, nil, &stdout, &stderr); code != 0 {
 				t.Fatalf("exit %d: %s", code, stderr.String())
+			}
+			if strings.HasSuffix(c.name, ".txt") {
+				wideLine(t, defaultWidth, c.args, stdout.String())
 			}
 			path := filepath.Join(goldenDir, c.name)
 			if *update {

@@ -27,16 +27,16 @@ var screenCases = [][]string{
 	{"rate", "--material", "paracetamol-acetone-water", "--temps", "20C,10C"},
 }
 
-// TestScreenWidth draws every terminal output, the table goldens and the
-// cases above, and every command's help, on screens of 80 and 100
-// characters: no line may be wider. The width is given as run gives it
+// TestScreenWidth draws every terminal output, the table goldens (on 80:
+// TestGolden checks them on 100) and the cases above, and every command's
+// help, on screens of 80 and 100 characters: no line may be wider. The width is given as run gives it
 // (screenWidth of the real stdout), so the two screens run in parallel.
 func TestScreenWidth(t *testing.T) {
 	t.Parallel()
-	var runs [][]string
+	var runs, goldens [][]string // goldens: TestGolden checks them at 100
 	for _, c := range goldenCases {
 		if strings.HasSuffix(c.name, ".txt") {
-			runs = append(runs, c.args)
+			goldens = append(goldens, c.args)
 		}
 	}
 	runs = append(runs, screenCases...)
@@ -51,6 +51,9 @@ func TestScreenWidth(t *testing.T) {
 		t.Run(strconv.Itoa(w), func(t *testing.T) {
 			t.Parallel()
 			screenRuns(t, w, runs)
+			if w < defaultWidth {
+				screenRuns(t, w, goldens)
+			}
 		})
 	}
 }
@@ -64,11 +67,17 @@ func screenRuns(t *testing.T, w int, runs [][]string) {
 			t.Errorf("%s: exit %d: %s", strings.Join(args, " "), code, stderr.String())
 			continue
 		}
-		for i, l := range strings.Split(stdout.String(), "\n") {
-			if n := utf8.RuneCountInString(l); n > w {
-				t.Errorf("%d columns, %s: line %d is %d characters wide:\n%s", w, strings.Join(args, " "), i+1, n, l)
-				break
-			}
+		wideLine(t, w, args, stdout.String())
+	}
+}
+
+// wideLine reports the first line of out wider than w characters.
+func wideLine(t *testing.T, w int, args []string, out string) {
+	t.Helper()
+	for i, l := range strings.Split(out, "\n") {
+		if n := utf8.RuneCountInString(l); n > w {
+			t.Errorf("%d columns, %s: line %d is %d characters wide:\n%s", w, strings.Join(args, " "), i+1, n, l)
+			return
 		}
 	}
 }
