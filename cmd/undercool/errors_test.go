@@ -157,8 +157,8 @@ var errorCases = []struct {
 	{"rate", []string{"rate", "--material", "$WORK/standing-no-error.toml"}, `^undercool: --material: .*standing-no-error.toml: \[standing\] checked rows need error, the rms error of the checked rows`, 2},
 	{"rate", []string{"rate", "--material", "$WORK/standing-bad-row.toml"}, `^undercool: --material: .*standing-bad-row.toml: \[standing\] calibrated: "rows.csv" is not a measured row FILE:LINE$`, 2},
 	{"rate", []string{"rate", "--material", "$WORK/growth-table-missing.toml"}, `^undercool: --material: .*growth-table-missing.toml:4: growth "table" and growth_table = "FILE.csv" go together$`, 2},
-	{"rate", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--temps", "900"}, `^undercool: preset demo-alloy: missing value "particle_radius" \(the radius of the substrate particles, with particle_density\); give it in the card or with --particle-radius$`, 2},
-	{"rate", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--particle-radius", "1um", "--sites", "1e20", "--temps", "900"}, `^undercool: preset demo-alloy: sites 1e20 and particle_density, particle_radius both give the site density; give one or the other$`, 2},
+	{"rate", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--temps", "900K"}, `^undercool: preset demo-alloy: missing value "particle_radius" \(the radius of the substrate particles, with particle_density\); give it in the card or with --particle-radius$`, 2},
+	{"rate", []string{"rate", "--material", "demo-alloy", "--theta", "60", "--particle-density", "1e18", "--particle-radius", "1um", "--sites", "1e20", "--temps", "900K"}, `^undercool: preset demo-alloy: sites 1e20 and particle_density, particle_radius both give the site density; give one or the other$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--particle-radius", "-1um"}, `^undercool: --particle-radius: "-1um" must be positive$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--gamma-law", "linear"}, `^undercool: preset demo-alloy: missing value "gamma_t_ref" \(the temperature gamma is given at, for gamma_law linear\); give it in the card or with --gamma-t-ref$`, 2},
 	{"rate", []string{"rate", "--material", "demo-alloy", "--gamma-law", "wavy"}, `^undercool: --gamma-law: "wavy" is not one of constant, linear, negentropic$`, 2},
@@ -267,8 +267,8 @@ var errorCases = []struct {
 	{"spread_cool", []string{"cool", "--material", "demo-alloy", "--critical", "--spread", "colour=1%"}, `^undercool: --spread: unknown parameter "colour"`, 2},
 	{"spread_cool", []string{"cool", "--material", "demo-alloy", "--critical", "--spread", "gamma=2%", "--samples", "2000000"}, `^undercool: --samples: 2000000 is more than the 1000000 allowed`, 2},
 	{"spread_ttt", []string{"ttt", "--material", "demo-alloy", "--spread", "gamma=2%", "--samples", "0"}, `^undercool: --samples: 0: give at least 1 sample`, 2},
-	{"spread_ttt", []string{"hold", "--material", "demo-alloy", "--at", "900", "--spread", "wlf_c1=1"}, `^undercool: --spread: wlf_c1: the material has no such value \(mobility arrhenius, not wlf\)$`, 2},
-	{"rate_table", []string{"rate", "--material", "demo-alloy", "--driving", "$WORK/bad.csv", "--temps", "950"}, `^undercool: .*bad.csv:3: column "dg_j_per_mol": "x" is not a finite number$`, 2},
+	{"spread_ttt", []string{"hold", "--material", "demo-alloy", "--at", "900K", "--spread", "wlf_c1=1"}, `^undercool: --spread: wlf_c1: the material has no such value \(mobility arrhenius, not wlf\)$`, 2},
+	{"rate_table", []string{"rate", "--material", "demo-alloy", "--driving", "$WORK/bad.csv", "--temps", "950K"}, `^undercool: .*bad.csv:3: column "dg_j_per_mol": "x" is not a finite number$`, 2},
 	{"rate_table", []string{"rate", "--material", "demo-alloy", "--driving", "$WORK/none.csv", "--temps", "950"}, `^undercool: .*cannot read .*none.csv`, 2},
 	{"fit_plot", []string{"fit", "arrhenius", "$REPO/testdata/fit/diffusion.csv", "--plot", "$WORK/arrhenius.pdf"}, `^undercool: --plot: ".*arrhenius.pdf": unsupported plot file type ".pdf" \(use .svg or .png\)$`, 2},
 	{"fit_plot", []string{"fit", "arrhenius", "$WORK/bad.csv", "--plot", "$WORK/bad.svg"}, `bad.csv:2: column "diffusivity_m2_per_s": -1 must be positive`, 2},
@@ -279,6 +279,8 @@ var errorCases = []struct {
 	// path integral, which carries its sums scaled, now gives finite answers
 	// where the earlier one overflowed to NaN.)
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--curve", "$REPO/testdata/curves/demo-quench.csv"}, `^undercool: cool: the quench factor overflows`, 1},
+	// a bare temperature that causes an error is named inside it
+	{"heat", []string{"heat", "--material", "lithium-disilicate", "--from", "20", "--rate", "1K/s"}, `^undercool: --gamma-slope: .* \(note: --from: read as 20 K \(-253\.15 °C\); write 20C for Celsius\)$`, 2},
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--curve", "$REPO/testdata/curves/demo-plate-quench.csv"}, `^undercool: cool: the quench factor overflows`, 1},
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--rate", "1K/s", "--format", "json"}, `^undercool: cool: the critical cooling rate came out \+Inf: the computation left the range of floating-point numbers`, 1},
 	{"cool", []string{"cool", "--material", "sucrose", "--wlf-c1", "1000", "--critical"}, `^undercool: cool: the critical cooling rate came out \+Inf`, 1},

@@ -172,10 +172,13 @@ func runWidth(width int, args []string, stdin io.Reader, stdout, stderr io.Write
 		}
 		return fail(fmt.Sprintf("%s: %v (see undercool %s --help)", name, err, name), 2)
 	}
-	// Every temperature written without a unit is kelvin: say how it was read.
+	// Every temperature written without a unit is kelvin: say how it was
+	// read, beside the result, or inside the error it may have caused.
+	var bare []string
 	fs.Visit(func(f *pflag.Flag) {
 		if b, ok := f.Value.(bareTemps); ok && len(b.bareKelvin()) > 0 {
-			e.note("%s", bareNote(f.Name, b.bareKelvin()))
+			bare = append(bare, bareNote(f.Name, b.bareKelvin()))
+			e.note("%s", bare[len(bare)-1])
 		}
 	})
 	// Every file the flags name is checked before any work; the files are
@@ -193,7 +196,11 @@ func runWidth(width int, args []string, stdin io.Reader, stdout, stderr io.Write
 	}
 	if err != nil {
 		e.files.discard()
-		return fail(explain(name, err))
+		msg, code := explain(name, err)
+		if len(bare) > 0 {
+			msg += " (note: " + strings.Join(bare, "; ") + ")"
+		}
+		return fail(msg, code)
 	}
 	if _, err := stdout.Write(out.Bytes()); err != nil {
 		return fail("cannot write the standard output: "+outfile.Reason(err), 1)
